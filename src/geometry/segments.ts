@@ -6,6 +6,12 @@
  * in `OPS`. Everything downstream (chording, the curved-triangle map, validation, drawing) works
  * through these operations only.
  */
+import {
+  type CubicSegment, type EllipticalArcSegment, type QuadraticSegment,
+  cubicOps, ellipticalArcOps, quadraticOps,
+} from './curves.js';
+
+export type { CubicSegment, EllipticalArcSegment, QuadraticSegment } from './curves.js';
 
 export interface LineSegment {
   kind: 'line';
@@ -21,7 +27,7 @@ export interface ArcSegment {
   a0: number; a1: number;
 }
 
-export type Segment = LineSegment | ArcSegment;
+export type Segment = LineSegment | ArcSegment | EllipticalArcSegment | QuadraticSegment | CubicSegment;
 export type SegmentKind = Segment['kind'];
 
 /** Output pair written by point/derivative (no allocation in hot loops). */
@@ -139,6 +145,9 @@ const arcOps: SegmentOps<ArcSegment> = {
 export const OPS: { readonly [K in SegmentKind]: SegmentOps<Extract<Segment, { kind: K }>> } = {
   line: lineOps,
   arc: arcOps,
+  ellipticalArc: ellipticalArcOps,
+  quadratic: quadraticOps,
+  cubic: cubicOps,
 };
 
 export function ops(s: Segment): SegmentOps {
