@@ -34,9 +34,43 @@ export function variablesUsed(node: ExprNode): ReadonlySet<VariableName> {
   return out;
 }
 
+const hasVarsMemo = new WeakMap<ExprNode, boolean>();
+
+/** True when x or y appears anywhere in the tree; memoized per node, so repeated calls are cheap. */
+export function usesVariables(node: ExprNode): boolean {
+  const known = hasVarsMemo.get(node);
+  if (known !== undefined) return known;
+  let v: boolean;
+  switch (node.kind) {
+    case 'variable':
+      v = true;
+      break;
+    case 'number':
+    case 'constant':
+      v = false;
+      break;
+    case 'negate':
+      v = usesVariables(node.arg);
+      break;
+    case 'binary':
+    case 'compare': {
+      const a = usesVariables(node.left);
+      const b = usesVariables(node.right);
+      v = a || b;
+      break;
+    }
+    case 'call':
+      v = false;
+      for (const arg of node.args) if (usesVariables(arg)) v = true;
+      break;
+  }
+  hasVarsMemo.set(node, v);
+  return v;
+}
+
 /** The value of a tree that uses neither x nor y (may be NaN or ±Infinity); undefined otherwise. */
 export function constantValue(node: ExprNode): number | undefined {
-  return variablesUsed(node).size === 0 ? interpret(node, 0, 0) : undefined;
+  return usesVariables(node) ? undefined : interpret(node, 0, 0);
 }
 
 /**
@@ -71,21 +105,21 @@ function degree(n: ExprNode): number | null {
       }
       if (n.op === '/') {
         const c = constantValue(n.right);
-        if (c === undefined || !Number.isFinite(c) || c === 0) return variablesUsed(n).size === 0 ? 0 : null;
+        if (c === undefined || !Number.isFinite(c) || c === 0) return !usesVariables(n) ? 0 : null;
         return degree(n.left);
       }
       return powerDegree(n.left, n.right, n);
     }
     case 'call':
       if (n.name === 'pow') return powerDegree(n.args[0]!, n.args[1]!, n);
-      return variablesUsed(n).size === 0 ? 0 : null;
+      return !usesVariables(n) ? 0 : null;
     case 'compare':
-      return variablesUsed(n).size === 0 ? 0 : null;
+      return !usesVariables(n) ? 0 : null;
   }
 }
 
 function powerDegree(base: ExprNode, exponent: ExprNode, whole: ExprNode): number | null {
-  if (variablesUsed(whole).size === 0) return 0;
+  if (!usesVariables(whole)) return 0;
   const k = constantValue(exponent);
   if (k === undefined || !Number.isInteger(k) || k < 0) return null;
   const b = degree(base);

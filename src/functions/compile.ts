@@ -9,7 +9,7 @@
  * If the runtime forbids code generation, the tree-walking interpreter is used instead.
  */
 import type { ExprNode, FunctionName } from './ast.js';
-import { variablesUsed } from './analyze.js';
+import { usesVariables } from './analyze.js';
 import { interpret } from './interpret.js';
 
 export type Evaluator = (x: number, y: number) => number;
@@ -50,9 +50,17 @@ export function numberLiteral(v: number): string {
 
 const COMPARE_JS = { '<': '<', '<=': '<=', '>': '>', '>=': '>=', '==': '===', '!=': '!==' } as const;
 
-/** JavaScript source for one node; exported for tests that inspect the generated text. */
-export function generateSource(node: ExprNode): string {
-  if (node.kind !== 'number' && node.kind !== 'constant' && node.kind !== 'variable' && variablesUsed(node).size === 0) {
+const SUM_OPS: ReadonlySet<string> = new Set(['+', '-']);
+const PRODUCT_OPS: ReadonlySet<string> = new Set(['*', '/']);
+
+/**
+ * JavaScript source for one node; exported for tests that inspect the generated text.
+ * Every node is parenthesized except the left operand of a left-associative chain of the same
+ * precedence (a + b - c, a * b / c), which JavaScript groups the same way. This keeps long flat
+ * chains flat: V8 overflows its parser stack on about 1800 nested parentheses.
+ */
+export function generateSource(node: ExprNode, bare = false): string {
+  if (node.kind !== 'number' && node.kind !== 'constant' && node.kind !== 'variable' && !usesVariables(node)) {
     return numberLiteral(interpret(node, 0, 0));
   }
   switch (node.kind) {
@@ -65,14 +73,16 @@ export function generateSource(node: ExprNode): string {
     case 'negate':
       return `(-${generateSource(node.arg)})`;
     case 'binary': {
-      const a = generateSource(node.left);
+      const l = node.left;
+      const chained = l.kind === 'binary' && (SUM_OPS.has(node.op) ? SUM_OPS : PRODUCT_OPS).has(l.op) && node.op !== '^';
+      const a = generateSource(l, chained);
       const b = generateSource(node.right);
       switch (node.op) {
         case '+':
         case '-':
         case '*':
         case '/':
-          return `(${a} ${node.op} ${b})`;
+          return bare ? `${a} ${node.op} ${b}` : `(${a} ${node.op} ${b})`;
         case '^':
           return `${LOCAL_NAMES.pow[0]}(${a}, ${b})`;
       }
@@ -84,7 +94,7 @@ export function generateSource(node: ExprNode): string {
       return `(${generateSource(node.left)} ${op} ${generateSource(node.right)} ? 1 : 0)`;
     }
     case 'call': {
-      const args = node.args.map(generateSource);
+      const args = node.args.map((arg) => generateSource(arg));
       if (node.name === 'if') return `(${args[0]} ? ${args[1]} : ${args[2]})`;
       const local = Object.prototype.hasOwnProperty.call(LOCAL_NAMES, node.name) ? LOCAL_NAMES[node.name][0] : undefined;
       if (local === undefined) break;
@@ -107,9 +117,10 @@ export function compileTree(node: ExprNode, useCodegen = true): Evaluator {
       codegenAllowed = true;
       return make(names.map(([, fn]) => fn));
     } catch (e) {
-      // EvalError: code generation from strings disallowed in this runtime. Anything else is a bug.
-      if (!(e instanceof EvalError)) throw e;
-      codegenAllowed = false;
+      // EvalError: code generation from strings is disallowed in this runtime (remember that).
+      // RangeError: the engine's parser ran out of stack on this one text; interpret it instead.
+      if (e instanceof EvalError) codegenAllowed = false;
+      else if (!(e instanceof RangeError)) throw e;
     }
   }
   return (x: number, y: number) => interpret(node, x, y);
