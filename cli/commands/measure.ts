@@ -1,0 +1,24 @@
+import { measureSection } from '../../src/accuracy/measure.js';
+import { InputError } from '../../src/errors.js';
+import { readInputText } from '../../src/io/files.js';
+import { sectionJson, sectionText } from '../../src/io/output.js';
+import { readParts } from '../../src/io/read.js';
+
+export interface MeasureFlags { json?: boolean; degree?: number; levels?: number; triangulation?: string }
+
+export function measure(file: string, flags: MeasureFlags): string {
+  if (flags.triangulation !== undefined && flags.triangulation !== 'delaunay' && flags.triangulation !== 'sweep') {
+    throw new InputError('--triangulation', `expected delaunay or sweep, got "${flags.triangulation}"`);
+  }
+  if (flags.levels !== undefined && (flags.levels < 1 || flags.levels > 6)) throw new InputError('--levels', `expected 1 to 6, got ${flags.levels}`);
+  const input = readInputText(file);
+  const parts = readParts(input.text, input.label);
+  const results = parts.map((p) => measureSection(p, {
+    degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation as 'delaunay' | 'sweep' | undefined,
+  }));
+  if (flags.json) {
+    const docs = results.map(sectionJson);
+    return JSON.stringify(docs.length === 1 ? docs[0] : { parts: docs }, null, 2) + '\n';
+  }
+  return results.map(sectionText).join('\n');
+}

@@ -1,0 +1,322 @@
+/**
+ * Validation shared by all readers: loops are closed and simple, cut-outs lie strictly inside their
+ * outline and apart from each other, regions do not overlap. Problems are InputErrors naming the loop's
+ * `where` and the place (coordinates) where it happens.
+ *
+ * Intersections are exact (closed form) for line/line, line/arc and arc/arc pairs; other curve kinds use
+ * recursive subdivision on the exact curve down to the touching tolerance.
+ */
+import { InputError } from '../errors.js';
+import { type Loop, type Part, type Region, loopSignedArea, partBox } from './part.js';
+import { type ArcSegment, type Box, type LineSegment, type Segment, ops, segmentEnd, segmentPoint, segmentStart } from './segments.js';
+
+interface SegRef {
+  seg: Segment;
+  loop: number;
+  index: number;
+  box: Box;
+}
+
+interface Hit { x: number; y: number; ta: number; tb: number }
+
+const fmt = (v: number) => Number(v.toPrecision(6)).toString();
+const at = (x: number, y: number) => `(${fmt(x)}, ${fmt(y)})`;
+
+/** Throws InputError on the first problem found; returns the touching tolerance used. */
+export function validatePart(part: Part): number {
+  if (part.regions.length === 0) throw new InputError('outline', 'the part has no material (no outline)');
+  const box = partBox(part);
+  const size = Math.max(box[2] - box[0], box[3] - box[1]);
+  if (!Number.isFinite(size) || !(size > 0)) throw new InputError('outline', 'expected an outline with finite, non-zero extent');
+  const scale = Math.max(size, Math.abs(box[0]), Math.abs(box[1]), Math.abs(box[2]), Math.abs(box[3]));
+  const tol = 1e-9 * scale;
+
+  const loops: Loop[] = [];
+  const loopRegion: number[] = [];
+  part.regions.forEach((r, ri) => {
+    loops.push(r.outer); loopRegion.push(ri);
+    for (const h of r.holes) { loops.push(h); loopRegion.push(ri); }
+  });
+
+  loops.forEach((l, li) => checkLoop(l, li, tol));
+
+  // all segments, sweep-and-prune on x
+  const refs: SegRef[] = [];
+  loops.forEach((l, li) => l.segments.forEach((seg, index) => {
+    const b = ops(seg).bbox(seg);
+    refs.push({ seg, loop: li, index, box: [b[0] - tol, b[1] - tol, b[2] + tol, b[3] + tol] });
+  }));
+  refs.sort((a, b) => a.box[0] - b.box[0]);
+  const active: SegRef[] = [];
+  for (const r of refs) {
+    for (let k = active.length - 1; k >= 0; k--) if (active[k].box[2] < r.box[0]) { active[k] = active[active.length - 1]; active.pop(); }
+    for (const a of active) {
+      if (a.box[1] > r.box[3] || r.box[1] > a.box[3]) continue;
+      checkPair(a, r, loops, tol);
+    }
+    active.push(r);
+  }
+
+  // nesting: every hole inside its outline, holes not inside each other, regions apart
+  part.regions.forEach((reg) => {
+    for (const h of reg.holes) {
+      const p = loopProbe(h);
+      if (!pointInLoop(p[0], p[1], reg.outer)) {
+        throw new InputError(h.where ?? 'cutout', `lies outside ${reg.outer.where ?? 'the outline'}; a cut-out must be inside the outline`);
+      }
+    }
+    checkHoleNesting(reg.holes);
+  });
+  checkRegionNesting(part.regions);
+  return tol;
+}
+
+function loopName(l: Loop): string { return l.where ?? 'loop'; }
+
+function checkLoop(loop: Loop, li: number, tol: number): void {
+  const n = loop.segments.length;
+  if (n === 0) throw new InputError(loopName(loop), 'expected a closed loop with at least one segment');
+  for (let i = 0; i < n; i++) {
+    const s = loop.segments[i];
+    if (!(ops(s).length(s) > tol)) {
+      const p = segmentStart(s);
+      throw new InputError(loopName(loop), `has a zero-length segment at ${at(p[0], p[1])}`);
+    }
+    const e = segmentEnd(s), b = segmentStart(loop.segments[(i + 1) % n]);
+    if (Math.hypot(e[0] - b[0], e[1] - b[1]) > tol * 10) {
+      throw new InputError(loopName(loop), `is not closed: a segment ends at ${at(e[0], e[1])} but the next starts at ${at(b[0], b[1])}`);
+    }
+    for (const v of [e[0], e[1]]) if (!Number.isFinite(v)) throw new InputError(loopName(loop), 'has a coordinate that is not a finite number');
+  }
+  const a = loopSignedArea(loop);
+  if (!(Math.abs(a) > tol * tol)) throw new InputError(loopName(loop), 'encloses no area');
+  void li;
+}
+
+function checkPair(a: SegRef, b: SegRef, loops: Loop[], tol: number): void {
+  const hits = intersect(a.seg, b.seg, tol);
+  if (hits.length === 0) return;
+  if (a.loop === b.loop) {
+    const loop = loops[a.loop];
+    const n = loop.segments.length;
+    const joints: [number, number][] = [];
+    const i = a.index, j = b.index;
+    if ((i + 1) % n === j) joints.push(segmentEnd(a.seg));
+    if ((j + 1) % n === i) joints.push(segmentEnd(b.seg));
+    const real = hits.filter((h) => !joints.some((p) => Math.hypot(h.x - p[0], h.y - p[1]) <= 100 * tol));
+    if (real.length === 0) return;
+    if (i === j) return;
+    const h = real[0];
+    throw new InputError(loopName(loop), `crosses or touches itself near ${at(h.x, h.y)}; a loop must be simple`);
+  }
+  const h = hits[0];
+  const la = loops[a.loop], lb = loops[b.loop];
+  throw new InputError(loopName(lb), `crosses or touches ${loopName(la)} near ${at(h.x, h.y)}; cut-outs must lie strictly inside the outline and apart from each other`);
+}
+
+/** Intersections of two segments, within `tol` (tangency counts as a touch). */
+export function intersect(a: Segment, b: Segment, tol: number): Hit[] {
+  if (a.kind === 'line' && b.kind === 'line') return lineLine(a, b, tol);
+  if (a.kind === 'line' && b.kind === 'arc') return lineArc(a, b, tol);
+  if (a.kind === 'arc' && b.kind === 'line') return lineArc(b, a, tol).map((h) => ({ ...h, ta: h.tb, tb: h.ta }));
+  if (a.kind === 'arc' && b.kind === 'arc') return arcArc(a, b, tol);
+  return generic(a, 0, 1, b, 0, 1, tol, 0);
+}
+
+function lineLine(a: LineSegment, b: LineSegment, tol: number): Hit[] {
+  const dx = a.x1 - a.x0, dy = a.y1 - a.y0, ex = b.x1 - b.x0, ey = b.y1 - b.y0;
+  const la = Math.hypot(dx, dy), lb = Math.hypot(ex, ey);
+  const den = dx * ey - dy * ex;
+  const wx = b.x0 - a.x0, wy = b.y0 - a.y0;
+  if (Math.abs(den) <= 1e-14 * la * lb) {
+    // parallel: touching only if collinear within tol and overlapping
+    const dist = Math.abs(wx * dy - wy * dx) / la;
+    if (dist > tol) return [];
+    const t0 = (wx * dx + wy * dy) / (la * la);
+    const t1 = ((b.x1 - a.x0) * dx + (b.y1 - a.y0) * dy) / (la * la);
+    const lo = Math.max(0, Math.min(t0, t1)), hi = Math.min(1, Math.max(t0, t1));
+    if (hi < lo - tol / la) return [];
+    const t = (lo + hi) / 2;
+    return [{ x: a.x0 + dx * t, y: a.y0 + dy * t, ta: t, tb: 0 }];
+  }
+  const ta = (wx * ey - wy * ex) / den;
+  const tb = (wx * dy - wy * dx) / den;
+  const ea = tol / la, eb = tol / lb;
+  if (ta < -ea || ta > 1 + ea || tb < -eb || tb > 1 + eb) return [];
+  return [{ x: a.x0 + dx * ta, y: a.y0 + dy * ta, ta, tb }];
+}
+
+const TWO_PI = 2 * Math.PI;
+/** Parameter of angle `ang` on an arc, or NaN when outside its sweep (with angular slack `slack`). */
+function arcParam(s: ArcSegment, ang: number, slack: number): number {
+  const d = s.a1 - s.a0;
+  let rel = (ang - s.a0) * Math.sign(d);
+  rel = ((rel % TWO_PI) + TWO_PI) % TWO_PI;
+  const span = Math.abs(d);
+  if (rel <= span + slack) return rel / span;
+  if (rel >= TWO_PI - slack) return (rel - TWO_PI) / span;
+  return NaN;
+}
+
+function lineArc(a: LineSegment, c: ArcSegment, tol: number): Hit[] {
+  const dx = a.x1 - a.x0, dy = a.y1 - a.y0;
+  const L = Math.hypot(dx, dy);
+  const ux = dx / L, uy = dy / L;
+  // foot of the perpendicular from the centre
+  const s0 = (c.cx - a.x0) * ux + (c.cy - a.y0) * uy;
+  const fx = a.x0 + ux * s0, fy = a.y0 + uy * s0;
+  const h = Math.hypot(c.cx - fx, c.cy - fy);
+  if (h > c.r + tol) return [];
+  const half = h >= c.r - tol ? 0 : Math.sqrt(c.r * c.r - h * h);
+  const out: Hit[] = [];
+  const slack = tol / c.r;
+  for (const s of half === 0 ? [s0] : [s0 - half, s0 + half]) {
+    if (s < -tol || s > L + tol) continue;
+    const x = a.x0 + ux * s, y = a.y0 + uy * s;
+    const tb = arcParam(c, Math.atan2(y - c.cy, x - c.cx), slack);
+    if (Number.isNaN(tb)) continue;
+    out.push({ x, y, ta: s / L, tb });
+  }
+  return out;
+}
+
+function arcArc(a: ArcSegment, b: ArcSegment, tol: number): Hit[] {
+  const dx = b.cx - a.cx, dy = b.cy - a.cy;
+  const d = Math.hypot(dx, dy);
+  if (d > a.r + b.r + tol) return [];
+  if (d < Math.abs(a.r - b.r) - tol) return [];
+  const out: Hit[] = [];
+  if (d <= tol && Math.abs(a.r - b.r) <= tol) {
+    // same circle: overlapping sweeps touch
+    for (const t of [0, 0.5, 1]) {
+      const p = segmentPoint(b, t);
+      const ta = arcParam(a, Math.atan2(p[1] - a.cy, p[0] - a.cx), tol / a.r);
+      if (!Number.isNaN(ta)) out.push({ x: p[0], y: p[1], ta, tb: t });
+    }
+    for (const t of [0, 0.5, 1]) {
+      const p = segmentPoint(a, t);
+      const tb = arcParam(b, Math.atan2(p[1] - b.cy, p[0] - b.cx), tol / b.r);
+      if (!Number.isNaN(tb)) out.push({ x: p[0], y: p[1], ta: t, tb });
+    }
+    return out;
+  }
+  const along = (a.r * a.r - b.r * b.r + d * d) / (2 * d);
+  const h2 = a.r * a.r - along * along;
+  const h = h2 > 0 ? Math.sqrt(h2) : 0;
+  const mx = a.cx + dx * along / d, my = a.cy + dy * along / d;
+  const pts = h <= tol ? [[mx, my]] : [[mx - dy * h / d, my + dx * h / d], [mx + dy * h / d, my - dx * h / d]];
+  for (const [x, y] of pts) {
+    const ta = arcParam(a, Math.atan2(y - a.cy, x - a.cx), tol / a.r);
+    const tb = arcParam(b, Math.atan2(y - b.cy, x - b.cx), tol / b.r);
+    if (!Number.isNaN(ta) && !Number.isNaN(tb)) out.push({ x, y, ta, tb });
+  }
+  return out;
+}
+
+/** Subdivision on exact curves: boxes of sub-ranges are the chord's box grown by the curve's deviation. */
+function generic(a: Segment, a0: number, a1: number, b: Segment, b0: number, b1: number, tol: number, depth: number): Hit[] {
+  const ba = subBox(a, a0, a1), bb = subBox(b, b0, b1);
+  if (ba[0] > bb[2] + tol || bb[0] > ba[2] + tol || ba[1] > bb[3] + tol || bb[1] > ba[3] + tol) return [];
+  const da = ops(a).deviation(a, a0, a1), db = ops(b).deviation(b, b0, b1);
+  if ((da <= tol && db <= tol) || depth > 40) {
+    const pa0 = segmentPoint(a, a0), pa1 = segmentPoint(a, a1), pb0 = segmentPoint(b, b0), pb1 = segmentPoint(b, b1);
+    const la: LineSegment = { kind: 'line', x0: pa0[0], y0: pa0[1], x1: pa1[0], y1: pa1[1] };
+    const lb: LineSegment = { kind: 'line', x0: pb0[0], y0: pb0[1], x1: pb1[0], y1: pb1[1] };
+    if (ops(la).length(la) === 0 || ops(lb).length(lb) === 0) return [];
+    return lineLine(la, lb, tol).map((h) => ({ ...h, ta: a0 + (a1 - a0) * h.ta, tb: b0 + (b1 - b0) * h.tb }));
+  }
+  const am = (a0 + a1) / 2, bm = (b0 + b1) / 2;
+  const out: Hit[] = [];
+  const splitA = da >= db;
+  const parts: [number, number, number, number][] = splitA ? [[a0, am, b0, b1], [am, a1, b0, b1]] : [[a0, a1, b0, bm], [a0, a1, bm, b1]];
+  for (const [p0, p1, q0, q1] of parts) {
+    out.push(...generic(a, p0, p1, b, q0, q1, tol, depth + 1));
+    if (out.length > 0) return out;
+  }
+  return out;
+}
+
+function subBox(s: Segment, t0: number, t1: number): Box {
+  const p = segmentPoint(s, t0), q = segmentPoint(s, t1);
+  const d = ops(s).deviation(s, t0, t1);
+  return [Math.min(p[0], q[0]) - d, Math.min(p[1], q[1]) - d, Math.max(p[0], q[0]) + d, Math.max(p[1], q[1]) + d];
+}
+
+/** A point on the loop's boundary used to decide nesting once crossings are excluded. */
+function loopProbe(l: Loop): [number, number] {
+  return segmentPoint(l.segments[0], 0.5);
+}
+
+/** Even–odd point-in-loop test on the exact curves (horizontal ray to +x). */
+export function pointInLoop(px: number, py: number, loop: Loop): boolean {
+  let inside = false;
+  const p: [number, number] = [0, 0];
+  for (const s of loop.segments) {
+    const o = ops(s);
+    const cuts = [0, ...o.yTurns(s), 1];
+    for (let k = 0; k + 1 < cuts.length; k++) {
+      let ta = cuts[k], tb = cuts[k + 1];
+      o.point(s, ta, p); let ya = p[1];
+      o.point(s, tb, p); let yb = p[1];
+      if (ya === yb) continue;
+      if (ya > yb) { [ta, tb] = [tb, ta]; [ya, yb] = [yb, ya]; }
+      if (!(py >= ya && py < yb)) continue;
+      // bisection for y(t) = py on the monotone piece
+      let lo = ta, hi = tb;
+      for (let it = 0; it < 80; it++) {
+        const mid = (lo + hi) / 2;
+        o.point(s, mid, p);
+        if (p[1] < py) lo = mid; else hi = mid;
+        if (lo === hi) break;
+      }
+      o.point(s, (lo + hi) / 2, p);
+      if (p[0] > px) inside = !inside;
+    }
+  }
+  return inside;
+}
+
+function looseBox(l: Loop): Box {
+  let b: Box = [Infinity, Infinity, -Infinity, -Infinity];
+  for (const s of l.segments) {
+    const c = ops(s).bbox(s);
+    b = [Math.min(b[0], c[0]), Math.min(b[1], c[1]), Math.max(b[2], c[2]), Math.max(b[3], c[3])];
+  }
+  return b;
+}
+
+const inside = (a: Box, b: Box) => a[0] >= b[0] && a[1] >= b[1] && a[2] <= b[2] && a[3] <= b[3];
+
+function checkHoleNesting(holes: Loop[]): void {
+  if (holes.length < 2) return;
+  const boxes = holes.map(looseBox);
+  const order = holes.map((_, i) => i).sort((i, j) => boxes[i][0] - boxes[j][0]);
+  const active: number[] = [];
+  for (const i of order) {
+    for (let k = active.length - 1; k >= 0; k--) if (boxes[active[k]][2] < boxes[i][0]) active.splice(k, 1);
+    for (const j of active) {
+      if (boxes[j][1] > boxes[i][3] || boxes[i][1] > boxes[j][3]) continue;
+      for (const [inner, outer] of [[i, j], [j, i]]) {
+        if (!inside(boxes[inner], boxes[outer])) continue;
+        const p = loopProbe(holes[inner]);
+        if (pointInLoop(p[0], p[1], holes[outer])) {
+          throw new InputError(holes[inner].where ?? 'cutout', `lies inside ${holes[outer].where ?? 'another cut-out'}; cut-outs must not overlap`);
+        }
+      }
+    }
+    active.push(i);
+  }
+}
+
+function checkRegionNesting(regions: Region[]): void {
+  for (let i = 0; i < regions.length; i++) {
+    for (let j = 0; j < regions.length; j++) {
+      if (i === j) continue;
+      const p = loopProbe(regions[i].outer);
+      const r = regions[j];
+      if (pointInLoop(p[0], p[1], r.outer) && !r.holes.some((h) => pointInLoop(p[0], p[1], h))) {
+        throw new InputError(regions[i].outer.where ?? 'outline', `lies on the material of ${r.outer.where ?? 'another outline'}; regions must not overlap`);
+      }
+    }
+  }
+}

@@ -1,0 +1,27 @@
+/**
+ * platewise as a library: the same functions the CLI calls.
+ */
+export { InputError, isInputError } from './errors.js';
+export type { LengthUnit } from './units.js';
+export { LENGTH_UNITS, lengthFactor } from './units.js';
+export type { Segment, LineSegment, ArcSegment, SegmentOps } from './geometry/segments.js';
+export { OPS, segmentPoint } from './geometry/segments.js';
+export type { Loop, Region, Part } from './geometry/part.js';
+export { normalizePart, loopSignedArea, partBox, translatePart } from './geometry/part.js';
+export { circleLoop, rectangleLoop, slotLoop, polygonLoop, pathLoop } from './geometry/shapes.js';
+export { validatePart, pointInLoop } from './geometry/validate.js';
+export { readPartJson } from './io/partJson.js';
+export { readParts } from './io/read.js';
+export { readInputText, writeFileAtomic } from './io/files.js';
+export type { Mesh } from './mesh/mesh.js';
+export { buildMesh } from './mesh/build.js';
+export { refineUniform } from './mesh/refine.js';
+export { integrate } from './quadrature/integrate.js';
+export { getRule, listRules, SAFE_DEGREES, DEFAULT_DEGREE } from './quadrature/rules.js';
+export type { Quantity, SectionQuantities, SectionValues } from './properties/quantities.js';
+export { SECTION_QUANTITIES } from './properties/quantities.js';
+export { sectionFromMoments } from './properties/section.js';
+export type { SectionResult, MeasureOptions } from './accuracy/measure.js';
+export { measureSection, preparePart } from './accuracy/measure.js';
+export { sectionJson, sectionText } from './io/output.js';
+export { GEOMETRY_CAUTION, MASS_CAUTION } from './cautions.js';
