@@ -37,7 +37,7 @@ describe('minimum-area rectangle: closed forms', () => {
     for (let k = 0; k < 50; k++) {
       const w = 1 + rnd() * 100, h = 1 + rnd() * 100, a = rnd() * 2 * Math.PI;
       const c: Pt = [rnd() * 1000, rnd() * 1000];
-      const pts = [[0, 0], [w, 0], [w, h], [0, h]].map((p) => rot(p as Pt, a, c));
+      const pts = ([[0, 0], [w, 0], [w, h], [0, h]] as Pt[]).map((p) => rot(p, a, c));
       const r = minAreaRectangle(part(polygonLoop(pts)));
       expect(r.method).toBe('calipers');
       expect(r.area).toBeCloseTo(w * h, 8);
@@ -72,7 +72,7 @@ describe('minimum-area rectangle: closed forms', () => {
 
   it('equilateral triangle of side a: a × (√3/2)a (elementary geometry, from memory)', () => {
     const a = 12;
-    const tri = [[0, 0], [a, 0], [a / 2, a * Math.sqrt(3) / 2]].map((p) => rot(p as Pt, 0.9, [5, -7]));
+    const tri = ([[0, 0], [a, 0], [a / 2, a * Math.sqrt(3) / 2]] as Pt[]).map((p) => rot(p, 0.9, [5, -7]));
     const r = minAreaRectangle(part(polygonLoop(tri)));
     expect(Math.abs(r.area / (a * a * Math.sqrt(3) / 2) - 1)).toBeLessThan(REL);
     expect(r.width).toBeCloseTo(a, 10);
