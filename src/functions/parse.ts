@@ -93,7 +93,7 @@ function tokenizeInto(tokens: Token[], text: string, where: string, column: (i: 
           while (j < n && isDigit(text[j]!)) j++;
           i = j;
         } else {
-          throw new InputError(where, `incomplete exponent in number "${text.slice(start, j)}" at column ${column(start)}; expected digits after "${text.slice(i, j)}"`);
+          throw new InputError(where, `incomplete exponent in number "${text.slice(start, j)}" at column ${column(start)}; expected digits after "${text.slice(i, j)}"${j === i + 1 ? ` (write ${text.slice(start, i)}*e to multiply by e)` : ''}`);
         }
       }
       const lexeme = text.slice(start, i);
@@ -102,7 +102,7 @@ function tokenizeInto(tokens: Token[], text: string, where: string, column: (i: 
         throw new InputError(where, `number "${lexeme}" at column ${column(start)} is too large; expected a finite number`);
       }
       if (i < n && (isNameStart(text[i]!) || text[i] === '.')) {
-        const what = text[i] === '.' ? 'a second "."' : `name "${text.slice(i).match(/^[A-Za-z_0-9]+/)![0]}"`;
+        const what = text[i] === '.' ? 'second "."' : `name "${text.slice(i).match(/^[A-Za-z_0-9]+/)![0]}"`;
         throw new InputError(where, `unexpected ${what} right after number "${lexeme}" at column ${column(i)}; expected an operator (write 2*x, not 2x)`);
       }
       tokens.push({ t: 'num', value, pos: column(start), text: lexeme });

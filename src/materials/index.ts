@@ -6,3 +6,11 @@ export type { Material, MaterialTable } from './table.js';
 export { MATERIALS, findMaterial, listMaterials, materialTable, normalizeMaterialName } from './table.js';
 export { loadMaterialFile, MIN_PLAIN_DENSITY, MAX_DENSITY } from './file.js';
 export * from './units.js';
+
+/**
+ * Caution to print beside any mass, weight or mass moment computed from these densities.
+ * Nominal densities are not certified values; lifting and structural decisions need more.
+ */
+export const MASS_CAUTION =
+  'Masses use nominal densities and are estimates for planning. Before lifting, rigging or any structural ' +
+  'check, confirm the mass (weigh the part or use certified data) and follow local codes and a competent person.';
