@@ -1,0 +1,298 @@
+/**
+ * Reference files: values stated elsewhere (a drawing, a customer's sheet, a hand calculation) for any
+ * catalogued quantity, each with its unit and optionally a tolerance, to be judged against computed values.
+ *
+ * JSON form:
+ *   {
+ *     "part": "bracket B-12",                 (optional: which part the values belong to)
+ *     "values": [
+ *       { "quantity": "area", "value": 4.65, "unit": "in²", "tolerance": "0.5%" },
+ *       { "quantity": "centroidX", "value": "50.0 mm", "tolerance": "0.05 mm" },
+ *       { "quantity": "Ix", "value": 1.234e6, "unit": "mm^4", "tolerance": { "relative": 0.002 } },
+ *       { "quantity": "principalAngle", "value": 0.5236, "unit": "rad", "tolerance": { "absolute": 0.1, "unit": "deg" } },
+ *       { "quantity": "pierces", "value": 4, "note": "outer contour and three holes" }
+ *     ]
+ *   }
+ * CSV form (RFC 4180, header required, columns quantity and value required, unit/tolerance/note optional):
+ *   quantity,value,unit,tolerance,note
+ *   area,4.65,in²,0.5%,
+ *   centroidX,50.0,mm,0.05 mm,
+ *
+ * Rules:
+ * - `quantity` must be a catalogued key (src/properties/quantities.ts); a near miss gets a suggestion.
+ * - A quantity with a dimension needs a unit, either in `unit` or after the number in `value` ("50.0 mm");
+ *   the unit is converted, never assumed. Counts take no unit; ratios take none (a fraction) or "%".
+ * - `tolerance` (optional; a default per kind of quantity applies without it):
+ *   "0.5%" (relative, in percent), "0.002 rel" (relative, as a fraction), "0.05 mm" (absolute, any unit of
+ *   the quantity's dimension), a bare number only for counts and ratios (absolute);
+ *   in JSON also { "relative": 0.002 } or { "absolute": 0.05, "unit": "mm" }.
+ *   A bare number for a quantity with a dimension is refused: it would be unclear whether it is relative.
+ *   Angles take absolute tolerances only.
+ * - Each quantity at most once per file.
+ */
+import { InputError, describeValue } from '../errors.js';
+import { type Dimension, quantityInfo, SECTION_QUANTITIES } from '../properties/quantities.js';
+import { FABRICATION_QUANTITIES } from '../properties/fabrication.js';
+import { parseCsvRecords, csvWhere } from '../io/csv.js';
+import { type ParsedUnit, parseUnit, plainScale, UNIT_EXAMPLES } from './units.js';
+
+export type StatedTolerance =
+  | { kind: 'relative'; fraction: number; text: string }
+  | { kind: 'absolute'; value: number; unit: ParsedUnit; text: string };
+
+export interface StatedValue {
+  quantity: string;
+  dimension: Dimension;
+  /** The number as written, in `unit`. */
+  value: number;
+  /** The unit as written and parsed (for dimensionless values without a unit: scale of a plain number). */
+  unit: ParsedUnit;
+  tolerance: StatedTolerance | null;
+  note?: string;
+  /** Where the value was stated (JSON path or CSV line and column), for messages. */
+  where: string;
+}
+
+export interface Reference {
+  /** The label the file was read under (its path). */
+  source: string;
+  part?: string;
+  values: StatedValue[];
+}
+
+export interface ReferenceOptions {
+  /** Keys registered by other modules, offered as suggestions on a typo (all registered keys are accepted). */
+  extraKeys?: readonly string[];
+}
+
+// ---------------------------------------------------------------- helpers
+
+function levenshtein(a: string, b: string): number {
+  const d = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    let prev = d[0];
+    d[0] = i;
+    for (let j = 1; j <= b.length; j++) {
+      const tmp = d[j];
+      d[j] = Math.min(d[j] + 1, d[j - 1] + 1, prev + (a[i - 1] === b[j - 1] ? 0 : 1));
+      prev = tmp;
+    }
+  }
+  return d[b.length];
+}
+
+/** The closest known key to `name`, if close enough to be a likely typo. */
+export function suggestKey(name: string, keys: readonly string[]): string | undefined {
+  const lower = name.toLowerCase();
+  const exactCase = keys.find((k) => k.toLowerCase() === lower);
+  if (exactCase) return exactCase;
+  let best: string | undefined, bestD = Infinity;
+  for (const k of keys) {
+    const dd = levenshtein(lower, k.toLowerCase());
+    if (dd < bestD) { bestD = dd; best = k; }
+  }
+  return bestD <= Math.max(2, Math.floor(name.length / 3)) ? best : undefined;
+}
+
+function knownKeys(options: ReferenceOptions): string[] {
+  return [...SECTION_QUANTITIES, ...FABRICATION_QUANTITIES].map((q) => q.key).concat(options.extraKeys ?? []);
+}
+
+function checkQuantity(name: string, where: string, options: ReferenceOptions): Dimension {
+  const info = quantityInfo(name);
+  if (info) return info.dimension;
+  const s = suggestKey(name, knownKeys(options));
+  throw new InputError(where, `unknown quantity "${name}"${s ? `; did you mean "${s}"?` : '; expected a key such as area, centroidX, Ix, principalAngle, cutLength'}`);
+}
+
+function unitFor(dim: Dimension, text: string, where: string): ParsedUnit {
+  const t = text.trim();
+  if (t === '') {
+    if (dim === 'count' || dim === 'ratio') return { dimension: dim, scale: plainScale(dim), text: '' };
+    throw new InputError(where, `expected a unit of ${dim} (${UNIT_EXAMPLES[dim]}); units are never assumed`);
+  }
+  const u = parseUnit(t);
+  if (!u) throw new InputError(where, `unknown unit "${t}"; expected a unit of ${dim} (${UNIT_EXAMPLES[dim]})`);
+  if (u.dimension !== dim) {
+    throw new InputError(where, `"${t}" is a unit of ${u.dimension}; expected a unit of ${dim} (${UNIT_EXAMPLES[dim]})`);
+  }
+  return u;
+}
+
+/** "12.5 in²" → number and unit text; a plain number gives unit ''. */
+function splitValueText(s: string, where: string): { value: number; unit: string } {
+  const m = /^\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*(.*?)\s*$/.exec(s);
+  if (!m) throw new InputError(where, `expected a number, optionally followed by a unit (such as "12.5 mm²"), got ${describeValue(s)}`);
+  return { value: Number(m[1]), unit: m[2] };
+}
+
+/** Tolerance text: "0.5%", "0.002 rel", "0.05 mm", or (counts, ratios) a bare number. */
+function parseToleranceText(s: string, dim: Dimension, where: string): StatedTolerance | null {
+  const t = s.trim();
+  if (t === '') return null;
+  const { value, unit } = splitValueText(t, where);
+  if (!(value >= 0) || !Number.isFinite(value)) throw new InputError(where, `expected a tolerance of zero or more, got ${describeValue(s)}`);
+  const u = unit.toLowerCase();
+  if (u === '%' || u === 'rel') {
+    if (dim === 'angle') throw new InputError(where, `expected an absolute tolerance for an angle (such as "0.1 deg"), got "${t}"`);
+    return { kind: 'relative', fraction: u === '%' ? value / 100 : value, text: t };
+  }
+  if (u === '' && dim !== 'count' && dim !== 'ratio') {
+    throw new InputError(where, `a bare number is unclear; expected "${value}%" (relative), "${value} rel" (fraction of the value) or "${value} <unit>" (${UNIT_EXAMPLES[dim]})`);
+  }
+  return { kind: 'absolute', value, unit: unitFor(dim, unit, where), text: t };
+}
+
+// ---------------------------------------------------------------- JSON
+
+function jsonLocation(text: string, e: unknown): string {
+  const msg = e instanceof Error ? e.message : String(e);
+  const m = /position (\d+)/.exec(msg);
+  if (!m) return '';
+  const pos = Number(m[1]);
+  const before = text.slice(0, pos);
+  const line = before.split(/\r\n|\r|\n/).length;
+  const col = pos - Math.max(before.lastIndexOf('\n'), before.lastIndexOf('\r')) ;
+  return `line ${line}, column ${col}`;
+}
+
+const ENTRY_KEYS = ['quantity', 'value', 'unit', 'tolerance', 'note'];
+
+export function parseReferenceJson(text: string, label: string, options: ReferenceOptions = {}): Reference {
+  let doc: unknown;
+  try {
+    doc = JSON.parse(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
+  } catch (e) {
+    const loc = jsonLocation(text, e);
+    throw new InputError(loc ? `${label}:${loc}` : label, `expected JSON (${e instanceof Error ? e.message.split('\n')[0] : 'unreadable'})`);
+  }
+  const at = (path: string) => `${label}:${path}`;
+  if (typeof doc !== 'object' || doc === null || Array.isArray(doc)) {
+    throw new InputError(label, `expected an object with "values", got ${describeValue(doc)}`);
+  }
+  const obj = doc as Record<string, unknown>;
+  for (const k of Object.keys(obj)) {
+    if (k !== 'part' && k !== 'values') throw new InputError(at(k), 'unknown key; expected "part" or "values"');
+  }
+  if (obj.part !== undefined && typeof obj.part !== 'string') throw new InputError(at('part'), `expected a string, got ${describeValue(obj.part)}`);
+  if (!Array.isArray(obj.values)) throw new InputError(at('values'), `expected an array of stated values, got ${describeValue(obj.values)}`);
+  if (obj.values.length === 0) throw new InputError(at('values'), 'expected at least one stated value');
+  const out: StatedValue[] = [];
+  const seen = new Map<string, string>();
+  obj.values.forEach((entry, i) => {
+    const w = `values[${i}]`;
+    if (typeof entry !== 'object' || entry === null || Array.isArray(entry)) {
+      throw new InputError(at(w), `expected an object such as {"quantity": "area", "value": 12.5, "unit": "mm²"}, got ${describeValue(entry)}`);
+    }
+    const e = entry as Record<string, unknown>;
+    for (const k of Object.keys(e)) {
+      if (!ENTRY_KEYS.includes(k)) {
+        const s = suggestKey(k, ENTRY_KEYS);
+        throw new InputError(at(`${w}.${k}`), `unknown key${s ? `; did you mean "${s}"?` : `; expected ${ENTRY_KEYS.join(', ')}`}`);
+      }
+    }
+    if (typeof e.quantity !== 'string') throw new InputError(at(`${w}.quantity`), `expected a quantity name (a string), got ${describeValue(e.quantity)}`);
+    const dim = checkQuantity(e.quantity, at(`${w}.quantity`), options);
+    if (seen.has(e.quantity)) throw new InputError(at(`${w}.quantity`), `"${e.quantity}" is already stated at ${seen.get(e.quantity)}; expected each quantity once`);
+    seen.set(e.quantity, w);
+    let value: number, unitText: string, unitWhere: string;
+    if (typeof e.value === 'number') {
+      if (!Number.isFinite(e.value)) throw new InputError(at(`${w}.value`), `expected a finite number, got ${e.value}`);
+      value = e.value;
+      if (e.unit !== undefined && typeof e.unit !== 'string') throw new InputError(at(`${w}.unit`), `expected a unit text, got ${describeValue(e.unit)}`);
+      unitText = (e.unit as string | undefined) ?? '';
+      unitWhere = e.unit === undefined ? at(w) : at(`${w}.unit`);
+    } else if (typeof e.value === 'string') {
+      const sv = splitValueText(e.value, at(`${w}.value`));
+      value = sv.value;
+      unitText = sv.unit;
+      if (e.unit !== undefined) {
+        if (typeof e.unit !== 'string') throw new InputError(at(`${w}.unit`), `expected a unit text, got ${describeValue(e.unit)}`);
+        if (sv.unit !== '') throw new InputError(at(`${w}.unit`), `the value "${e.value}" already has a unit; expected the unit in one place`);
+        unitText = e.unit;
+      }
+      unitWhere = sv.unit !== '' ? at(`${w}.value`) : e.unit !== undefined ? at(`${w}.unit`) : at(w);
+    } else {
+      throw new InputError(at(`${w}.value`), `expected a number or a text such as "12.5 mm²", got ${describeValue(e.value)}`);
+    }
+    const unit = unitFor(dim, unitText, unitWhere);
+    let tolerance: StatedTolerance | null = null;
+    const tw = at(`${w}.tolerance`);
+    if (e.tolerance !== undefined) {
+      const t = e.tolerance;
+      if (typeof t === 'string') tolerance = parseToleranceText(t, dim, tw);
+      else if (typeof t === 'number') tolerance = parseToleranceText(String(t), dim, tw);
+      else if (typeof t === 'object' && t !== null && !Array.isArray(t)) {
+        const to = t as Record<string, unknown>;
+        const keys = Object.keys(to).sort().join(',');
+        if (keys === 'relative') {
+          if (typeof to.relative !== 'number' || !(to.relative >= 0) || !Number.isFinite(to.relative)) {
+            throw new InputError(`${tw}.relative`, `expected a fraction of zero or more (0.002 for 0.2%), got ${describeValue(to.relative)}`);
+          }
+          if (dim === 'angle') throw new InputError(tw, 'expected an absolute tolerance for an angle, such as {"absolute": 0.1, "unit": "deg"}');
+          tolerance = { kind: 'relative', fraction: to.relative, text: `${to.relative} rel` };
+        } else if (keys === 'absolute,unit' || keys === 'absolute') {
+          if (typeof to.absolute !== 'number' || !(to.absolute >= 0) || !Number.isFinite(to.absolute)) {
+            throw new InputError(`${tw}.absolute`, `expected a number of zero or more, got ${describeValue(to.absolute)}`);
+          }
+          if (to.unit !== undefined && typeof to.unit !== 'string') throw new InputError(`${tw}.unit`, `expected a unit text, got ${describeValue(to.unit)}`);
+          const u = unitFor(dim, (to.unit as string | undefined) ?? '', to.unit === undefined ? tw : `${tw}.unit`);
+          tolerance = { kind: 'absolute', value: to.absolute, unit: u, text: `${to.absolute}${u.text ? ' ' + u.text : ''}` };
+        } else {
+          throw new InputError(tw, 'expected {"relative": fraction} or {"absolute": number, "unit": text}');
+        }
+      } else {
+        throw new InputError(tw, `expected a text such as "0.5%" or "0.05 mm", or an object, got ${describeValue(t)}`);
+      }
+    }
+    if (e.note !== undefined && typeof e.note !== 'string') throw new InputError(at(`${w}.note`), `expected a text, got ${describeValue(e.note)}`);
+    out.push({ quantity: e.quantity, dimension: dim, value, unit, tolerance, note: e.note as string | undefined, where: at(w) });
+  });
+  return { source: label, part: obj.part as string | undefined, values: out };
+}
+
+// ---------------------------------------------------------------- CSV
+
+export function parseReferenceCsv(text: string, label: string, options: ReferenceOptions = {}): Reference {
+  const t = parseCsvRecords(text, label, { required: ['quantity', 'value'], allowed: ENTRY_KEYS });
+  if (t.records.length === 0) throw new InputError(label, 'expected at least one stated value below the header');
+  const out: StatedValue[] = [];
+  const seen = new Map<string, number>();
+  t.records.forEach((rec, i) => {
+    const loc = t.locations[i];
+    const at = (col: string) => csvWhere(label, loc.fields[col][0], loc.fields[col][1]);
+    const name = rec.quantity.trim();
+    const dim = checkQuantity(name, at('quantity'), options);
+    if (seen.has(name)) throw new InputError(at('quantity'), `"${name}" is already stated on line ${seen.get(name)}; expected each quantity once`);
+    seen.set(name, loc.line);
+    const sv = splitValueText(rec.value, at('value'));
+    let unitText = sv.unit, unitWhere = at('value');
+    const unitCol = rec.unit !== undefined ? rec.unit.trim() : '';
+    if (unitCol !== '') {
+      if (sv.unit !== '') throw new InputError(at('unit'), `the value "${rec.value.trim()}" already has a unit; expected the unit in one place`);
+      unitText = unitCol;
+      unitWhere = at('unit');
+    } else if (sv.unit === '' && rec.unit !== undefined) {
+      unitWhere = at('unit');
+    }
+    const unit = unitFor(dim, unitText, unitWhere);
+    const tolerance = rec.tolerance !== undefined ? parseToleranceText(rec.tolerance, dim, at('tolerance')) : null;
+    const note = rec.note !== undefined && rec.note.trim() !== '' ? rec.note : undefined;
+    out.push({ quantity: name, dimension: dim, value: sv.value, unit, tolerance, note, where: csvWhere(label, loc.line, 1) });
+  });
+  return { source: label, values: out };
+}
+
+/**
+ * Read a reference file. The format is taken from `format`, else from the label's extension (.json, .csv),
+ * else from the first character ("{" means JSON).
+ */
+export function readReference(text: string, label: string, format?: 'json' | 'csv', options: ReferenceOptions = {}): Reference {
+  let f = format;
+  if (!f) {
+    if (/\.json$/i.test(label)) f = 'json';
+    else if (/\.csv$/i.test(label)) f = 'csv';
+    else f = text.replace(/^\ufeff/, '').trimStart().startsWith('{') ? 'json' : 'csv';
+  }
+  return f === 'json' ? parseReferenceJson(text, label, options) : parseReferenceCsv(text, label, options);
+}
