@@ -48,7 +48,8 @@ function isNamePart(c: string): boolean {
 
 function showChar(ch: string): string {
   const cp = ch.codePointAt(0)!;
-  if (cp < 0x20 || cp === 0x7f || (cp >= 0x80 && cp < 0xa0)) {
+  const invisible = cp === 0xa0 || cp === 0xad || (cp >= 0x2000 && cp <= 0x200f) || (cp >= 0x2028 && cp <= 0x202f) || cp === 0x205f || cp === 0x3000 || cp === 0xfeff;
+  if (cp < 0x20 || cp === 0x7f || (cp >= 0x80 && cp < 0xa0) || invisible) {
     return `character U+${cp.toString(16).toUpperCase().padStart(4, '0')}`;
   }
   return ch === '"' ? `character '"'` : `character "${ch}"`;
@@ -123,6 +124,9 @@ function tokenizeInto(tokens: Token[], text: string, where: string, column: (i: 
     let hint = '';
     if (c === '=') hint = ' (use == to compare)';
     else if (c === '!') hint = ' (use != to compare)';
+    else if (c === '\u2212') hint = ' (use the ASCII minus sign -)';
+    else if (c === '\u00d7' || c === '\u22c5' || c === '\u00b7') hint = ' (use * to multiply)';
+    else if (c === '\u00f7') hint = ' (use / to divide)';
     else if (c === '&' || c === '|') hint = ' (there are no logical operators; nest if(...) instead)';
     throw new InputError(where, `unexpected ${showChar(ch)} at column ${column(start)}; expected a number, a name, an operator or a parenthesis${hint}`);
   }

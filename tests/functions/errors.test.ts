@@ -54,6 +54,9 @@ describe('error messages name the column and what was expected', () => {
     ['sin(😀) + xx', /^unexpected character "😀" at column 5/],
     ['(😀) + xx', /^unexpected character "😀" at column 2/],
     ['x + \u0000', /^unexpected character U\+0000 at column 5/],
+    ['x +\u00a0y', /^unexpected character U\+00A0 at column 4/],
+    ['20 \u2212 x', /^unexpected character "\u2212" at column 4; .*use the ASCII minus sign/],
+    ['2 \u00d7 x', /^unexpected character "\u00d7" at column 3; .*use \* to multiply/],
   ];
   for (const [text, re] of cases) {
     it(JSON.stringify(text), () => {
