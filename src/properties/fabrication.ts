@@ -32,7 +32,7 @@
 import { InputError } from '../errors.js';
 import type { Part } from '../geometry/part.js';
 import { partBox, loopLength } from '../geometry/part.js';
-import { type Segment, type Out2, ops, OPS } from '../geometry/segments.js';
+import { type Segment, type Out2, ops } from '../geometry/segments.js';
 import { LENGTH_UNITS } from '../units.js';
 import { type Quantity, type QuantityInfo, registerQuantities } from './quantities.js';
 
@@ -173,6 +173,12 @@ export interface MinRectangle {
   lowerBound: number;
   /** Support-function evaluations used (4 per angle); 0 for calipers. */
   evaluations: number;
+  /**
+   * How far (degrees, modulo 90°) the angle of another enclosing rectangle of equal area (calipers: within
+   * 1e-12 relative; scan: within the optimality gap) lies from `angle`: 0 when the optimum is unique, 30 for
+   * a regular hexagon, 45 for a circle. The blank angle is determined only to within this spread.
+   */
+  angleSpread: number;
 }
 
 interface Outline {
@@ -212,7 +218,9 @@ function extentsAt(ol: Outline, th: number): Extents {
   return { uMax: support(ol, c, s), uMin: -support(ol, -c, -s), vMax: support(ol, -s, c), vMin: -support(ol, s, -c) };
 }
 
-function rectangleFrom(th: number, e: Extents, method: MinRectangle['method'], lowerBound: number, evaluations: number): MinRectangle {
+function rectangleFrom(
+  th: number, e: Extents, method: MinRectangle['method'], lowerBound: number, evaluations: number, angleSpread: number,
+): MinRectangle {
   const c = Math.cos(th), s = Math.sin(th);
   const at = (a: number, b: number): [number, number] => [a * c - b * s, a * s + b * c];
   const corners = [at(e.uMin, e.vMin), at(e.uMax, e.vMin), at(e.uMax, e.vMax), at(e.uMin, e.vMax)];
@@ -222,7 +230,12 @@ function rectangleFrom(th: number, e: Extents, method: MinRectangle['method'], l
   if (hv > wu) { width = hv; height = wu; deg += 90; }
   deg = ((deg % 180) + 180) % 180;
   if (deg >= 180 - 1e-12) deg = 0;
-  return { angle: deg, width, height, area: wu * hv, corners, method, lowerBound, evaluations };
+  return { angle: deg, width, height, area: wu * hv, corners, method, lowerBound, evaluations, angleSpread };
+}
+
+/** Distance between two rectangle angles (radians) modulo π/2. */
+function dist90(a: number, b: number): number {
+  return offAxis(a - b);
 }
 
 /** Angle closeness to the axes, for choosing among equal-area rectangles (prefer axis-aligned). */
@@ -232,7 +245,7 @@ function offAxis(th: number): number {
 }
 
 /** Exact minimum-area rectangle of a convex polygon (counter-clockwise, no collinear points) by rotating calipers. */
-export function minRectangleOfHull(hull: readonly [number, number][]): { theta: number; ext: Extents } {
+export function minRectangleOfHull(hull: readonly [number, number][]): { theta: number; ext: Extents; spread: number } {
   const n = hull.length;
   if (n === 0) throw new InputError('part', 'expected a contour with points');
   if (n < 3) {
@@ -241,10 +254,11 @@ export function minRectangleOfHull(hull: readonly [number, number][]): { theta: 
     const th = Math.atan2(b[1] - a[1], b[0] - a[0]);
     const c = Math.cos(th), s = Math.sin(th);
     const us = hull.map((p) => p[0] * c + p[1] * s), vs = hull.map((p) => -p[0] * s + p[1] * c);
-    return { theta: th, ext: { uMin: Math.min(...us), uMax: Math.max(...us), vMin: Math.min(...vs), vMax: Math.max(...vs) } };
+    return { theta: th, ext: { uMin: Math.min(...us), uMax: Math.max(...us), vMin: Math.min(...vs), vMax: Math.max(...vs) }, spread: 0 };
   }
   const dot = (k: number, x: number, y: number) => hull[k % n][0] * x + hull[k % n][1] * y;
   let best: { theta: number; ext: Extents; area: number } | null = null;
+  const seen: [number, number][] = []; // [angle, area] of every edge
   let iU = 0, iL = 0, iV = 0; // pointers: max along u, min along u, max along v
   for (let i = 0; i < n; i++) {
     const a = hull[i], b = hull[(i + 1) % n];
@@ -268,12 +282,15 @@ export function minRectangleOfHull(hull: readonly [number, number][]): { theta: 
     };
     const area = (ext.uMax - ext.uMin) * (ext.vMax - ext.vMin);
     const th = Math.atan2(uy, ux);
+    seen.push([th, area]);
     if (!best || area < best.area * (1 - 1e-12) ||
         (area <= best.area * (1 + 1e-12) && offAxis(th) < offAxis(best.theta) - 1e-12)) {
       best = { theta: th, ext, area };
     }
   }
-  return { theta: best!.theta, ext: best!.ext };
+  let spread = 0;
+  for (const [th, a] of seen) if (a <= best!.area * (1 + 1e-12)) spread = Math.max(spread, dist90(th, best!.theta));
+  return { theta: best!.theta, ext: best!.ext, spread };
 }
 
 const SCAN = 2048;
@@ -284,17 +301,19 @@ const MAX_EVALS = 60000;
 export function minAreaRectangle(part: Part): MinRectangle {
   const ol = outlineOf(part);
   if (ol.curves.length === 0) {
-    const { theta, ext } = minRectangleOfHull(ol.hull);
-    // the calipers extents were projections along the exact edge direction; recompute at theta the same way
-    const r = rectangleFrom(theta, ext, 'calipers', 0, 0);
+    const { theta, ext, spread } = minRectangleOfHull(ol.hull);
+    const r = rectangleFrom(theta, ext, 'calipers', 0, 0, spread * 180 / Math.PI);
     r.lowerBound = r.area;
     return r;
   }
   let evals = 0;
+  const tried: [number, number][] = []; // [angle, area] of every evaluation
   const area = (th: number) => {
     evals++;
     const e = extentsAt(ol, th);
-    return (e.uMax - e.uMin) * (e.vMax - e.vMin);
+    const a = (e.uMax - e.uMin) * (e.vMax - e.vMin);
+    tried.push([th, a]);
+    return a;
   };
   const Q = Math.PI / 2;
   let bestTh = 0, bestA = area(0);
@@ -354,8 +373,10 @@ export function minAreaRectangle(part: Part): MinRectangle {
   }
   let lower = bestA * (1 - CERT_TOL);
   for (const iv of live) lower = Math.min(lower, lb(iv));
-  const r = rectangleFrom(bestTh, extentsAt(ol, bestTh), 'certified-scan', Math.max(0, lower), evals);
-  return r;
+  const near = bestA + Math.max(bestA - lower, 0) + 1e-12 * bestA;
+  let spread = 0;
+  for (const [th, a] of tried) if (a <= near) spread = Math.max(spread, dist90(th, bestTh));
+  return rectangleFrom(bestTh, extentsAt(ol, bestTh), 'certified-scan', Math.max(0, lower), evals, spread * 180 / Math.PI);
 }
 
 // ---------------------------------------------------------------- figures
@@ -423,7 +444,8 @@ export function fabricationFigures(part: Part, options: FabricationOptions): Fab
     pierces: { value: contours, error: 0 },
     blankWidth: { value: blank.width, error: roundoff(blank.width, 8) },
     blankHeight: { value: blank.height, error: roundoff(blank.height, 8) },
-    blankAngle: { value: blank.angle, error: 1e-9 },
+    // the angle of an equal-area rectangle may differ (circle, regular polygons): that spread is its error
+    blankAngle: { value: blank.angle, error: blank.angleSpread + 1e-9 },
     blankArea: { value: blank.area, error: blankAreaErr },
     scrapFraction: { value: scrap, error: scrapErr },
   };
@@ -441,9 +463,4 @@ export function fabricationFigures(part: Part, options: FabricationOptions): Fab
     blank,
     caution,
   };
-}
-
-/** Kinds with an exact support formula (others go through `supportByOps`). */
-export function kindsWithExactSupport(): string[] {
-  return Object.keys(OPS).filter((k) => k in EXACT_SUPPORT);
 }

@@ -148,7 +148,13 @@ export interface Comparison {
   /** fail if any row fails; else inconclusive if any row is; else pass. */
   verdict: Verdict;
   counts: Record<Verdict, number>;
+  /** Always present: what a verdict does and does not establish. */
+  caution: string;
 }
+
+export const COMPARE_CAUTION =
+  'A pass means the computed value agrees with the stated one within the tolerance; it is not a structural, ' +
+  'lifting or fitness-for-purpose check. Those rest with competent, qualified people under local codes.';
 
 function rowFor(sv: StatedValue, quantities: Readonly<Record<string, Quantity | undefined>>, context: CompareContext): ComparisonRow {
   const f = factorToReport(sv.unit, context.lengthUnit);
@@ -189,5 +195,5 @@ export function compareAll(
   const counts: Record<Verdict, number> = { pass: 0, fail: 0, inconclusive: 0 };
   for (const r of rows) counts[r.verdict]++;
   const verdict: Verdict = counts.fail > 0 ? 'fail' : counts.inconclusive > 0 ? 'inconclusive' : 'pass';
-  return { rows, verdict, counts };
+  return { rows, verdict, counts, caution: COMPARE_CAUTION };
 }

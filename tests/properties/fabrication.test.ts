@@ -59,6 +59,8 @@ describe('minimum-area rectangle: closed forms', () => {
       expect(Math.abs(r.area / (2 * Math.sqrt(3) * R * R) - 1)).toBeLessThan(REL);
       expect(r.width).toBeCloseTo(2 * R, 10);
       expect(r.height).toBeCloseTo(Math.sqrt(3) * R, 10);
+      // the rectangles flush with edges 60° apart are equal (six-fold symmetry): 60° mod 90° = 30° of spread
+      expect(r.angleSpread).toBeCloseTo(30, 9);
     }
   });
 
@@ -68,6 +70,8 @@ describe('minimum-area rectangle: closed forms', () => {
     const s = minAreaRectangle(part(rectangleLoop([3, 4], [50, 20])));
     expect(s.angle).toBe(0);
     expect([s.width, s.height, s.area]).toEqual([50, 20, 1000]);
+    expect(s.angleSpread).toBe(0);
+    expect(r.angleSpread).toBeLessThan(1e-9);
   });
 
   it('equilateral triangle of side a: a × (√3/2)a (elementary geometry, from memory)', () => {
@@ -86,6 +90,7 @@ describe('minimum-area rectangle: closed forms', () => {
     expect(Math.abs(r.area / (d * d) - 1)).toBeLessThan(1e-12);
     expect(r.width).toBeCloseTo(d, 10);
     expect(r.angle).toBe(0); // ties broken toward the axes
+    expect(r.angleSpread).toBeGreaterThan(44.9); // every angle gives d × d: the angle is undetermined
     expect(r.lowerBound).toBeLessThanOrEqual(r.area);
     // measured certificate: the branch-and-bound stops at its evaluation cap for a circle (A is constant)
     expect((r.area - r.lowerBound) / r.area).toBeLessThan(2e-4);
@@ -100,6 +105,7 @@ describe('minimum-area rectangle: closed forms', () => {
       expect(r.width).toBeCloseTo(L + w, 7);
       expect(r.height).toBeCloseTo(w, 7);
       expect(angDist(r.angle, al * 180 / Math.PI, 180)).toBeLessThan(1e-6);
+      expect(r.angleSpread).toBeLessThan(1e-4);
       expect(r.lowerBound).toBeLessThanOrEqual(r.area);
       expect((r.area - r.lowerBound) / r.area).toBeLessThan(1e-6);
     }
@@ -221,6 +227,7 @@ describe('cut length, pierces, masses', () => {
     expect(f.quantities.pierces.value).toBe(4);
     expect(f.box).toEqual({ xMin: 0, yMin: 0, xMax: 200, yMax: 100, width: 200, height: 100 });
     expect(f.quantities.blankArea.value).toBe(20000);
+    expect(f.quantities.blankAngle.error).toBeLessThan(1e-6);
     expect(Math.abs(f.quantities.scrapFraction.value - holeArea / 20000)).toBeLessThan(1e-14);
     expect(f.quantities.netMass).toBeUndefined();
     expect(f.caution).toBeUndefined();

@@ -87,6 +87,7 @@ describe('compareAll', () => {
     expect(c.rows[8].note).toMatch(/not computed/);
     expect(c.verdict).toBe('fail');
     expect(c.counts).toEqual({ pass: 6, fail: 2, inconclusive: 1 });
+    expect(c.caution).toMatch(/not a structural, lifting/);
   });
 
   it('the same stated area at 4 significant figures passes the default; overall pass', () => {
