@@ -41,7 +41,7 @@ const MM_PER_PX = 25.4 / 96;
 /** Elements whose content is never drawn directly. */
 const SKIPPED = new Set([
   'defs', 'clipPath', 'mask', 'symbol', 'pattern', 'marker', 'linearGradient', 'radialGradient', 'filter',
-  'metadata', 'title', 'desc', 'text', 'style', 'script', 'foreignObject', 'image', 'switch', 'a',
+  'metadata', 'title', 'desc', 'text', 'style', 'script', 'foreignObject', 'image',
 ]);
 
 // ---------------------------------------------------------------------------------------------
@@ -55,6 +55,7 @@ function parseLength(v: string, where: string, what: string): number {
   const m = NUMBER_RE.exec(s);
   if (!m) throw new InputError(where, `${what}: expected a length such as 12, 12px or 3mm, got "${v}"`);
   const num = Number(m[0]);
+  if (!Number.isFinite(num)) throw new InputError(where, `${what}: number ${m[0]} is out of range`);
   const unit = s.slice(m[0].length).trim();
   if (unit === '') return num;
   const f = CSS_PX_PER[unit];
@@ -73,7 +74,9 @@ function numberList(v: string, where: string, what: string): number[] {
     if (i >= s.length) break;
     const m = NUMBER_RE.exec(s.slice(i));
     if (!m) throw new InputError(where, `${what}: expected a number at character ${i}, got "${s.slice(i, i + 12)}"`);
-    out.push(Number(m[0]));
+    const v = Number(m[0]);
+    if (!Number.isFinite(v)) throw new InputError(where, `${what}: number ${m[0]} is out of range`);
+    out.push(v);
     i += m[0].length;
   }
   return out;
@@ -578,10 +581,15 @@ export function readSvg(text: string, opts: SvgOptions = {}): Part[] {
     const where = `svg ${tag}${id ? `#${id}` : `[${count}]`}`;
     if ((el.attrs.display ?? '').trim() === 'none') continue;
     const m = el.attrs.transform !== undefined ? composeAffine(parentM, parseTransform(el.attrs.transform, where)) : parentM;
-    if (tag === 'g') {
+    const det = m[0] * m[3] - m[1] * m[2];
+    if (!(Math.abs(det) > 1e-300) || !m.every(Number.isFinite)) {
+      throw new InputError(`${where} transform`, 'the transform flattens the drawing (zero determinant); expected an invertible transform');
+    }
+    if (tag === 'g' || tag === 'a') {
       for (let k = el.children.length - 1; k >= 0; k--) stack.push({ el: el.children[k], m });
       continue;
     }
+    if (tag === 'switch') throw new InputError(where, '<switch> is not supported; keep only the alternative to be cut');
     if (tag === 'use') throw new InputError(where, '<use> references are not supported; expand (unlink) them in the drawing first');
     if (tag === 'svg') throw new InputError(where, 'nested <svg> elements are not supported; expected shapes inside <g> groups');
     for (const c of shapeContours(el, tag, where)) {

@@ -285,3 +285,16 @@ describe('safe XML (XML 1.0 sections 4.1, 4.6; OWASP XXE guidance, from memory)'
     expect(e.where).toMatch(/line 3, column 1/);
   });
 });
+
+describe('containers and bad transforms', () => {
+  it('<a> renders its children like <g> (SVG 1.1, 17.1); a singular transform is refused', () => {
+    const p = readSvg(doc('<a href="#x"><rect width="10" height="10"/></a>'), { units: 'mm' });
+    expect(partArea(p[0])).toBeCloseTo(100, 12);
+    const e = inputError(() => readSvg(doc('<g id="flat" transform="scale(1 0)"><rect width="10" height="10"/></g>')));
+    expect(e.where).toBe('svg g#flat transform');
+  });
+  it('numbers out of range are refused', () => {
+    expect(inputError(() => readSvg(doc('<path d="M0 0 L1e999 0 L5 5 Z"/>'))).detail).toContain('out of range');
+    expect(inputError(() => readSvg(doc('<polygon points="0 0 1e400 0 5 5"/>'))).detail).toContain('out of range');
+  });
+});
