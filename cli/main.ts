@@ -1,21 +1,13 @@
 #!/usr/bin/env node
 /**
- * platewise command line. Thin: parse arguments, call src/, print. Each command's module is imported
+ * platewise command line. Thin: parse arguments, call src/, print. Each command is declared in
+ * cli/commands/<name>.def.ts (options only, cheap to load); its body in cli/commands/<name>.ts is imported
  * only when that command runs, so start-up stays cheap.
  * Exit status: 0 success, 2 bad input (one line, no stack trace), 1 unexpected failure.
  */
-import { Command, CommanderError, InvalidArgumentError } from 'commander';
-import { run } from './run.js';
-
-const VERSION = '0.1.0';
-
-function intArg(name: string) {
-  return (v: string) => {
-    const n = Number(v);
-    if (!Number.isInteger(n)) throw new InvalidArgumentError(`${name} must be a whole number`);
-    return n;
-  };
-}
+import { Command, CommanderError } from 'commander';
+import { COMMANDS } from './commands/index.js';
+import { VERSION } from './version.js';
 
 const program = new Command();
 program
@@ -25,21 +17,7 @@ program
   .showHelpAfterError('(run with --help for usage)')
   .exitOverride();
 
-program
-  .command('measure')
-  .description('area properties of a part: area, centroid, second moments, principal axes, section moduli')
-  .argument('<file>', 'part file (platewise JSON), or - for standard input')
-  .option('--json', 'print JSON instead of a table')
-  .option('--degree <n>', 'Dunavant rule degree on curved triangles (1-20)', intArg('--degree'))
-  .option('--levels <n>', 'uniform refinements after the base mesh (the last two give the estimate)', intArg('--levels'))
-  .option('--triangulation <mode>', 'delaunay or sweep')
-  .action((file: string, opts) => run(async () => (await import('./commands/measure.js')).measure(file, opts)));
-
-program
-  .command('rules')
-  .description("list Dunavant's triangle rules: degree, points, and marks for negative weights or points outside the triangle")
-  .option('--json', 'print JSON instead of a table')
-  .action((opts) => run(async () => (await import('./commands/rules.js')).rules(opts)));
+for (const define of COMMANDS) define(program);
 
 try {
   await program.parseAsync(process.argv);

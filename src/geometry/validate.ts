@@ -57,6 +57,8 @@ export function validatePart(part: Part): number {
     active.push(r);
   }
 
+  for (const l of loops) checkArea(l, tol);
+
   // nesting: every hole inside its outline, holes not inside each other, regions apart
   part.regions.forEach((reg) => {
     for (const h of reg.holes) {
@@ -88,9 +90,12 @@ function checkLoop(loop: Loop, li: number, tol: number): void {
     }
     for (const v of [e[0], e[1]]) if (!Number.isFinite(v)) throw new InputError(loopName(loop), 'has a coordinate that is not a finite number');
   }
+  void li;
+}
+
+function checkArea(loop: Loop, tol: number): void {
   const a = loopSignedArea(loop);
   if (!(Math.abs(a) > tol * tol)) throw new InputError(loopName(loop), 'encloses no area');
-  void li;
 }
 
 function checkPair(a: SegRef, b: SegRef, loops: Loop[], tol: number): void {
@@ -110,7 +115,8 @@ function checkPair(a: SegRef, b: SegRef, loops: Loop[], tol: number): void {
     throw new InputError(loopName(loop), `crosses or touches itself near ${at(h.x, h.y)}; a loop must be simple`);
   }
   const h = hits[0];
-  const la = loops[a.loop], lb = loops[b.loop];
+  // name the later loop (a cut-out rather than the outline) as the subject
+  const [la, lb] = a.loop < b.loop ? [loops[a.loop], loops[b.loop]] : [loops[b.loop], loops[a.loop]];
   throw new InputError(loopName(lb), `crosses or touches ${loopName(la)} near ${at(h.x, h.y)}; cut-outs must lie strictly inside the outline and apart from each other`);
 }
 

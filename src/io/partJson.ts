@@ -156,11 +156,12 @@ function readRegion(o: Obj, where: string): Region {
  * The result is not yet validated (see geometry/validate.ts) nor normalised in orientation.
  */
 export function readPartJson(text: string, label = 'input'): Part {
-  const root = expectObject(parseJsonText(text, label), label);
-  return partFromObject(root);
+  return partFromObject(parseJsonText(text, label), label);
 }
 
-export function partFromObject(root: Obj): Part {
+/** Read a part from an already-parsed JSON value. */
+export function partFromObject(value: unknown, label = 'input'): Part {
+  const root = expectObject(value, label);
   checkKeys(root, TOP_KEYS, '');
   const name = root.part === undefined ? 'part' : root.part;
   if (typeof name !== 'string' || name.length === 0) throw new InputError('part', `expected a non-empty name, got ${describeValue(name)}`);

@@ -59,7 +59,8 @@ export function buildMesh(part: Part, options: MeshOptions = {}): MeshReport {
   let splits = 0;
   splits += separateChords(loops, segments);
   for (let pass = 1; pass <= 12; pass++) {
-    const mesh = triangulate(loops, segments, origin, options.triangulation ?? 'delaunay');
+    const extra = steinerPoints(loops, segments);
+    const mesh = triangulate(loops, segments, origin, options.triangulation ?? 'delaunay', extra);
     const bad = badCurvedEdges(mesh, maxBulge);
     if (bad.size === 0) return { mesh, chordSplits: splits, passes: pass };
     // split the offending chords at their parameter midpoint, on the curve
@@ -161,7 +162,92 @@ function segDist(e: { x0: number; y0: number; x1: number; y1: number }, f: { x0:
   return Math.min(pd(e.x0, e.y0, f), pd(e.x1, e.y1, f), pd(f.x0, f.y0, e), pd(f.x1, f.y1, e));
 }
 
-function triangulate(loops: BVert[][], segments: Segment[], origin: [number, number], mode: 'delaunay' | 'sweep'): Mesh {
+/** Uniform hash grid over boxes, for neighbourhood queries. */
+class Grid<T> {
+  private readonly cells = new Map<number, T[]>();
+  constructor(private readonly size: number) {}
+  private key(i: number, j: number) { return (i + 1048576) * 2097152 + (j + 1048576); }
+  add(item: T, x0: number, y0: number, x1: number, y1: number): void {
+    const s = this.size;
+    for (let i = Math.floor(x0 / s); i <= Math.floor(x1 / s); i++) for (let j = Math.floor(y0 / s); j <= Math.floor(y1 / s); j++) {
+      const k = this.key(i, j);
+      const c = this.cells.get(k);
+      if (c) c.push(item); else this.cells.set(k, [item]);
+    }
+  }
+  /** Calls fn for items in cells overlapping the box (an item may come more than once). */
+  query(x0: number, y0: number, x1: number, y1: number, fn: (item: T) => boolean | void): boolean {
+    const s = this.size;
+    for (let i = Math.floor(x0 / s); i <= Math.floor(x1 / s); i++) for (let j = Math.floor(y0 / s); j <= Math.floor(y1 / s); j++) {
+      const c = this.cells.get(this.key(i, j));
+      if (c) for (const it of c) if (fn(it) === true) return true;
+    }
+    return false;
+  }
+}
+
+function pointSegDist(px: number, py: number, x0: number, y0: number, x1: number, y1: number): number {
+  const dx = x1 - x0, dy = y1 - y0;
+  const L2 = dx * dx + dy * dy;
+  let t = L2 > 0 ? ((px - x0) * dx + (py - y0) * dy) / L2 : 0;
+  t = Math.max(0, Math.min(1, t));
+  return Math.hypot(px - x0 - t * dx, py - y0 - t * dy);
+}
+
+/**
+ * Interior points that give each curved chord a well-shaped triangle: the apex of a near-equilateral
+ * triangle on the material side (left of the chord: outer loops run counter-clockwise, holes clockwise).
+ * A point is kept only where it is clear of every boundary chord and of the points already kept.
+ */
+function steinerPoints(loops: BVert[][], segments: Segment[]): [number, number][] {
+  interface Chord { x0: number; y0: number; x1: number; y1: number; curved: boolean }
+  const chords: Chord[] = [];
+  for (const verts of loops) {
+    for (let i = 0; i < verts.length; i++) {
+      const a = verts[i], b = verts[(i + 1) % verts.length];
+      const p = a.t === 0 ? segmentStart(segments[a.seg]) : segmentPoint(segments[a.seg], a.t);
+      const q = b.t === 0 ? segmentStart(segments[b.seg]) : segmentPoint(segments[b.seg], b.t);
+      chords.push({ x0: p[0], y0: p[1], x1: q[0], y1: q[1], curved: !ops(segments[a.seg]).straight });
+    }
+  }
+  const curvedLens = chords.filter((c) => c.curved).map((c) => Math.hypot(c.x1 - c.x0, c.y1 - c.y0)).sort((a, b) => a - b);
+  if (curvedLens.length === 0) return [];
+  const cell = Math.max(curvedLens[curvedLens.length >> 1], 1e-300);
+  const grid = new Grid<Chord>(cell);
+  for (const c of chords) grid.add(c, Math.min(c.x0, c.x1), Math.min(c.y0, c.y1), Math.max(c.x0, c.x1), Math.max(c.y0, c.y1));
+  const kept = new Grid<[number, number, number]>(cell);
+  const out: [number, number][] = [];
+  for (const c of chords) {
+    if (!c.curved) continue;
+    const dx = c.x1 - c.x0, dy = c.y1 - c.y0;
+    const L = Math.hypot(dx, dy);
+    const h = 0.8 * L;
+    const mx = (c.x0 + c.x1) / 2, my = (c.y0 + c.y1) / 2;
+    const qx = mx - dy / L * h, qy = my + dx / L * h;
+    const clear = 0.7 * h;
+    const blocked = grid.query(qx - clear, qy - clear, qx + clear, qy + clear, (e) => {
+      if (pointSegDist(qx, qy, e.x0, e.y0, e.x1, e.y1) < clear) return true;
+      // the stem from the chord's midpoint to the point must cross no other chord
+      if (e !== c && segmentsCross(mx, my, qx, qy, e)) return true;
+      return false;
+    });
+    if (blocked) continue;
+    const near = kept.query(qx - clear, qy - clear, qx + clear, qy + clear, (k) => Math.hypot(k[0] - qx, k[1] - qy) < 0.6 * Math.min(h, k[2]));
+    if (near) continue;
+    kept.add([qx, qy, h], qx, qy, qx, qy);
+    out.push([qx, qy]);
+  }
+  return out;
+}
+
+function segmentsCross(ax: number, ay: number, bx: number, by: number, e: { x0: number; y0: number; x1: number; y1: number }): boolean {
+  const o = (px: number, py: number, qx: number, qy: number, rx: number, ry: number) => (qx - px) * (ry - py) - (qy - py) * (rx - px);
+  const d1 = o(ax, ay, bx, by, e.x0, e.y0), d2 = o(ax, ay, bx, by, e.x1, e.y1);
+  const d3 = o(e.x0, e.y0, e.x1, e.y1, ax, ay), d4 = o(e.x0, e.y0, e.x1, e.y1, bx, by);
+  return d1 * d2 <= 0 && d3 * d4 <= 0;
+}
+
+function triangulate(loops: BVert[][], segments: Segment[], origin: [number, number], mode: 'delaunay' | 'sweep', extra: [number, number][] = []): Mesh {
   const pts: [number, number][] = [];
   const edges: [number, number][] = [];
   // chord table keyed by the vertex pair
@@ -181,6 +267,7 @@ function triangulate(loops: BVert[][], segments: Segment[], origin: [number, num
       }
     }
   }
+  for (const p of extra) pts.push(p);
   const tris = cdt2d(pts, edges, { exterior: false, delaunay: mode === 'delaunay' });
   const n = pts.length, m = tris.length;
   const coords = new Float64Array(2 * n);

@@ -1,0 +1,9 @@
+/** The command list: one definition module per command (options only; bodies load lazily). */
+import type { Command } from 'commander';
+import { defineMeasure } from './measure.def.js';
+import { defineRules } from './rules.def.js';
+
+export const COMMANDS: ((program: Command) => void)[] = [
+  defineMeasure,
+  defineRules,
+];
