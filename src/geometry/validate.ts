@@ -7,6 +7,7 @@
  * recursive subdivision on the exact curve down to the touching tolerance.
  */
 import { InputError } from '../errors.js';
+import { pointInLoop } from './nesting.js';
 import { type Loop, type Part, type Region, loopSignedArea, partBox } from './part.js';
 import { type ArcSegment, type Box, type LineSegment, type Segment, ops, segmentEnd, segmentPoint, segmentStart } from './segments.js';
 
@@ -251,35 +252,6 @@ function subBox(s: Segment, t0: number, t1: number): Box {
 /** A point on the loop's boundary used to decide nesting once crossings are excluded. */
 function loopProbe(l: Loop): [number, number] {
   return segmentPoint(l.segments[0], 0.5);
-}
-
-/** Even–odd point-in-loop test on the exact curves (horizontal ray to +x). */
-export function pointInLoop(px: number, py: number, loop: Loop): boolean {
-  let inside = false;
-  const p: [number, number] = [0, 0];
-  for (const s of loop.segments) {
-    const o = ops(s);
-    const cuts = [0, ...o.yTurns(s), 1];
-    for (let k = 0; k + 1 < cuts.length; k++) {
-      let ta = cuts[k], tb = cuts[k + 1];
-      o.point(s, ta, p); let ya = p[1];
-      o.point(s, tb, p); let yb = p[1];
-      if (ya === yb) continue;
-      if (ya > yb) { [ta, tb] = [tb, ta]; [ya, yb] = [yb, ya]; }
-      if (!(py >= ya && py < yb)) continue;
-      // bisection for y(t) = py on the monotone piece
-      let lo = ta, hi = tb;
-      for (let it = 0; it < 80; it++) {
-        const mid = (lo + hi) / 2;
-        o.point(s, mid, p);
-        if (p[1] < py) lo = mid; else hi = mid;
-        if (lo === hi) break;
-      }
-      o.point(s, (lo + hi) / 2, p);
-      if (p[0] > px) inside = !inside;
-    }
-  }
-  return inside;
 }
 
 function looseBox(l: Loop): Box {

@@ -15,7 +15,7 @@ export function platewise(args: string[], input?: string) {
   return { status: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
-const samples = readdirSync(join(ROOT, 'samples')).filter((f) => f.endsWith('.json'));
+const samples = readdirSync(join(ROOT, 'samples')).filter((f) => /\.(json|svg|geojson|wkt)$/.test(f));
 
 describe('platewise measure on every sample', () => {
   it('there are at least three samples', () => expect(samples.length).toBeGreaterThanOrEqual(3));

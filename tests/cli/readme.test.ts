@@ -1,0 +1,24 @@
+/** The README's full example of the part format must read and measure (the documentation stays true). */
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { measureSection } from '../../src/accuracy/measure.js';
+import { readPartJson } from '../../src/io/partJson.js';
+
+const README = readFileSync(join(import.meta.dirname, '..', '..', 'README.md'), 'utf8');
+
+describe('README', () => {
+  it('the part-format example parses and measures', () => {
+    const block = /## Part description format[\s\S]*?```json\n([\s\S]*?)```/.exec(README);
+    expect(block).not.toBeNull();
+    const r = measureSection(readPartJson(block![1], 'README example'));
+    expect(r.quantities.area.value).toBeGreaterThan(0);
+    expect(r.geometry.part.regions[0].holes).toHaveLength(4);
+  });
+  it('starts with one paragraph and then the install-and-run and the test commands', () => {
+    const lines = README.split('\n');
+    expect(lines[0]).toBe('# platewise');
+    expect(README).toContain('npm install && npx platewise measure samples/base-plate-bp1.json');
+    expect(README).toMatch(/```sh\nnpm test\n```/);
+  });
+});
