@@ -2,8 +2,12 @@
 import type { Command } from 'commander';
 import { defineMeasure } from './measure.def.js';
 import { defineRules } from './rules.def.js';
+import { defineCompare } from './compare.def.js';
+import { defineBatch } from './batch.def.js';
 
 export const COMMANDS: ((program: Command) => void)[] = [
   defineMeasure,
   defineRules,
+  defineCompare,
+  defineBatch,
 ];

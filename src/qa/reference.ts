@@ -98,14 +98,14 @@ function knownKeys(options: ReferenceOptions): string[] {
   return [...SECTION_QUANTITIES, ...FABRICATION_QUANTITIES].map((q) => q.key).concat(options.extraKeys ?? []);
 }
 
-function checkQuantity(name: string, where: string, options: ReferenceOptions): Dimension {
+export function checkQuantity(name: string, where: string, options: ReferenceOptions): Dimension {
   const info = quantityInfo(name);
   if (info) return info.dimension;
   const s = suggestKey(name, knownKeys(options));
   throw new InputError(where, `unknown quantity "${name}"${s ? `; did you mean "${s}"?` : '; expected a key such as area, centroidX, Ix, principalAngle, cutLength'}`);
 }
 
-function unitFor(dim: Dimension, text: string, where: string): ParsedUnit {
+export function unitFor(dim: Dimension, text: string, where: string): ParsedUnit {
   const t = text.trim();
   if (t === '') {
     if (dim === 'count' || dim === 'ratio') return { dimension: dim, scale: plainScale(dim), text: '' };
@@ -120,7 +120,7 @@ function unitFor(dim: Dimension, text: string, where: string): ParsedUnit {
 }
 
 /** "12.5 in²" → number and unit text; a plain number gives unit ''. */
-function splitValueText(s: string, where: string): { value: number; unit: string } {
+export function splitValueText(s: string, where: string): { value: number; unit: string } {
   const m = /^\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*(.*?)\s*$/.exec(s);
   if (!m) throw new InputError(where, `expected a number, optionally followed by a unit (such as "12.5 mm²"), got ${describeValue(s)}`);
   return { value: Number(m[1]), unit: m[2] };

@@ -1,0 +1,200 @@
+/**
+ * Batch jobs: from a manifest (CSV, RFC 4180) or from a folder of part files.
+ *
+ * Manifest columns (header required; names are case-sensitive; a unit may follow a name in brackets):
+ *   file        required  part file, relative to the manifest's folder (platewise JSON, SVG, GeoJSON, WKT)
+ *   quantity    optional  how many of this part are made: a whole number ≥ 1 (default 1)
+ *   material    optional  material name from the table (its nominal density is used)
+ *   thickness   optional  "10 mm", or a bare number with the unit in the header, `thickness [mm]`;
+ *                         a bare number under a plain `thickness` header is in the part's own unit
+ *   density     optional  "7850 kg/m3", "7.85 g/cm3", or a bare number (kg/m³, or the header's unit)
+ *   reference   optional  reference file (JSON or CSV, see src/qa/reference.ts), relative to the manifest
+ *   format      optional  part-json, svg, geojson or wkt (default: by extension, then content)
+ *   units       optional  length unit of drawing coordinates (SVG, GeoJSON, WKT)
+ *   note        optional  free text, ignored
+ *   <quantity key> [unit]  optional, any number of them: a stated value for that quantity, such as
+ *                         `area [mm²]`, `netMass [kg]`, `pierces`, `centroidX [in]`. A cell is a bare number
+ *                         in the header's unit, or a number with its own unit ("4.65 in²") under a header
+ *                         without one. Default tolerances apply (src/qa/verdict.ts); for stated tolerances
+ *                         use a reference file.
+ * An empty cell means "not given": the command-line setting applies (material, thickness, density), or no
+ * stated value. A row's `material` replaces a command-line `--density`; a row's `density` replaces both.
+ *
+ * Row numbers: data records are numbered from 1 (the header is not counted; blank lines are skipped and
+ * not counted). Every problem in the manifest itself is an InputError naming line and column; problems
+ * with a part file (missing, malformed) are the row's own failure, found when the row runs.
+ *
+ * Folder: every file directly in it whose name ends in .json, .svg, .geojson or .wkt (sorted by name,
+ * numbered from 1), except hidden files and reference files named `<stem>.ref.json` / `<stem>.ref.csv`;
+ * such a reference file, when present, is used for the part `<stem>.<ext>`.
+ */
+import { readdirSync, statSync } from 'node:fs';
+import { dirname, isAbsolute, join, resolve } from 'node:path';
+import { InputError } from '../errors.js';
+import { csvWhere, parseCsvRecords } from '../io/csv.js';
+import { type InputFormat, INPUT_FORMATS } from '../io/read.js';
+import type { MaterialTable } from '../materials/index.js';
+import { type PlateSpec, lookupMaterial, parseDensity, parseThickness } from './../qa/plate.js';
+import { type StatedValue, checkQuantity, splitValueText, suggestKey, unitFor } from '../qa/reference.js';
+import { SECTION_QUANTITIES } from '../properties/quantities.js';
+import { FABRICATION_QUANTITIES } from '../properties/fabrication.js';
+import { type LengthUnit, isLengthUnit } from '../units.js';
+
+export interface Job {
+  /** Manifest row number (data records from 1) or position in the folder listing (from 1). */
+  row: number;
+  /** Line of the manifest the row starts on (absent for folders). */
+  line?: number;
+  /** The file as written in the manifest (or its name in the folder). */
+  file: string;
+  /** Absolute path. */
+  path: string;
+  quantity: number;
+  format?: InputFormat;
+  units?: LengthUnit;
+  /** Settings from the row (merged with the command line's later). */
+  plate: PlateSpec;
+  /** Absolute path of the reference file, and the label it is shown under. */
+  reference?: { path: string; label: string };
+  /** Stated values from the row's own columns. */
+  stated: StatedValue[];
+}
+
+export const PART_EXTENSIONS = ['.json', '.svg', '.geojson', '.wkt'];
+const FIXED = ['file', 'quantity', 'material', 'thickness', 'density', 'reference', 'format', 'units', 'note'];
+const UNIT_HEADER = /^(.*?)\s*\[([^\]]*)\]$/;
+
+function splitHeader(h: string): { name: string; unit: string | null } {
+  const m = UNIT_HEADER.exec(h);
+  return m ? { name: m[1], unit: m[2].trim() } : { name: h, unit: null };
+}
+
+export interface ManifestOptions {
+  materials?: MaterialTable;
+}
+
+/** Read a manifest's text; `label` is its path as given, `baseDir` the folder that relative paths start from. */
+export function parseManifest(text: string, label: string, baseDir: string, options: ManifestOptions = {}): Job[] {
+  const t = parseCsvRecords(text, label, { required: [] });
+  const columns = t.header.map((h) => ({ header: h, ...splitHeader(h) }));
+  const headLine = 1 + (t.records.length > 0 ? 0 : 0);
+  const colIndex = new Map<string, number>();
+  const statedCols: { header: string; key: string; dimension: ReturnType<typeof checkQuantity>; unit: string | null }[] = [];
+  columns.forEach((c, k) => {
+    const at = csvWhere(label, headLine, 1);
+    if (colIndex.has(c.name)) throw new InputError(at, `column "${c.name}" appears twice; expected each column once`);
+    colIndex.set(c.name, k);
+    if (FIXED.includes(c.name)) {
+      if (c.unit !== null && c.name !== 'thickness' && c.name !== 'density') {
+        throw new InputError(at, `column "${c.header}": only thickness, density and stated values take a unit in brackets`);
+      }
+      return;
+    }
+    let dim;
+    try {
+      dim = checkQuantity(c.name, at, {});
+    } catch {
+      const keys = [...FIXED, ...SECTION_QUANTITIES.map((q) => q.key), ...FABRICATION_QUANTITIES.map((q) => q.key)];
+      const s = suggestKey(c.name, keys);
+      throw new InputError(at, `unknown column "${c.header}"${s ? `; did you mean "${s}"?` : ''}; expected file, quantity, material, thickness, density, reference, format, units, note, or a quantity key with its unit such as "area [mm²]"`);
+    }
+    if (c.unit !== null) unitFor(dim, c.unit, `${at} (column "${c.header}")`);
+    statedCols.push({ header: c.header, key: c.name, dimension: dim, unit: c.unit });
+  });
+  if (!colIndex.has('file')) {
+    throw new InputError(csvWhere(label, 1, 1), `expected a column named "file"; the header has ${t.header.map((h) => `"${h}"`).join(', ')}`);
+  }
+  if (t.records.length === 0) throw new InputError(label, 'expected at least one row below the header');
+  const thicknessUnit = columns[colIndex.get('thickness') ?? -1]?.unit ?? null;
+  const densityUnit = columns[colIndex.get('density') ?? -1]?.unit ?? null;
+  if (thicknessUnit !== null && thicknessUnit !== '' && !isLengthUnit(thicknessUnit)) {
+    throw new InputError(csvWhere(label, 1, 1), `column "thickness [${thicknessUnit}]": expected a length unit (mm, cm, m, in, ft)`);
+  }
+
+  return t.records.map((rec, i) => {
+    const loc = t.locations[i];
+    const at = (h: string) => csvWhere(label, loc.fields[h][0], loc.fields[h][1]);
+    const cell = (name: string): string | undefined => {
+      const k = colIndex.get(name);
+      if (k === undefined) return undefined;
+      const v = rec[columns[k].header].trim();
+      return v === '' ? undefined : v;
+    };
+    const hdr = (name: string) => columns[colIndex.get(name)!].header;
+    const file = cell('file');
+    if (file === undefined) throw new InputError(at(hdr('file')), 'expected a part file name, got an empty cell');
+    const job: Job = {
+      row: i + 1, line: loc.line, file, path: isAbsolute(file) ? file : resolve(baseDir, file), quantity: 1, plate: {}, stated: [],
+    };
+    const q = cell('quantity');
+    if (q !== undefined) {
+      if (!/^\d+$/.test(q) || Number(q) < 1 || !Number.isSafeInteger(Number(q))) {
+        throw new InputError(at(hdr('quantity')), `expected how many of this part (a whole number of 1 or more), got "${q}"`);
+      }
+      job.quantity = Number(q);
+    }
+    const m = cell('material');
+    if (m !== undefined) job.plate.material = lookupMaterial(m, at(hdr('material')), options.materials);
+    const th = cell('thickness');
+    if (th !== undefined) {
+      const text = thicknessUnit && /^[\d.+\-eE]+$/.test(th) ? `${th} ${thicknessUnit}` : th;
+      job.plate.thickness = parseThickness(text, at(hdr('thickness')));
+    }
+    const de = cell('density');
+    if (de !== undefined) {
+      const text = densityUnit && /^[\d.+\-eE]+$/.test(de) ? `${de} ${densityUnit}` : de;
+      job.plate.density = parseDensity(text, at(hdr('density')));
+    }
+    const ref = cell('reference');
+    if (ref !== undefined) job.reference = { path: isAbsolute(ref) ? ref : resolve(baseDir, ref), label: ref };
+    const f = cell('format');
+    if (f !== undefined) {
+      if (!INPUT_FORMATS.includes(f as InputFormat)) throw new InputError(at(hdr('format')), `expected one of ${INPUT_FORMATS.join(', ')}, got "${f}"`);
+      job.format = f as InputFormat;
+    }
+    const u = cell('units');
+    if (u !== undefined) {
+      if (!isLengthUnit(u)) throw new InputError(at(hdr('units')), `expected mm, cm, m, in or ft, got "${u}"`);
+      job.units = u;
+    }
+    for (const c of statedCols) {
+      const v = cell(c.key);
+      if (v === undefined) continue;
+      const w = at(c.header);
+      const sv = splitValueText(v, w);
+      if (sv.unit !== '' && c.unit) throw new InputError(w, `the column "${c.header}" already gives the unit; expected a bare number, got "${v}"`);
+      const unit = unitFor(c.dimension, sv.unit !== '' ? sv.unit : c.unit ?? '', w);
+      job.stated.push({ quantity: c.key, dimension: c.dimension, value: sv.value, unit, tolerance: null, where: w });
+    }
+    return job;
+  });
+}
+
+/** Every part file directly in a folder (see the module comment). */
+export function folderJobs(folder: string): Job[] {
+  let names: string[];
+  try {
+    names = readdirSync(folder);
+  } catch (e) {
+    throw new InputError(folder, `cannot be listed (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+  }
+  const set = new Set(names);
+  const isPart = (n: string) => !n.startsWith('.') && !/\.ref\.(json|csv)$/i.test(n) &&
+    PART_EXTENSIONS.some((x) => n.toLowerCase().endsWith(x));
+  const parts = names.filter(isPart).filter((n) => {
+    try { return statSync(join(folder, n)).isFile(); } catch { return false; }
+  }).sort((a, b) => (a < b ? -1 : a > b ? 1 : 0));
+  if (parts.length === 0) throw new InputError(folder, `holds no part files (expected names ending in ${PART_EXTENSIONS.join(', ')})`);
+  return parts.map((n, i) => {
+    const stem = n.replace(/\.[^.]+$/, '');
+    const refName = [`${stem}.ref.json`, `${stem}.ref.csv`].find((r) => set.has(r));
+    const job: Job = { row: i + 1, file: n, path: resolve(folder, n), quantity: 1, plate: {}, stated: [] };
+    if (refName) job.reference = { path: resolve(folder, refName), label: refName };
+    return job;
+  });
+}
+
+/** The folder relative paths of a manifest start from. */
+export function manifestBase(manifestPath: string): string {
+  return dirname(resolve(manifestPath));
+}
