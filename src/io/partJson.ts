@@ -13,8 +13,11 @@ export const MAX_COORDINATE = 1e12;
 type Json = null | boolean | number | string | Json[] | { [k: string]: Json };
 type Obj = { [k: string]: Json };
 
+/** Top-level keys for thickness, density and layers (read by plateModelFromObject, at the end of this file). */
+const PLATE_KEYS = ['thickness', 'density', 'material', 'layers'];
+
 const SHAPE_KINDS = ['rectangle', 'circle', 'slot', 'polygon', 'path'] as const;
-const TOP_KEYS = ['$schema', 'part', 'units', 'outline', 'cutouts', 'regions', 'note', 'description'];
+const TOP_KEYS = ['$schema', 'part', 'units', 'outline', 'cutouts', 'regions', 'note', 'description', ...PLATE_KEYS];
 
 /** Parse JSON text, turning a syntax error into an InputError with line and column. */
 export function parseJsonText(text: string, label: string): unknown {
@@ -163,6 +166,8 @@ export function readPartJson(text: string, label = 'input'): Part {
 export function partFromObject(value: unknown, label = 'input'): Part {
   const root = expectObject(value, label);
   checkKeys(root, TOP_KEYS, '');
+  // A layered part: readers that take one Part see the first layer (the base plate); see readPlateModel.
+  if (root.layers !== undefined) return plateModelFromObject(root, label).layers[0].part;
   const name = root.part === undefined ? 'part' : root.part;
   if (typeof name !== 'string' || name.length === 0) throw new InputError('part', `expected a non-empty name, got ${describeValue(name)}`);
   const units = root.units === undefined ? 'mm' : root.units;
@@ -187,4 +192,134 @@ export function partFromObject(value: unknown, label = 'input'): Part {
     regions = [readRegion(root, '')];
   }
   return { name, units: units as LengthUnit, regions };
+}
+
+
+// ---------------------------------------------------------------------------------------------------------
+// Thickness, density, material and layers (the plate model for mass properties).
+//
+// A part file may add, at the top level:
+//   "thickness": 20 | "20 - 0.025*x"     (part length unit; a number or an expression in x and y)
+//   "density":   7850 | "7850 + 0.1*y"   (kg/m³; number or expression) — or —
+//   "material":  "steel"                  (a material id or alias; see `platewise materials`)
+// or, instead of outline/cutouts/regions, a stack of layers:
+//   "layers": [ { "name": "base", "outline": ..., "cutouts": [...], "thickness": 20, "material": "steel", "z": 0 },
+//               { "name": "doubler", "outline": ..., "thickness": 12, "density": 7850 } ]
+// Each layer has its own shape (outline + cutouts, or regions), thickness, density or material, and z: the
+// height of its underside in the part's length unit (default: the first layer at 0, each next one on top
+// of the previous, which then needs a constant thickness). Top-level thickness/density/material are the
+// default for every layer that states none. Expressions are compiled (and their values checked) later,
+// where they are integrated (src/accuracy/plate.ts); here only their type is checked.
+// ---------------------------------------------------------------------------------------------------------
+
+/** A thickness or density as written: a number or the text of an expression, with its JSON path. */
+export interface FieldSpec {
+  value: number | string;
+  where: string;
+}
+
+export interface LayerSpec {
+  name: string;
+  /** JSON path of the layer ('' for a part without "layers"). */
+  where: string;
+  /** The layer's shape as a Part (name "<part> / <layer>"), not yet validated. */
+  part: Part;
+  thickness?: FieldSpec;
+  density?: FieldSpec;
+  material?: { name: string; where: string };
+  /** Underside height, part length unit; undefined = stacked on the previous layer (first: 0). */
+  z?: number;
+  zWhere?: string;
+}
+
+export interface PlateModel {
+  name: string;
+  units: LengthUnit;
+  /** True when the file used "layers". */
+  layered: boolean;
+  layers: LayerSpec[];
+}
+
+const LAYER_KEYS = ['name', 'outline', 'cutouts', 'regions', 'thickness', 'density', 'material', 'z', 'note'];
+
+function readField(v: unknown, where: string, what: string): FieldSpec | undefined {
+  if (v === undefined) return undefined;
+  if (typeof v === 'number') {
+    if (!Number.isFinite(v) || !(v > 0)) throw new InputError(where, `expected a positive ${what} (a number or an expression in x and y), got ${describeValue(v)}`);
+    return { value: v, where };
+  }
+  if (typeof v === 'string' && v.trim().length > 0) return { value: v, where };
+  throw new InputError(where, `expected a positive ${what}: a number or an expression in x and y as text, got ${describeValue(v)}`);
+}
+
+function readMaterialName(v: unknown, where: string): { name: string; where: string } | undefined {
+  if (v === undefined) return undefined;
+  if (typeof v !== 'string' || v.trim().length === 0) throw new InputError(where, `expected a material name (see "platewise materials"), got ${describeValue(v)}`);
+  return { name: v, where };
+}
+
+/** Prefix the JSON path of an InputError raised while reading a layer's shape. */
+function withPrefix<T>(prefix: string, body: () => T): T {
+  try {
+    return body();
+  } catch (e) {
+    if (e instanceof InputError) throw new InputError(e.where ? `${prefix}.${e.where}` : prefix, e.detail);
+    throw e;
+  }
+}
+
+/** Read a part file with its thickness, density, material and layers. */
+export function readPlateModel(text: string, label = 'input'): PlateModel {
+  return plateModelFromObject(parseJsonText(text, label), label);
+}
+
+/** Read the plate model from an already-parsed JSON value. */
+export function plateModelFromObject(value: unknown, label = 'input'): PlateModel {
+  const root = expectObject(value, label);
+  checkKeys(root, TOP_KEYS, '');
+  const defThickness = readField(root.thickness, 'thickness', 'thickness');
+  const defDensity = readField(root.density, 'density', 'density in kg/m³');
+  const defMaterial = readMaterialName(root.material, 'material');
+  if (defDensity && defMaterial) throw new InputError('material', 'given together with "density"; give one or the other');
+  if (root.layers === undefined) {
+    const { layers: _l, thickness: _t, density: _d, material: _m, ...shape } = root;
+    const part = partFromObject(shape, label);
+    return {
+      name: part.name, units: part.units, layered: false,
+      layers: [{ name: part.name, where: '', part, thickness: defThickness, density: defDensity, material: defMaterial }],
+    };
+  }
+  for (const k of ['outline', 'cutouts', 'regions'] as const) {
+    if (root[k] !== undefined) throw new InputError(k, 'given together with "layers"; each layer has its own shape');
+  }
+  const name = root.part === undefined ? 'part' : root.part;
+  if (typeof name !== 'string' || name.length === 0) throw new InputError('part', `expected a non-empty name, got ${describeValue(name)}`);
+  const units = root.units === undefined ? 'mm' : root.units;
+  if (!isLengthUnit(units)) throw new InputError('units', `expected one of ${Object.keys(LENGTH_UNITS).join(', ')}, got ${describeValue(units)}`);
+  const list = expectArray(root.layers, 'layers');
+  if (list.length === 0) throw new InputError('layers', 'expected at least one layer');
+  const seen = new Set<string>();
+  const layers = list.map((lv, i): LayerSpec => {
+    const w = `layers[${i}]`;
+    const o = expectObject(lv, w);
+    checkKeys(o, LAYER_KEYS, w);
+    const lname = o.name === undefined ? `layer ${i + 1}` : o.name;
+    if (typeof lname !== 'string' || lname.trim().length === 0) throw new InputError(`${w}.name`, `expected a non-empty layer name, got ${describeValue(lname)}`);
+    if (seen.has(lname)) throw new InputError(`${w}.name`, `layer name "${lname}" is used twice; expected unique names`);
+    seen.add(lname);
+    if (o.note !== undefined && typeof o.note !== 'string') throw new InputError(`${w}.note`, `expected text, got ${describeValue(o.note)}`);
+    const part = withPrefix(w, () => partFromObject({ part: `${name} / ${lname}`, units, outline: o.outline, cutouts: o.cutouts, regions: o.regions }, label));
+    const thickness = readField(o.thickness, `${w}.thickness`, 'thickness') ?? defThickness;
+    const density = readField(o.density, `${w}.density`, 'density in kg/m³');
+    const material = readMaterialName(o.material, `${w}.material`);
+    if (density && material) throw new InputError(`${w}.material`, 'given together with "density"; give one or the other');
+    const z = o.z === undefined ? undefined : expectNumber(o.z, `${w}.z`);
+    return {
+      name: lname, where: w, part, thickness,
+      density: density ?? (material ? undefined : defDensity),
+      material: material ?? (density ? undefined : defMaterial),
+      z, zWhere: o.z === undefined ? undefined : `${w}.z`,
+    };
+  });
+  return { name, units: units as LengthUnit, layered: true, layers };
 }
