@@ -85,6 +85,7 @@ export function plateFromFlags(
   flags: { thickness?: string; material?: string; density?: string }, table?: MaterialTable,
 ): PlateSpec {
   const spec: PlateSpec = {};
+  if (flags.density !== undefined && flags.material !== undefined) throw new InputError('--material', 'given together with --density; give one or the other');
   if (flags.thickness !== undefined) spec.thickness = parseThickness(flags.thickness, '--thickness');
   if (flags.material !== undefined) spec.material = lookupMaterial(flags.material, '--material', table);
   if (flags.density !== undefined) spec.density = parseDensity(flags.density, '--density');

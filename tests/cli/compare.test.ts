@@ -1,0 +1,139 @@
+/**
+ * `platewise compare` through the built command line (dist/cli/main.js; build with `npx tsc -p .` first):
+ * verdicts on parts with closed-form properties, unit conversion, exit statuses, JSON and CSV output.
+ */
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { parseCsvRecords } from '../../src/io/csv.js';
+
+const ROOT = join(import.meta.dirname, '..', '..');
+const CLI = join(ROOT, 'dist', 'cli', 'main.js');
+const dir = mkdtempSync(join(tmpdir(), 'platewise-compare-'));
+
+function platewise(args: string[], input?: string) {
+  const r = spawnSync(process.execPath, [CLI, ...args], { cwd: ROOT, input, encoding: 'utf8' });
+  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
+}
+function file(name: string, content: unknown): string {
+  const p = join(dir, name);
+  writeFileSync(p, typeof content === 'string' ? content : JSON.stringify(content));
+  return p;
+}
+
+// Plate 200 × 100 mm with a centred Ø40 hole. Closed forms (any mechanics handbook; rectangle bh³/12,
+// circle πd⁴/64, both about their own centroids, which coincide here):
+//   A  = 200·100 − π·40²/4 = 20000 − 400π
+//   Ix = 200·100³/12 − π·40⁴/64,  Iy = 100·200³/12 − π·40⁴/64,  centroid (100, 50)
+const plate = file('plate.json', {
+  part: 'test plate (invented)', units: 'mm',
+  outline: { rectangle: { corner: [0, 0], size: [200, 100] } },
+  cutouts: [{ circle: { center: [100, 50], diameter: 40 } }],
+});
+const A = 20000 - 400 * Math.PI;
+const Ix = (200 * 100 ** 3) / 12 - (Math.PI * 40 ** 4) / 64;
+const Iy = (100 * 200 ** 3) / 12 - (Math.PI * 40 ** 4) / 64;
+
+describe('compare: verdicts and exit statuses', () => {
+  it('closed-form values in other units pass: exit 0, every row pass', () => {
+    // unit conversions: 1 cm = 10 mm, 1 in = 25.4 mm exactly (NIST SP 811, appendix B)
+    const ref = file('good.json', {
+      values: [
+        { quantity: 'area', value: A / 100, unit: 'cm²' },
+        { quantity: 'centroidX', value: '10 cm' },
+        { quantity: 'centroidY', value: 50 / 25.4, unit: 'in' },
+        { quantity: 'Ix', value: Ix / 25.4 ** 4, unit: 'in^4', tolerance: '1e-6 rel' },
+        { quantity: 'Iy', value: Iy / 1e4, unit: 'cm4' },
+        { quantity: 'pierces', value: 2 }, // outer contour + one hole (common practice, no source)
+        { quantity: 'cutLength', value: 600 + 40 * Math.PI, unit: 'mm' }, // 2(200+100) + πd
+      ],
+    });
+    const r = platewise(['compare', plate, '--reference', ref]);
+    expect(r.stderr).toBe('');
+    expect(r.status).toBe(0);
+    expect(r.stdout).toMatch(/verdict: pass — 7 pass, 0 fail, 0 inconclusive/);
+    expect(r.stdout).toMatch(/not a structural, lifting or fitness-for-purpose check/);
+  });
+
+  it('one deliberate mismatch: exit 1, that row FAIL, no internal error on stderr', () => {
+    const ref = file('bad.csv', 'quantity,value,unit,tolerance\r\narea,' + A + ',mm²,\r\ncentroidX,101,mm,0.5 mm\r\n');
+    const r = platewise(['compare', plate, '--reference', ref]);
+    expect(r.status).toBe(1);
+    expect(r.stderr).toBe('');
+    expect(r.stdout).toMatch(/^centroidX .*FAIL$/m);
+    expect(r.stdout).toMatch(/^area .*pass$/m);
+    expect(r.stdout).toMatch(/verdict: FAIL — 1 pass, 1 fail, 0 inconclusive/);
+  });
+
+  it('inconclusive when our own estimate is larger than the tolerance: exit 1', () => {
+    // circle Ø100: A = π·100²/4 exactly (closed form). A low-degree rule gives a visible estimate e; with a
+    // tolerance far below e and the stated value exact, |d| − e ≤ T < |d| + e, so neither pass nor fail.
+    const circle = file('circle.json', { part: 'disc (invented)', units: 'mm', outline: { circle: { center: [0, 0], diameter: 100 } } });
+    const ref = file('circle.ref.json', { values: [{ quantity: 'area', value: 2500 * Math.PI, unit: 'mm²', tolerance: '1e-12 mm²' }] });
+    const j = platewise(['compare', circle, '--reference', ref, '--degree', '2', '--json']);
+    expect(j.status).toBe(1);
+    const doc = JSON.parse(j.stdout);
+    expect(doc.verdict).toBe('inconclusive');
+    expect(doc.rows[0].verdict).toBe('inconclusive');
+    expect(doc.rows[0].error).toBeGreaterThan(1e-12);
+    expect(Math.abs(doc.rows[0].difference)).toBeLessThanOrEqual(doc.rows[0].error + 1e-12);
+  });
+
+  it('a stated mass without thickness is inconclusive with a reason; with them it passes', () => {
+    // 1000 × 500 × 10 mm steel at 7850 kg/m³ (EN 1993-1-1, 3.2.6): 0.5 m² × 0.01 m × 7850 = 39.25 kg
+    const sheet = file('sheet.json', { part: 'sheet (invented)', units: 'mm', outline: { rectangle: { corner: [0, 0], size: [1000, 500] } } });
+    const ref = file('sheet.ref.json', { values: [{ quantity: 'netMass', value: 39.25, unit: 'kg' }, { quantity: 'blankMass', value: 39.25 / 0.45359237, unit: 'lb' }] });
+    const none = platewise(['compare', sheet, '--reference', ref, '--json']);
+    expect(none.status).toBe(1);
+    expect(JSON.parse(none.stdout).rows[0].note).toMatch(/needs a thickness and a density/);
+    const ok = platewise(['compare', sheet, '--reference', ref, '--thickness', '10 mm', '--material', 'steel']);
+    expect(ok.status).toBe(0);
+    expect(ok.stdout).toMatch(/Masses are computed from the nominal thickness/);
+    // the same thickness given in inches (10 mm = 10/25.4 in) and density in g/cm³
+    const inch = platewise(['compare', sheet, '--reference', ref, '--thickness', `${10 / 25.4} in`, '--density', '7.85 g/cm3']);
+    expect(inch.status).toBe(0);
+  });
+
+  it('--csv is RFC 4180 with one record per stated value and round-trip numbers', () => {
+    const ref = file('csvout.json', { values: [{ quantity: 'area', value: A, unit: 'mm²' }, { quantity: 'Ix', value: Ix * 1.01, unit: 'mm⁴' }] });
+    const r = platewise(['compare', plate, '--reference', ref, '--csv']);
+    expect(r.status).toBe(1);
+    const t = parseCsvRecords(r.stdout, 'out');
+    expect(t.records.map((x) => [x.quantity, x.verdict])).toEqual([['area', 'pass'], ['Ix', 'fail']]);
+    expect(Number(t.records[0].stated)).toBe(A);
+    expect(Math.abs(Number(t.records[0].computed) - A) / A).toBeLessThan(1e-12);
+  });
+});
+
+describe('compare: bad input exits 2 with one line', () => {
+  const cases: [string, string | object, RegExp][] = [
+    ['unknown quantity', { values: [{ quantity: 'aera', value: 1, unit: 'mm²' }] }, /values\[0\]\.quantity: unknown quantity "aera"; did you mean "area"\?/],
+    ['no unit', { values: [{ quantity: 'area', value: 1 }] }, /expected a unit of area .* units are never assumed/],
+    ['wrong dimension', { values: [{ quantity: 'area', value: 1, unit: 'mm' }] }, /"mm" is a unit of length; expected a unit of area/],
+    ['bare tolerance', { values: [{ quantity: 'Ix', value: 1, unit: 'mm4', tolerance: 0.1 }] }, /a bare number is unclear/],
+  ];
+  for (const [name, ref, msg] of cases) {
+    it(name, () => {
+      const p = file(`e-${name.replace(/\s/g, '')}.json`, ref);
+      const r = platewise(['compare', plate, '--reference', p]);
+      expect(r.status).toBe(2);
+      expect(r.stdout).toBe('');
+      expect(r.stderr).toMatch(msg);
+      expect(r.stderr.trim().split('\n')).toHaveLength(1);
+    });
+  }
+  it('--json with --csv, and an unknown material', () => {
+    const ref = file('ok.json', { values: [{ quantity: 'area', value: A, unit: 'mm²' }] });
+    expect(platewise(['compare', plate, '--reference', ref, '--json', '--csv']).status).toBe(2);
+    const m = platewise(['compare', plate, '--reference', ref, '--thickness', '5', '--material', 'unobtainium']);
+    expect(m.status).toBe(2);
+    expect(m.stderr).toMatch(/^platewise: --material: unknown material "unobtainium"/);
+  });
+  it('missing reference file', () => {
+    const r = platewise(['compare', plate, '--reference', join(dir, 'nope.json')]);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/nope\.json: no such file/);
+  });
+});
