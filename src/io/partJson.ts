@@ -5,6 +5,8 @@
 import { InputError, describeValue } from '../errors.js';
 import type { Loop, Part, Region } from '../geometry/part.js';
 import { type PathStep, type Pt, circleLoop, pathLoop, polygonLoop, rectangleLoop, slotLoop } from '../geometry/shapes.js';
+import { combineShapes } from '../geometry/booleans.js';
+import { MAX_PATTERN_COPIES, expandPattern, gridPoints, ringPoints } from '../geometry/patterns.js';
 import { LENGTH_UNITS, type LengthUnit, isLengthUnit } from '../units.js';
 
 /** Coordinates beyond this magnitude are refused: no real plate needs them and squares would overflow. */
@@ -17,7 +19,9 @@ type Obj = { [k: string]: Json };
 const PLATE_KEYS = ['thickness', 'density', 'material', 'layers'];
 
 const SHAPE_KINDS = ['rectangle', 'circle', 'slot', 'polygon', 'path'] as const;
-const TOP_KEYS = ['$schema', 'part', 'units', 'outline', 'cutouts', 'regions', 'note', 'description', ...PLATE_KEYS];
+/** Items of "cutouts" and "add" lists that stand for several shapes (src/geometry/patterns.ts). */
+const PATTERN_KINDS = ['grid', 'ring'] as const;
+const TOP_KEYS = ['$schema', 'part', 'units', 'outline', 'cutouts', 'regions', 'note', 'description', 'add', ...PLATE_KEYS];
 
 /** Parse JSON text, turning a syntax error into an InputError with line and column. */
 export function parseJsonText(text: string, label: string): unknown {
@@ -146,12 +150,70 @@ export function readShape(v: unknown, where: string): Loop {
   throw new InputError(where, 'unreachable');
 }
 
+function expectCount(v: unknown, where: string): number {
+  if (typeof v !== 'number' || !Number.isInteger(v) || v < 1) throw new InputError(where, `expected a whole number of at least 1, got ${describeValue(v)}`);
+  return v;
+}
+
+/** Read a grid or ring pattern ({"grid": {...}} or {"ring": {...}}) into its copies. */
+function readPattern(kind: string, body: unknown, w: string): Loop[] {
+  const b = expectObject(body, w);
+  if (kind === 'grid') {
+    checkKeys(b, ['start', 'pitch', 'count', 'shape'], w);
+    const start = expectPoint(b.start, `${w}.start`);
+    const pitch = expectPoint(b.pitch, `${w}.pitch`);
+    const count = expectArray(b.count, `${w}.count`);
+    if (count.length !== 2) throw new InputError(`${w}.count`, `expected [columns, rows], got ${describeValue(count)}`);
+    const nx = expectCount(count[0], `${w}.count[0]`), ny = expectCount(count[1], `${w}.count[1]`);
+    if (nx * ny > MAX_PATTERN_COPIES) throw new InputError(`${w}.count`, `expected at most ${MAX_PATTERN_COPIES} copies, got ${nx} × ${ny}`);
+    if (nx > 1 && pitch[0] === 0) throw new InputError(`${w}.pitch[0]`, 'expected a non-zero pitch with more than one column');
+    if (ny > 1 && pitch[1] === 0) throw new InputError(`${w}.pitch[1]`, 'expected a non-zero pitch with more than one row');
+    if (b.shape === undefined) throw new InputError(`${w}.shape`, 'expected the shape to repeat (missing)');
+    const shape = readShape(b.shape, `${w}.shape`);
+    return expandPattern(shape, gridPoints({ start: [start[0], start[1]], pitch: [pitch[0], pitch[1]], count: [nx, ny] }), false, w);
+  }
+  checkKeys(b, ['center', 'diameter', 'count', 'startAngle', 'step', 'rotate', 'shape'], w);
+  const center = expectPoint(b.center, `${w}.center`);
+  const diameter = expectPositive(b.diameter, `${w}.diameter`);
+  const n = expectCount(b.count, `${w}.count`);
+  if (n > MAX_PATTERN_COPIES) throw new InputError(`${w}.count`, `expected at most ${MAX_PATTERN_COPIES} copies, got ${n}`);
+  const startAngle = b.startAngle === undefined ? 0 : expectNumber(b.startAngle, `${w}.startAngle`);
+  const step = b.step === undefined ? undefined : expectNumber(b.step, `${w}.step`);
+  if (step !== undefined && n > 1 && (step === 0 || Math.abs(step) * (n - 1) >= 360)) {
+    throw new InputError(`${w}.step`, `expected a non-zero angle with ${n} − 1 steps short of a full turn (|step| < ${360 / (n - 1)}°), got ${step}`);
+  }
+  if (b.rotate !== undefined && typeof b.rotate !== 'boolean') throw new InputError(`${w}.rotate`, `expected true or false, got ${describeValue(b.rotate)}`);
+  if (b.shape === undefined) throw new InputError(`${w}.shape`, 'expected the shape to repeat (missing)');
+  const shape = readShape(b.shape, `${w}.shape`);
+  const points = ringPoints({ center: [center[0], center[1]], diameter, count: n, startAngle, step });
+  return expandPattern(shape, points, b.rotate === true, w);
+}
+
+/** Read a list of SHAPEs and patterns ("cutouts", "add") into loops. */
+export function readShapeList(v: unknown, where: string): Loop[] {
+  const out: Loop[] = [];
+  expectArray(v, where).forEach((item, i) => {
+    const w = `${where}[${i}]`;
+    const o = expectObject(item, w);
+    const keys = Object.keys(o);
+    if (keys.length === 1 && (PATTERN_KINDS as readonly string[]).includes(keys[0])) {
+      out.push(...readPattern(keys[0], o[keys[0]], `${w}.${keys[0]}`));
+    } else if (keys.length !== 1 || !(SHAPE_KINDS as readonly string[]).includes(keys[0])) {
+      throw new InputError(w, `expected exactly one of ${[...SHAPE_KINDS, ...PATTERN_KINDS].join(', ')}, got ${keys.length ? keys.map((k) => `"${k}"`).join(', ') : 'an empty object'}`);
+    } else {
+      out.push(readShape(o, w));
+    }
+  });
+  return out;
+}
+
 function readRegion(o: Obj, where: string): Region {
   if (o.outline === undefined) throw new InputError(where ? `${where}.outline` : 'outline', 'expected the outline shape (missing)');
   const p = where ? `${where}.` : '';
   const outer = readShape(o.outline, `${p}outline`);
-  const holes: Loop[] = o.cutouts === undefined ? [] : expectArray(o.cutouts, `${p}cutouts`).map((c, i) => readShape(c, `${p}cutouts[${i}]`));
-  return { outer, holes };
+  const add: Loop[] = o.add === undefined ? [] : readShapeList(o.add, `${p}add`);
+  const holes: Loop[] = o.cutouts === undefined ? [] : readShapeList(o.cutouts, `${p}cutouts`);
+  return combineShapes({ outline: outer, add, cutouts: holes });
 }
 
 /**
@@ -180,12 +242,15 @@ export function partFromObject(value: unknown, label = 'input'): Part {
     if (root.outline !== undefined || root.cutouts !== undefined) {
       throw new InputError('regions', 'given together with "outline"/"cutouts"; use one or the other');
     }
+    if (root.add !== undefined) {
+      throw new InputError('add', 'given together with "regions"; give "add" inside each region instead');
+    }
     const list = expectArray(root.regions, 'regions');
     if (list.length === 0) throw new InputError('regions', 'expected at least one region');
     regions = list.map((r, i) => {
       const w = `regions[${i}]`;
       const o = expectObject(r, w);
-      checkKeys(o, ['outline', 'cutouts'], w);
+      checkKeys(o, ['outline', 'cutouts', 'add'], w);
       return readRegion(o, w);
     });
   } else {
