@@ -1,5 +1,6 @@
 import { measureSection } from '../../src/accuracy/measure.js';
 import { InputError } from '../../src/errors.js';
+import { TRIANGULATORS, type Triangulator } from '../../src/mesh/triangulate.js';
 import { readInputText } from '../../src/io/files.js';
 import { sectionJson, sectionText } from '../../src/io/output.js';
 import { checkReadOptions, readParts } from '../../src/io/read.js';
@@ -7,15 +8,15 @@ import { checkReadOptions, readParts } from '../../src/io/read.js';
 export interface MeasureFlags { json?: boolean; degree?: number; levels?: number; triangulation?: string; format?: string; units?: string }
 
 export function measure(file: string, flags: MeasureFlags): string {
-  if (flags.triangulation !== undefined && flags.triangulation !== 'delaunay' && flags.triangulation !== 'sweep') {
-    throw new InputError('--triangulation', `expected delaunay or sweep, got "${flags.triangulation}"`);
+  if (flags.triangulation !== undefined && !TRIANGULATORS.includes(flags.triangulation as Triangulator)) {
+    throw new InputError('--triangulation', `expected one of ${TRIANGULATORS.join(', ')}, got "${flags.triangulation}"`);
   }
   if (flags.levels !== undefined && (flags.levels < 1 || flags.levels > 6)) throw new InputError('--levels', `expected 1 to 6, got ${flags.levels}`);
   const readOpts = checkReadOptions(flags.format, flags.units);
   const input = readInputText(file);
   const parts = readParts(input.text, input.label, readOpts);
   const results = parts.map((p) => measureSection(p, {
-    degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation as 'delaunay' | 'sweep' | undefined,
+    degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation as Triangulator | undefined,
   }));
   if (flags.json) {
     const docs = results.map(sectionJson);

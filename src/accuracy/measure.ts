@@ -9,8 +9,9 @@
 import { type Part, allLoops, loopLength, normalizePart, partBox } from '../geometry/part.js';
 import { validatePart } from '../geometry/validate.js';
 import { type MeshOptions, buildMesh } from '../mesh/build.js';
+import type { Triangulator } from '../mesh/triangulate.js';
 import { type Mesh, countCurved, triangleCount } from '../mesh/mesh.js';
-import { refineUniform } from '../mesh/refine.js';
+import { refineUniform, selectTriangles, splitByCurvature } from '../mesh/refine.js';
 import { integrate } from '../quadrature/integrate.js';
 import { DEFAULT_DEGREE, getRule } from '../quadrature/rules.js';
 import { type Quantity, SECTION_QUANTITIES, type SectionKey, type SectionQuantities, type SectionValues } from '../properties/quantities.js';
@@ -40,7 +41,7 @@ export interface MethodInfo {
   vertices: number;
   refinementLevels: number;
   chordSplits: number;
-  triangulation: 'delaunay' | 'sweep';
+  triangulation: Triangulator;
   /** Smallest curved-map Jacobian over the straight triangle's, over all quadrature points used. */
   minJacobianRatio: number;
   localOrigin: [number, number];
@@ -70,6 +71,19 @@ export function exactFigures(part: Part): ExactFigures {
   return { perimeter, box: partBox(part) };
 }
 
+function allTriangles(m: Mesh): Uint32Array {
+  const n = m.triangles.length / 3;
+  const out = new Uint32Array(n);
+  for (let i = 0; i < n; i++) out[i] = i;
+  return out;
+}
+
+function addSums(a: Float64Array, b: Float64Array): Float64Array {
+  const out = new Float64Array(a.length);
+  for (let k = 0; k < a.length; k++) out[k] = a[k] + b[k];
+  return out;
+}
+
 function angleDiff(a: number, b: number): number {
   let d = Math.abs(a - b) % 180;
   if (d > 90) d = 180 - d;
@@ -84,16 +98,23 @@ export function measureSection(input: Part, options: MeasureOptions = {}): Secti
   const exact = exactFigures(part);
   const { mesh, chordSplits } = buildMesh(part, options);
 
+  // Straight triangles integrate the moment integrands (polynomials of degree 2) exactly with the degree-2
+  // rule, so refining them cannot change their sum: they are integrated once, and only the curved
+  // triangles are refined level by level. The sums equal those of a uniform refinement of the whole mesh.
   const levels: LevelResult[] = [];
-  let m = mesh;
+  // (with a degree-1 rule nothing is exact for second moments, so every triangle is refined)
+  const { curved, straight } = degree >= 2 ? splitByCurvature(mesh) : { curved: allTriangles(mesh), straight: new Uint32Array(0) };
+  const straightSums = integrate(mesh, { degree, only: straight }).sums;
+  let m = selectTriangles(mesh, curved);
   let minJac = Infinity;
   let lastMoments: Float64Array = new Float64Array(6);
   for (let L = 0; L <= levelsWanted; L++) {
     if (L > 0) m = refineUniform(m);
     const r = integrate(m, { degree });
     minJac = Math.min(minJac, r.minJacobianRatio);
-    lastMoments = r.sums;
-    levels.push({ level: L, triangles: triangleCount(m), values: sectionFromMoments(r.sums, mesh.origin, exact) });
+    const sums = addSums(straightSums, r.sums);
+    lastMoments = sums;
+    levels.push({ level: L, triangles: straight.length + triangleCount(m), values: sectionFromMoments(sums, mesh.origin, exact) });
   }
   const fine = levels[levels.length - 1].values;
   const coarse = levels[levels.length - 2].values;
@@ -123,12 +144,12 @@ export function measureSection(input: Part, options: MeasureOptions = {}): Secti
       rulePoints: rule.n,
       estimator: 'uniform refinement',
       baseTriangles: triangleCount(mesh),
-      triangles: triangleCount(m),
+      triangles: levels[levels.length - 1].triangles,
       curvedTriangles: countCurved(mesh),
       vertices: mesh.coords.length / 2,
       refinementLevels: levelsWanted,
       chordSplits,
-      triangulation: options.triangulation ?? 'delaunay',
+      triangulation: options.triangulation ?? 'delaunator',
       minJacobianRatio: minJac,
       localOrigin: mesh.origin,
     },

@@ -3,17 +3,18 @@
  * constrained to the chords, tag every triangle edge that lies on a curve, and split chords until every
  * curved triangle's map is safely valid.
  */
-import cdt2d from 'cdt2d';
 import { InputError } from '../errors.js';
 import { type Part, partBox, translatePart } from '../geometry/part.js';
 import { type Segment, ops, piecesForTurning, segmentPoint, segmentStart } from '../geometry/segments.js';
 import { type Mesh, TriangleMap, curvedEdgeRatio } from './mesh.js';
+import { type Triangulator, triangulateConstrained } from './triangulate.js';
+import { type BVert, collectChords, crowdedChords, interiorPoints } from './chords.js';
 
 export interface MeshOptions {
   /** Largest tangent turning per chord on a curve, radians (default π/4: 8 chords on a circle). */
   maxTurn?: number;
-  /** cdt2d mode: 'delaunay' (edge flips to the Delaunay triangulation) or 'sweep' (monotone sweep only). */
-  triangulation?: 'delaunay' | 'sweep';
+  /** Triangulation back end (see triangulate.ts); default 'delaunator'. */
+  triangulation?: Triangulator;
   /** Largest allowed ratio of a curved edge's deviation from its chord to the triangle's height over it. */
   maxBulge?: number;
 }
@@ -21,8 +22,6 @@ export interface MeshOptions {
 export const DEFAULT_MAX_TURN = Math.PI / 4;
 export const DEFAULT_MAX_BULGE = 0.25;
 
-/** One boundary vertex: on segment `seg` at parameter `t`. */
-interface BVert { seg: number; t: number }
 
 /** Chosen local origin: the centre of the part's bounding box. */
 export function localOrigin(part: Part): [number, number] {
@@ -57,11 +56,18 @@ export function buildMesh(part: Part, options: MeshOptions = {}): MeshReport {
   }
 
   let splits = 0;
+  const T = (globalThis as { PLATEWISE_TIMING?: Record<string, number> }).PLATEWISE_TIMING;
+  let t0 = performance.now();
+  const lap = (k: string) => { if (T) { const t = performance.now(); T[k] = (T[k] ?? 0) + t - t0; t0 = t; } };
   splits += separateChords(loops, segments);
+  lap('separate');
   for (let pass = 1; pass <= 12; pass++) {
-    const extra = steinerPoints(loops, segments);
-    const mesh = triangulate(loops, segments, origin, options.triangulation ?? 'delaunay', extra);
+    const extra = interiorPoints(collectChords(loops, segments));
+    lap('steiner');
+    const mesh = triangulate(loops, segments, origin, options.triangulation ?? 'delaunator', extra);
+    lap('triangulate');
     const bad = badCurvedEdges(mesh, maxBulge);
+    lap('check');
     if (bad.size === 0) return { mesh, chordSplits: splits, passes: pass };
     // split the offending chords at their parameter midpoint, on the curve
     for (const verts of loops) {
@@ -84,210 +90,65 @@ function chordKey(verts: BVert[], i: number): string {
   return `${a.seg}:${a.t}`;
 }
 
-/**
- * Make sure the region between each curved chord and its curve is clear of every other boundary edge:
- * split curved chords whose "lens" (chord box grown by its deviation) comes near a non-adjacent edge.
- */
+/** Split crowded curved chords (see crowdedChords) until none is left; returns the number of splits. */
 function separateChords(loops: BVert[][], segments: Segment[]): number {
   let total = 0;
   for (let round = 0; round < 30; round++) {
-    interface E { loop: number; i: number; x0: number; y0: number; x1: number; y1: number; dev: number; box: [number, number, number, number] }
-    const edges: E[] = [];
-    loops.forEach((verts, li) => {
-      for (let i = 0; i < verts.length; i++) {
-        const a = verts[i], b = verts[(i + 1) % verts.length];
-        const s = segments[a.seg];
-        const t1 = b.seg === a.seg ? b.t : 1;
-        const p = segmentPoint(s, a.t), q = b.seg === a.seg ? segmentPoint(s, b.t) : segmentStart(segments[b.seg]);
-        const dev = ops(s).straight ? 0 : ops(s).deviation(s, a.t, t1);
-        const g = dev * 1.5;
-        edges.push({ loop: li, i, x0: p[0], y0: p[1], x1: q[0], y1: q[1], dev,
-          box: [Math.min(p[0], q[0]) - g, Math.min(p[1], q[1]) - g, Math.max(p[0], q[0]) + g, Math.max(p[1], q[1]) + g] });
-      }
-    });
-    const order = edges.map((_, i) => i).sort((i, j) => edges[i].box[0] - edges[j].box[0]);
-    const active: number[] = [];
-    const toSplit = new Set<E>();
-    for (const i of order) {
-      const e = edges[i];
-      for (let k = active.length - 1; k >= 0; k--) if (edges[active[k]].box[2] < e.box[0]) { active[k] = active[active.length - 1]; active.pop(); }
-      for (const j of active) {
-        const f = edges[j];
-        if (f.box[1] > e.box[3] || e.box[1] > f.box[3]) continue;
-        if (e.dev === 0 && f.dev === 0) continue;
-        if (e.loop === f.loop) {
-          const n = loops[e.loop].length;
-          if (Math.abs(e.i - f.i) <= 1 || Math.abs(e.i - f.i) === n - 1) continue;
-        }
-        // near in box terms: split the curved one(s) whose lens is the larger
-        const dist = segDist(e, f);
-        if (dist <= 1.5 * Math.max(e.dev, f.dev)) {
-          if (e.dev >= f.dev) toSplit.add(e); else toSplit.add(f);
-        }
-      }
-      active.push(i);
-    }
-    if (toSplit.size === 0) return total;
-    const byLoop = new Map<number, number[]>();
-    for (const e of toSplit) {
-      const l = byLoop.get(e.loop) ?? [];
-      l.push(e.i);
-      byLoop.set(e.loop, l);
-    }
-    for (const [li, idx] of byLoop) {
+    const crowded = crowdedChords(collectChords(loops, segments));
+    if (crowded.length === 0) return total;
+    // split from the back of each loop so earlier indices stay valid
+    crowded.sort((p, q) => p[0] - q[0] || q[1] - p[1]);
+    for (const [li, i] of crowded) {
       const verts = loops[li];
-      for (const i of idx.sort((a, b) => b - a)) {
-        const a = verts[i], b = verts[(i + 1) % verts.length];
-        const t1 = b.seg === a.seg ? b.t : 1;
-        verts.splice(i + 1, 0, { seg: a.seg, t: (a.t + t1) / 2 });
-        total++;
-      }
+      const a = verts[i], b = verts[(i + 1) % verts.length];
+      const t1 = b.seg === a.seg ? b.t : 1;
+      verts.splice(i + 1, 0, { seg: a.seg, t: (a.t + t1) / 2 });
+      total++;
     }
   }
   return total;
 }
 
-function segDist(e: { x0: number; y0: number; x1: number; y1: number }, f: { x0: number; y0: number; x1: number; y1: number }): number {
-  const pd = (px: number, py: number, s: typeof e) => {
-    const dx = s.x1 - s.x0, dy = s.y1 - s.y0;
-    const L2 = dx * dx + dy * dy;
-    let t = L2 > 0 ? ((px - s.x0) * dx + (py - s.y0) * dy) / L2 : 0;
-    t = Math.max(0, Math.min(1, t));
-    return Math.hypot(px - s.x0 - t * dx, py - s.y0 - t * dy);
-  };
-  // segments that cross have distance 0
-  const o = (ax: number, ay: number, bx: number, by: number, cx: number, cy: number) => Math.sign((bx - ax) * (cy - ay) - (by - ay) * (cx - ax));
-  if (o(e.x0, e.y0, e.x1, e.y1, f.x0, f.y0) * o(e.x0, e.y0, e.x1, e.y1, f.x1, f.y1) < 0 &&
-      o(f.x0, f.y0, f.x1, f.y1, e.x0, e.y0) * o(f.x0, f.y0, f.x1, f.y1, e.x1, e.y1) < 0) return 0;
-  return Math.min(pd(e.x0, e.y0, f), pd(e.x1, e.y1, f), pd(f.x0, f.y0, e), pd(f.x1, f.y1, e));
-}
-
-/** Uniform hash grid over boxes, for neighbourhood queries. */
-class Grid<T> {
-  private readonly cells = new Map<number, T[]>();
-  constructor(private readonly size: number) {}
-  private key(i: number, j: number) { return (i + 1048576) * 2097152 + (j + 1048576); }
-  add(item: T, x0: number, y0: number, x1: number, y1: number): void {
-    const s = this.size;
-    for (let i = Math.floor(x0 / s); i <= Math.floor(x1 / s); i++) for (let j = Math.floor(y0 / s); j <= Math.floor(y1 / s); j++) {
-      const k = this.key(i, j);
-      const c = this.cells.get(k);
-      if (c) c.push(item); else this.cells.set(k, [item]);
-    }
-  }
-  /** Calls fn for items in cells overlapping the box (an item may come more than once). */
-  query(x0: number, y0: number, x1: number, y1: number, fn: (item: T) => boolean | void): boolean {
-    const s = this.size;
-    for (let i = Math.floor(x0 / s); i <= Math.floor(x1 / s); i++) for (let j = Math.floor(y0 / s); j <= Math.floor(y1 / s); j++) {
-      const c = this.cells.get(this.key(i, j));
-      if (c) for (const it of c) if (fn(it) === true) return true;
-    }
-    return false;
-  }
-}
-
-function pointSegDist(px: number, py: number, x0: number, y0: number, x1: number, y1: number): number {
-  const dx = x1 - x0, dy = y1 - y0;
-  const L2 = dx * dx + dy * dy;
-  let t = L2 > 0 ? ((px - x0) * dx + (py - y0) * dy) / L2 : 0;
-  t = Math.max(0, Math.min(1, t));
-  return Math.hypot(px - x0 - t * dx, py - y0 - t * dy);
-}
-
-/**
- * Interior points that give each curved chord a well-shaped triangle: the apex of a near-equilateral
- * triangle on the material side (left of the chord: outer loops run counter-clockwise, holes clockwise).
- * A point is kept only where it is clear of every boundary chord and of the points already kept.
- */
-function steinerPoints(loops: BVert[][], segments: Segment[]): [number, number][] {
-  interface Chord { x0: number; y0: number; x1: number; y1: number; curved: boolean }
-  const chords: Chord[] = [];
-  for (const verts of loops) {
-    for (let i = 0; i < verts.length; i++) {
-      const a = verts[i], b = verts[(i + 1) % verts.length];
-      const p = a.t === 0 ? segmentStart(segments[a.seg]) : segmentPoint(segments[a.seg], a.t);
-      const q = b.t === 0 ? segmentStart(segments[b.seg]) : segmentPoint(segments[b.seg], b.t);
-      chords.push({ x0: p[0], y0: p[1], x1: q[0], y1: q[1], curved: !ops(segments[a.seg]).straight });
-    }
-  }
-  const curvedLens = chords.filter((c) => c.curved).map((c) => Math.hypot(c.x1 - c.x0, c.y1 - c.y0)).sort((a, b) => a - b);
-  if (curvedLens.length === 0) return [];
-  const cell = Math.max(curvedLens[curvedLens.length >> 1], 1e-300);
-  const grid = new Grid<Chord>(cell);
-  for (const c of chords) grid.add(c, Math.min(c.x0, c.x1), Math.min(c.y0, c.y1), Math.max(c.x0, c.x1), Math.max(c.y0, c.y1));
-  const kept = new Grid<[number, number, number]>(cell);
-  const out: [number, number][] = [];
-  for (const c of chords) {
-    if (!c.curved) continue;
-    const dx = c.x1 - c.x0, dy = c.y1 - c.y0;
-    const L = Math.hypot(dx, dy);
-    const h = 0.8 * L;
-    const mx = (c.x0 + c.x1) / 2, my = (c.y0 + c.y1) / 2;
-    const qx = mx - dy / L * h, qy = my + dx / L * h;
-    const clear = 0.7 * h;
-    const blocked = grid.query(qx - clear, qy - clear, qx + clear, qy + clear, (e) => {
-      if (pointSegDist(qx, qy, e.x0, e.y0, e.x1, e.y1) < clear) return true;
-      // the stem from the chord's midpoint to the point must cross no other chord
-      if (e !== c && segmentsCross(mx, my, qx, qy, e)) return true;
-      return false;
-    });
-    if (blocked) continue;
-    const near = kept.query(qx - clear, qy - clear, qx + clear, qy + clear, (k) => Math.hypot(k[0] - qx, k[1] - qy) < 0.6 * Math.min(h, k[2]));
-    if (near) continue;
-    kept.add([qx, qy, h], qx, qy, qx, qy);
-    out.push([qx, qy]);
-  }
-  return out;
-}
-
-function segmentsCross(ax: number, ay: number, bx: number, by: number, e: { x0: number; y0: number; x1: number; y1: number }): boolean {
-  const o = (px: number, py: number, qx: number, qy: number, rx: number, ry: number) => (qx - px) * (ry - py) - (qy - py) * (rx - px);
-  const d1 = o(ax, ay, bx, by, e.x0, e.y0), d2 = o(ax, ay, bx, by, e.x1, e.y1);
-  const d3 = o(e.x0, e.y0, e.x1, e.y1, ax, ay), d4 = o(e.x0, e.y0, e.x1, e.y1, bx, by);
-  return d1 * d2 <= 0 && d3 * d4 <= 0;
-}
-
-function triangulate(loops: BVert[][], segments: Segment[], origin: [number, number], mode: 'delaunay' | 'sweep', extra: [number, number][] = []): Mesh {
-  const pts: [number, number][] = [];
-  const edges: [number, number][] = [];
-  // chord table keyed by the vertex pair
-  const chordOf = new Map<number, { seg: number; s0: number; s1: number; from: number }>();
+function triangulate(loops: BVert[][], segments: Segment[], origin: [number, number], mode: Triangulator, extra: Float64Array): Mesh {
   let total = 0;
   for (const v of loops) total += v.length;
+  const n = total + extra.length / 2;
+  const coords = new Float64Array(2 * n);
+  const edges = new Uint32Array(2 * total);
+  // chord table keyed by the vertex pair
+  const chordOf = new Map<number, number>();
+  const chSeg: number[] = [], chS0: number[] = [], chS1: number[] = [], chFrom: number[] = [];
+  const p: [number, number] = [0, 0];
+  let base = 0;
   for (const verts of loops) {
-    const base = pts.length;
-    for (const v of verts) pts.push(v.t === 0 ? segmentStart(segments[v.seg]) : segmentPoint(segments[v.seg], v.t));
     for (let i = 0; i < verts.length; i++) {
+      const v = verts[i];
+      const s = segments[v.seg];
+      if (v.t === 0) { const q = segmentStart(s); p[0] = q[0]; p[1] = q[1]; } else ops(s).point(s, v.t, p);
+      coords[2 * (base + i)] = p[0]; coords[2 * (base + i) + 1] = p[1];
       const a = base + i, b = base + (i + 1) % verts.length;
-      edges.push([a, b]);
-      const va = verts[i], vb = verts[(i + 1) % verts.length];
-      if (!ops(segments[va.seg]).straight) {
-        const s1 = vb.seg === va.seg ? vb.t : 1;
-        chordOf.set(Math.min(a, b) * total + Math.max(a, b), { seg: va.seg, s0: va.t, s1, from: a });
+      edges[2 * (base + i)] = a; edges[2 * (base + i) + 1] = b;
+      if (!ops(s).straight) {
+        const w = verts[(i + 1) % verts.length];
+        chordOf.set(Math.min(a, b) * n + Math.max(a, b), chSeg.length);
+        chSeg.push(v.seg); chS0.push(v.t); chS1.push(w.seg === v.seg ? w.t : 1); chFrom.push(a);
       }
     }
+    base += verts.length;
   }
-  for (const p of extra) pts.push(p);
-  const tris = cdt2d(pts, edges, { exterior: false, delaunay: mode === 'delaunay' });
-  const n = pts.length, m = tris.length;
-  const coords = new Float64Array(2 * n);
-  for (let i = 0; i < n; i++) { coords[2 * i] = pts[i][0]; coords[2 * i + 1] = pts[i][1]; }
-  const triangles = new Uint32Array(3 * m);
+  coords.set(extra, 2 * total);
+  const triangles = triangulateConstrained(coords, edges, mode);
+  const m = triangles.length / 3;
   const edgeCurve = new Int32Array(3 * m).fill(-1);
   const curveSeg: number[] = [], curveS0: number[] = [], curveS1: number[] = [];
   for (let t = 0; t < m; t++) {
-    let [a, b, c] = tris[t];
-    const det = (pts[b][0] - pts[a][0]) * (pts[c][1] - pts[a][1]) - (pts[c][0] - pts[a][0]) * (pts[b][1] - pts[a][1]);
-    if (det < 0) [b, c] = [c, b];
-    triangles[3 * t] = a; triangles[3 * t + 1] = b; triangles[3 * t + 2] = c;
-    const vs = [a, b, c];
     for (let k = 0; k < 3; k++) {
-      const p = vs[k], q = vs[(k + 1) % 3];
-      const ch = chordOf.get(Math.min(p, q) * total + Math.max(p, q));
-      if (!ch) continue;
+      const a = triangles[3 * t + k], b = triangles[3 * t + (k + 1) % 3];
+      const ch = chordOf.get(Math.min(a, b) * n + Math.max(a, b));
+      if (ch === undefined) continue;
       edgeCurve[3 * t + k] = curveSeg.length;
-      curveSeg.push(ch.seg);
-      if (ch.from === p) { curveS0.push(ch.s0); curveS1.push(ch.s1); } else { curveS0.push(ch.s1); curveS1.push(ch.s0); }
+      curveSeg.push(chSeg[ch]);
+      if (chFrom[ch] === a) { curveS0.push(chS0[ch]); curveS1.push(chS1[ch]); } else { curveS0.push(chS1[ch]); curveS1.push(chS0[ch]); }
     }
   }
   return {
@@ -301,14 +162,15 @@ function triangulate(loops: BVert[][], segments: Segment[], origin: [number, num
  * Keys (`seg:t` of the chord's first vertex) of chords whose curved triangle is not safely valid:
  *  - a curved edge bulges more than `maxBulge` × the triangle's height over it, or
  *  - at a vertex, curves turning into the triangle eat more than half of the corner angle, or
- *  - the map's Jacobian is not positive on a grid of probe points and near the corners.
+ *  - the map's Jacobian is not positive on a grid of 10 probe points (step 1/6) and near the corners and edges
+ *    (integrate() also reports the smallest Jacobian met at the quadrature points actually used).
  */
 function badCurvedEdges(m: Mesh, maxBulge: number): Set<string> {
   const bad = new Set<string>();
   const map = new TriangleMap();
   // probe points: a barycentric grid (step 1/16, strictly inside) and points near the corners and edges
   const probe: [number, number][] = [[0.01, 0.01], [0.98, 0.01], [0.01, 0.98], [0.495, 0.495], [0.495, 0.01], [0.01, 0.495]];
-  for (let i = 1; i < 16; i++) for (let j = 1; i + j < 16; j++) probe.push([i / 16, j / 16]);
+  for (let i = 1; i < 6; i++) for (let j = 1; i + j < 6; j++) probe.push([i / 6, j / 6]);
   const d: [number, number] = [0, 0];
   const c = m.coords;
   for (let t = 0; t < m.triangles.length / 3; t++) {

@@ -106,9 +106,17 @@ export class TriangleMap {
         const t = (1 + lb - la) / 2;
         const dtu = (dbu - dau) / 2, dtv = (dbv - dav) / 2;
         const s0 = this.s0[k], s1 = this.s1[k];
-        const o = ops(s);
-        o.point(s, s0 + (s1 - s0) * t, this.p);
-        o.derivative(s, s0 + (s1 - s0) * t, this.d);
+        if (s.kind === 'arc') {
+          // inline circular arc: one cos/sin pair for point and derivative
+          const d = s.a1 - s.a0, ang = s.a0 + d * (s0 + (s1 - s0) * t);
+          const c = Math.cos(ang), sn = Math.sin(ang);
+          this.p[0] = s.cx + s.r * c; this.p[1] = s.cy + s.r * sn;
+          this.d[0] = -s.r * d * sn; this.d[1] = s.r * d * c;
+        } else {
+          const o = ops(s);
+          o.point(s, s0 + (s1 - s0) * t, this.p);
+          o.derivative(s, s0 + (s1 - s0) * t, this.d);
+        }
         const gx0 = this.g0[2 * k], gy0 = this.g0[2 * k + 1], gx1 = this.g1[2 * k], gy1 = this.g1[2 * k + 1];
         const nx = this.p[0] - ((1 - t) * gx0 + t * gx1);
         const ny = this.p[1] - ((1 - t) * gy0 + t * gy1);
