@@ -31,10 +31,10 @@
 import { readdirSync, statSync } from 'node:fs';
 import { dirname, isAbsolute, join, resolve } from 'node:path';
 import { InputError } from '../errors.js';
-import { csvWhere, parseCsvRecords } from '../io/csv.js';
+import { csvWhere, parseCsvRecords, parseCsvRows } from '../io/csv.js';
 import { type InputFormat, INPUT_FORMATS } from '../io/read.js';
 import type { MaterialTable } from '../materials/index.js';
-import { type PlateSpec, lookupMaterial, parseDensity, parseThickness } from './../qa/plate.js';
+import { type PlateSpec, lookupMaterial, parseDensity, parseThickness } from '../qa/plate.js';
 import { type StatedValue, checkQuantity, splitValueText, suggestKey, unitFor } from '../qa/reference.js';
 import { SECTION_QUANTITIES } from '../properties/quantities.js';
 import { FABRICATION_QUANTITIES } from '../properties/fabrication.js';
@@ -75,13 +75,13 @@ export interface ManifestOptions {
 
 /** Read a manifest's text; `label` is its path as given, `baseDir` the folder that relative paths start from. */
 export function parseManifest(text: string, label: string, baseDir: string, options: ManifestOptions = {}): Job[] {
-  const t = parseCsvRecords(text, label, { required: [] });
+  const t = parseCsvRecords(text, label, { required: ['file'] });
+  const head = parseCsvRows(text, label).find((r) => !(r.fields.length === 1 && r.fields[0] === ''))!;
   const columns = t.header.map((h) => ({ header: h, ...splitHeader(h) }));
-  const headLine = 1 + (t.records.length > 0 ? 0 : 0);
   const colIndex = new Map<string, number>();
   const statedCols: { header: string; key: string; dimension: ReturnType<typeof checkQuantity>; unit: string | null }[] = [];
   columns.forEach((c, k) => {
-    const at = csvWhere(label, headLine, 1);
+    const at = csvWhere(label, head.starts[k][0], head.starts[k][1]);
     if (colIndex.has(c.name)) throw new InputError(at, `column "${c.name}" appears twice; expected each column once`);
     colIndex.set(c.name, k);
     if (FIXED.includes(c.name)) {
@@ -101,14 +101,11 @@ export function parseManifest(text: string, label: string, baseDir: string, opti
     if (c.unit !== null) unitFor(dim, c.unit, `${at} (column "${c.header}")`);
     statedCols.push({ header: c.header, key: c.name, dimension: dim, unit: c.unit });
   });
-  if (!colIndex.has('file')) {
-    throw new InputError(csvWhere(label, 1, 1), `expected a column named "file"; the header has ${t.header.map((h) => `"${h}"`).join(', ')}`);
-  }
   if (t.records.length === 0) throw new InputError(label, 'expected at least one row below the header');
   const thicknessUnit = columns[colIndex.get('thickness') ?? -1]?.unit ?? null;
   const densityUnit = columns[colIndex.get('density') ?? -1]?.unit ?? null;
   if (thicknessUnit !== null && thicknessUnit !== '' && !isLengthUnit(thicknessUnit)) {
-    throw new InputError(csvWhere(label, 1, 1), `column "thickness [${thicknessUnit}]": expected a length unit (mm, cm, m, in, ft)`);
+    throw new InputError(csvWhere(label, head.starts[colIndex.get('thickness')!][0], head.starts[colIndex.get('thickness')!][1]), `column "thickness [${thicknessUnit}]": expected a length unit (mm, cm, m, in, ft)`);
   }
 
   return t.records.map((rec, i) => {
