@@ -334,12 +334,6 @@ export function combineShapes(input: BooleanInput, options: BooleanOptions = {})
     }
   });
 
-  if (pieces.length > 1) {
-    const where = pieces.map((p) => { const b = loopBox(p[0].loop); return at((b[0] + b[2]) / 2, (b[1] + b[3]) / 2); });
-    const names = [...used].map((li) => src.names[li]).filter((n) => n !== outlineName);
-    throw new InputError(outlineName, `${names.length ? `${names.join(', ')} ${names.length > 1 ? 'split' : 'splits'}` : 'the shapes split'} the plate into ${pieces.length} separate pieces (near ${where.join(', ')}); expected one piece — describe separate pieces as "regions"`);
-  }
-
   for (const poly of pieces) for (const r of poly) {
     const A = Math.abs(loopSignedArea(r.loop));
     const P = loopLength(r.loop);
@@ -348,6 +342,12 @@ export function combineShapes(input: BooleanInput, options: BooleanOptions = {})
       const b = loopBox(r.loop);
       throw new InputError(r.loop.where ?? outlineName, `leaves a sliver about ${fmt(width)} wide near ${at((b[0] + b[2]) / 2, (b[1] + b[3]) / 2)} (thinner than ${fmt(minWidth)}); make the shapes overlap clearly or keep them clearly apart`);
     }
+  }
+
+  if (pieces.length > 1) {
+    const where = pieces.map((p) => { const b = loopBox(p[0].loop); return at((b[0] + b[2]) / 2, (b[1] + b[3]) / 2); });
+    const names = [...used].map((li) => src.names[li]).filter((n) => n !== outlineName);
+    throw new InputError(outlineName, `${names.length ? `${names.join(', ')} ${names.length > 1 ? 'split' : 'splits'}` : 'the shapes split'} the plate into ${pieces.length} separate pieces (near ${where.join(', ')}); expected one piece — describe separate pieces as "regions"`);
   }
 
   const [outer, ...holes] = pieces[0].map((r) => r.loop);

@@ -18,14 +18,15 @@ function rectM(x0: number, y0: number, w: number, h: number): M {
  * ∫v dA = 2r³ sinα/3; triangle (centre, (±c, h)), c = r sinα: ∫v² = c h³/2, ∫u² = c³ h/6, ∫v = 2 c h²/3.
  * Then moved to the origin with the parallel-axis rules (∫(cy+v)² = ∫v² + 2cy∫v + cy² A).
  */
-function segmentAbove(cx: number, cy: number, r: number, h: number): M {
+function segmentAbove(cx: number, cy: number, r: number, h: number, below = false): M {
   const al = Math.acos(h / r), s = Math.sin(al), c = Math.cos(al);
   const half = r * s;
   const A = r * r * al - half * h;
   const Sv = (2 * r ** 3 * s) / 3 - (2 * half * h * h) / 3;
   const Ivv = (r ** 4 * (al + s * c)) / 4 - (half * h ** 3) / 2;
   const Iuu = (r ** 4 * (al - s * c)) / 4 - (half ** 3 * h) / 6;
-  return { A, Sx: cy * A + Sv, Sy: cx * A, Ixx: Ivv + 2 * cy * Sv + cy * cy * A, Iyy: Iuu + cx * cx * A, Ixy: cx * (Sv + cy * A) };
+  const sv = below ? -Sv : Sv; // the mirror image below y = cy − h
+  return { A, Sx: cy * A + sv, Sy: cx * A, Ixx: Ivv + 2 * cy * sv + cy * cy * A, Iyy: Iuu + cx * cx * A, Ixy: cx * (sv + cy * A) };
 }
 function central(m: M) {
   const xc = m.Sy / m.A, yc = m.Sx / m.A;
@@ -63,4 +64,69 @@ describe('notch cut by a circle at the plate edge keeps the exact arc', () => {
       expect(r0.geometry.part.regions[0].holes.length).toBe(0);
     });
   }
+});
+
+const plate = (extra: object) => ({ units: 'mm', outline: { rectangle: { corner: [0, 0], size: [200, 100] } }, ...extra });
+const circ = (x: number, y: number, r: number) => ({ circle: { center: [x, y], diameter: 2 * r } });
+
+describe('overlapping cut-outs, added material, open slots', () => {
+  it('two overlapping circles inside the plate: rectangle − (two discs − lens)', () => {
+    const r = 12, x = 70, y1 = 40, d = 9;
+    const res = measureObj(plate({ cutouts: [circ(x, y1, r), circ(x, y1 + d, r)] }));
+    const whole1 = segmentAbove(x, y1, r, -r), whole2 = segmentAbove(x, y1 + d, r, -r);
+    // lens = part of circle 1 above the mid line + part of circle 2 below it (each at h = d/2 from its centre)
+    const lens = add(segmentAbove(x, y1, r, d / 2), segmentAbove(x, y1 + d, r, d / 2, true));
+    const ref = central(sub(rectM(0, 0, 200, 100), sub(add(whole1, whole2), lens)));
+    expectClose(res, ref, 200, 'overlapping discs');
+    const hole = res.geometry.part.regions[0].holes;
+    expect(hole.length).toBe(1);
+    expect(hole[0].segments.every((s) => s.kind === 'arc' && (s.r === r))).toBe(true);
+  });
+  it('added boss on the top edge (union): rectangle + circle part above the edge', () => {
+    for (const [cx, r, d] of [[50, 10, 0], [120, 18, 7.5]]) {
+      const res = measureObj(plate({ add: [circ(cx, 100 - d, r)] }));
+      const ref = central(add(rectM(0, 0, 200, 100), segmentAbove(cx, 100 - d, r, d)));
+      expectClose(res, ref, 200, `boss r=${r} d=${d}`);
+    }
+  });
+  it('open slot from inside through the bottom edge: removes a rectangle and a half disc', () => {
+    const res = measureObj(plate({ cutouts: [{ slot: { from: [50, 20], to: [50, -30], width: 10 } }] }));
+    // inside the plate: the straight part x 45..55, y 0..20 and the round end above (50, 20)
+    const removed = add(rectM(45, 0, 10, 20), segmentAbove(50, 20, 5, 0));
+    expectClose(res, central(sub(rectM(0, 0, 200, 100), removed)), 200, 'open slot');
+  });
+  it('a cut-out inside a bigger cut-out is absorbed', () => {
+    const res = measureObj(plate({ cutouts: [circ(100, 50, 20), circ(104, 50, 5)] }));
+    const ref = central(sub(rectM(0, 0, 200, 100), segmentAbove(100, 50, 20, -20)));
+    expectClose(res, ref, 200, 'nested cut-outs');
+  });
+});
+
+describe('boolean results that cannot be measured are reported', () => {
+  const bad = (o: object) => () => partFromObject(o);
+  it('empty result', () => {
+    expect(bad(plate({ cutouts: [{ rectangle: { corner: [-1, -1], size: [202, 102] } }] }))).toThrow(/^outline\.rectangle: the cut-outs cutouts\[0\]\.rectangle remove all the material/);
+  });
+  it('several pieces', () => {
+    expect(bad(plate({ cutouts: [{ rectangle: { corner: [90, -5], size: [10, 110] } }] }))).toThrow(/^outline\.rectangle: cutouts\[0\]\.rectangle splits the plate into 2 separate pieces/);
+  });
+  it('a sliver thinner than the tolerance', () => {
+    // leaves a strip 1e-5 wide along the top edge (tolerance 1e-6 × 200)
+    expect(bad(plate({ cutouts: [{ rectangle: { corner: [-1, 50], size: [300, 50 - 1e-5] } }, circ(10, 10, 3)] })))
+      .toThrow(/^cutouts\[0\]\.rectangle − outline\.rectangle: leaves a sliver about 0\.00001 wide near \(100, 100\)/);
+  });
+  it('a cut-out outside the plate removes nothing', () => {
+    expect(bad(plate({ cutouts: [circ(300, 50, 5)] }))).toThrow(/^cutouts\[0\]\.circle: lies outside outline\.rectangle: it removes no material/);
+  });
+  it('a self-crossing operand is refused before clipping', () => {
+    expect(bad(plate({ cutouts: [{ polygon: [[190, 90], [210, 110], [210, 90], [190, 110]] }] }))).toThrow(/^cutouts\[0\]\.polygon: crosses or touches itself/);
+  });
+  it('a failure inside the clipper becomes an InputError naming the operation and shapes', async () => {
+    const { combineShapes } = await import('../../src/geometry/booleans.js');
+    const { rectangleLoop, circleLoop } = await import('../../src/geometry/shapes.js');
+    const engine = { name: 'failing', union: () => { throw new Error('Unable to complete output ring starting at [1, 2]'); }, difference: () => { throw new Error('Unable to complete output ring starting at [1, 2]'); } };
+    const run = () => combineShapes({ outline: rectangleLoop([0, 0], [10, 10], 0, 'outline'), cutouts: [circleLoop([10, 5], 4, 'cutouts[0]')] }, { engine });
+    expect(run).toThrow(InputError);
+    expect(run).toThrow(/^outline: the difference with cutouts\[0\] failed in the polygon clipper \(Unable to complete output ring/);
+  });
 });
