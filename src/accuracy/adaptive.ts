@@ -7,7 +7,10 @@
  * The reported value is the sum over the children of all leaves (the fine value); the sum over the leaves
  * themselves is the coarse value; the indicator of T is |Σ children − T| per component, and the estimate of
  * a component is the sum of its indicators (≥ |fine − coarse|, and for a converging rule an upper bound of
- * the coarse value's error, hence on the safe side for the fine one).
+ * the coarse value's error, hence on the safe side for the fine one). Each triangle is also integrated with a
+ * companion rule (the next lower safe degree), and a leaf's indicator is the larger of |Σ children − T| and
+ * |Σ children − Σ children by the companion rule|: the second check is independent of the first, so a chance
+ * agreement between parent and children (seen on kinks) does not make the estimate understate.
  *
  * Without a tolerance the leaves are the base mesh: the same two levels (mesh and its uniform refinement) as
  * measureSection. With a tolerance, the leaves with the largest indicators are split (each into its four
@@ -20,7 +23,7 @@
  */
 import { ops } from '../geometry/segments.js';
 import { type Mesh, TriangleMap } from '../mesh/mesh.js';
-import { getRule } from '../quadrature/rules.js';
+import { SAFE_DEGREES, getRule } from '../quadrature/rules.js';
 import { InputError } from '../errors.js';
 
 /**
@@ -42,8 +45,11 @@ export interface AdaptiveOptions {
    * a load that changes sign) needs a floor to be reachable at all.
    */
   floorFraction?: number;
-  /** Optional absolute tolerance per component (same units as the component); the larger one applies. */
-  absTolerance?: readonly (number | undefined)[];
+  /**
+   * Optional absolute tolerance per component (same units as the component), from the current fine values
+   * (e.g. a first moment to within tolerance × integral × part size); the larger one applies.
+   */
+  absTolerance?: (fine: Float64Array, tolerance: number) => readonly (number | undefined)[];
   /** Components that must meet the tolerance (default: all). */
   drive?: readonly number[];
   /** Cap on the triangles of the fine level (default 400 000). */
@@ -154,6 +160,9 @@ class GrowingMesh {
 export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts: AdaptiveOptions): AdaptiveResult {
   const start = Date.now();
   const rule = getRule(opts.degree);
+  // companion rule: the next lower safe degree (degree 1: the next higher), a second, independent check
+  const si = SAFE_DEGREES.indexOf(opts.degree);
+  const rule2 = getRule(SAFE_DEGREES[si > 0 ? si - 1 : 1]);
   if (rule.negativeWeight || rule.pointsOutside) {
     throw new InputError('degree', `rule of degree ${opts.degree} has points outside the triangle or negative weights; adaptive integration needs a safe degree`);
   }
@@ -170,11 +179,15 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
 
   // value of every stored triangle (K per triangle), grown as needed
   let vals = new Float64Array(Math.max(16, mesh.triangles.length / 3 * 8) * K);
+  let vals2 = new Float64Array(vals.length);
   const ensure = (nTri: number) => {
     if (nTri * K <= vals.length) return;
     const bigger = new Float64Array(Math.max(nTri * K, vals.length * 2));
     bigger.set(vals);
     vals = bigger;
+    const bigger2 = new Float64Array(bigger.length);
+    bigger2.set(vals2);
+    vals2 = bigger2;
   };
   const evalTriangle = (t: number) => {
     map.load(g.view, t);
@@ -192,6 +205,25 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
       for (let k = 0; k < K; k++) vals[o + k] += wj * out[k];
     }
     points += n;
+    for (let k = 0; k < K; k++) vals2[o + k] = 0;
+    for (let q = 0; q < rule2.n; q++) {
+      map.at(rule2.l1[q], rule2.l2[q]);
+      const wj = rule2.w[q] * map.jac * 0.5;
+      f(map.x + ox, map.y + oy, map.x, map.y, out);
+      for (let k = 0; k < K; k++) vals2[o + k] += wj * out[k];
+    }
+    points += rule2.n;
+  };
+  /**
+   * Indicator of leaf t, component k: the larger of |Σ children − t| (refinement) and
+   * |Σ children − Σ children by the companion rule| (rule), so that a chance agreement of one pair
+   * (a kink crossing a triangle can make parent and children err alike) does not hide the error.
+   */
+  const indicatorOf = (t: number, k: number): number => {
+    const c = firstChild[t];
+    let ch = 0, ch2 = 0;
+    for (let j = 0; j < 4; j++) { ch += vals[(c + j) * K + k]; ch2 += vals2[(c + j) * K + k]; }
+    return Math.max(Math.abs(ch - vals[t * K + k]), Math.abs(ch - ch2));
   };
 
   // children[t] = index of the first of t's four children, for leaves
@@ -230,7 +262,7 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
         const ch = a + b + d + e;
         add(fine, cf, k, ch);
         add(coarse, cc, k, vals[t * K + k]);
-        estimate[k] += Math.abs(ch - vals[t * K + k]);
+        estimate[k] += indicatorOf(t, k);
         scale[k] += Math.abs(a) + Math.abs(b) + Math.abs(d) + Math.abs(e);
       }
     }
@@ -243,8 +275,9 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
   if (opts.tolerance !== undefined) {
     const tol = opts.tolerance;
     const setTargets = () => {
+      const absTol = opts.absTolerance?.(fine, tol);
       for (let k = 0; k < K; k++) {
-        const abs = opts.absTolerance?.[k] ?? 0;
+        const abs = absTol?.[k] ?? 0;
         target[k] = Math.max(tol * Math.abs(fine[k]), tol * floorFraction * scale[k], abs, ROUNDOFF * 4 * scale[k]);
       }
     };
@@ -259,10 +292,10 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
       const r = new Float64Array(leaves.length);
       let total = 0;
       for (let i = 0; i < leaves.length; i++) {
-        const t = leaves[i], c = firstChild[t];
+        const t = leaves[i];
         let worst = 0;
         for (const k of drive) {
-          indicator[k] = Math.abs(vals[c * K + k] + vals[(c + 1) * K + k] + vals[(c + 2) * K + k] + vals[(c + 3) * K + k] - vals[t * K + k]);
+          indicator[k] = indicatorOf(t, k);
           const s = indicator[k] / target[k];
           if (s > worst) worst = s;
         }

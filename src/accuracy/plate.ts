@@ -212,6 +212,16 @@ const toQuantities = (values: MassValues, errors: MassValues): Record<MassKey, Q
   return q;
 };
 
+/** Width and height of the mesh's vertex box. */
+function boxSize(mesh: { coords: ArrayLike<number> }): [number, number] {
+  let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
+  for (let i = 0; i < mesh.coords.length; i += 2) {
+    const x = mesh.coords[i], y = mesh.coords[i + 1];
+    if (x < x0) x0 = x; if (x > x1) x1 = x; if (y < y0) y0 = y; if (y > y1) y1 = y;
+  }
+  return [x1 - x0, y1 - y0];
+}
+
 /** Integrate one layer's raw mass sums (about its mesh origin). */
 function layerSums(layer: ResolvedLayer, opts: IntegrationOptions): { result: AdaptiveResult; origin: [number, number] } {
   const part = preparePart(layer.part);
@@ -230,8 +240,15 @@ function layerSums(layer: ResolvedLayer, opts: IntegrationOptions): { result: Ad
     out[6] = zm; out[7] = zm * lx; out[8] = zm * ly;
     out[9] = rho * (top * top * top - z0 * z0 * z0) / 3;
   };
+  const size = Math.hypot(...boxSize(mesh));
   const result = integrateAdaptive(mesh, MASS_SUMS, f, {
     degree: opts.degree ?? DEFAULT_DEGREE, tolerance: opts.tolerance,
+    // first moments and products: to within tolerance × (mass or second moment) × size, like the centre
+    absTolerance: (s, tol) => {
+      const e1 = tol * Math.abs(s[0]) * size, e6 = tol * Math.abs(s[6]) * size;
+      const e2 = tol * Math.sqrt(Math.abs(s[3] * s[5]));
+      return [undefined, e1, e1, undefined, e2, undefined, undefined, e6, e6, undefined];
+    },
     maxTriangles: opts.maxTriangles, maxMillis: opts.maxMillis,
   });
   return { result, origin: mesh.origin };
@@ -292,8 +309,11 @@ export function integrateExpression(input: Part, text: string, opts: Integration
     if (!Number.isFinite(v)) throw new InputError(where, `is ${v} at (${x.toFixed(1)}, ${y.toFixed(1)}); expected a finite value everywhere on the part`);
     out[0] = v; out[1] = v * lx; out[2] = v * ly;
   };
+  const size = Math.hypot(...boxSize(mesh));
   const r = integrateAdaptive(mesh, 3, f, {
     degree: opts.degree ?? DEFAULT_DEGREE, tolerance: opts.tolerance,
+    // first moments: the point of action to within tolerance × part size
+    absTolerance: (s, tol) => [undefined, tol * Math.abs(s[0]) * size, tol * Math.abs(s[0]) * size],
     maxTriangles: opts.maxTriangles, maxMillis: opts.maxMillis,
   });
   const [ox, oy] = mesh.origin;
