@@ -4,10 +4,14 @@ import { defineMeasure } from './measure.def.js';
 import { defineRules } from './rules.def.js';
 import { defineCompare } from './compare.def.js';
 import { defineBatch } from './batch.def.js';
+import { defineIntegrate } from './integrate.def.js';
+import { defineMaterials } from './materials.def.js';
 
 export const COMMANDS: ((program: Command) => void)[] = [
   defineMeasure,
   defineRules,
   defineCompare,
   defineBatch,
+  defineIntegrate,
+  defineMaterials,
 ];

@@ -1,5 +1,5 @@
 import type { Command } from 'commander';
-import { intArg } from '../options.js';
+import { intArg, numberArg } from '../options.js';
 import { run } from '../run.js';
 
 export function defineMeasure(program: Command): void {
@@ -13,5 +13,15 @@ export function defineMeasure(program: Command): void {
     .option('--triangulation <mode>', 'delaunator (default), cdt2d or sweep')
     .option('--format <format>', 'input format: part-json, svg, geojson or wkt (default: by extension, then content)')
     .option('--units <unit>', 'length unit of drawing coordinates (SVG, GeoJSON, WKT): mm, cm, m, in, ft')
+    // mass properties (cli/commands/measureMass.ts)
+    .option('--thickness <t>', 'plate thickness in the part\'s length unit: a number or an expression in x and y')
+    .option('--density <rho>', 'density in kg/m³: a number or an expression in x and y')
+    .option('--material <name>', 'material by id or alias (see platewise materials) for the density')
+    .option('--materials-file <file>', 'JSON file of extra materials')
+    .option('--mass-unit <unit>', 'unit of mass: kg (default), g or lb')
+    .option('--inertia-unit <unit>', 'unit of mass moments of inertia: kg·m² (default), kg·mm², g·cm², lb·in² or lb·ft²')
+    .option('--tolerance <t>', 'relative tolerance for mass properties: refine adaptively until met', numberArg('--tolerance'))
+    .option('--max-triangles <n>', 'cap on triangles for --tolerance (default 400000)', intArg('--max-triangles'))
+    .option('--time-limit <seconds>', 'cap on time for --tolerance (default 30)', numberArg('--time-limit'))
     .action((file: string, opts) => run(async () => (await import('./measure.js')).measure(file, opts)));
 }

@@ -1,0 +1,29 @@
+import { readInputText } from '../../src/io/files.js';
+import { type MaterialTable, listMaterials, loadMaterialFile } from '../../src/materials/index.js';
+import { MASS_CAUTION } from '../../src/cautions.js';
+
+/** Read --materials-file when given. */
+export function userMaterials(path: string | undefined): MaterialTable | undefined {
+  if (path === undefined) return undefined;
+  const input = readInputText(path);
+  return loadMaterialFile(input.text, input.label);
+}
+
+export function materials(flags: { json?: boolean; materialsFile?: string }): string {
+  const list = listMaterials(userMaterials(flags.materialsFile));
+  if (flags.json) {
+    return JSON.stringify({
+      units: { density: 'kg/m3' },
+      materials: list.map((m) => ({ id: m.id, name: m.name, density: m.density, source: m.source, aliases: m.aliases, note: m.note ?? null, origin: m.origin })),
+      caution: MASS_CAUTION,
+    }, null, 2) + '\n';
+  }
+  const w = Math.max(2, ...list.map((m) => m.id.length));
+  const wn = Math.max(4, ...list.map((m) => m.name.length));
+  const lines = [`${'id'.padEnd(w)}  ${'name'.padEnd(wn)}  ${'kg/m³'.padStart(8)}  source`];
+  for (const m of list) {
+    lines.push(`${m.id.padEnd(w)}  ${m.name.padEnd(wn)}  ${String(m.density).padStart(8)}  ${m.source}${m.origin === 'built-in' ? '' : ` [${m.origin}]`}`);
+  }
+  lines.push('', 'Densities are nominal. ' + MASS_CAUTION);
+  return lines.join('\n') + '\n';
+}
