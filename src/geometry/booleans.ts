@@ -424,7 +424,28 @@ function rebuildRing(ring: ClipRing, src: Sources, grid: ChordGrid, eps: number,
       segs.push(subSegment(ss.seg, first.ta, last.tb));
     }
   }
-  return { loop: { segments: segs, where: [...names].join(' − ') } };
+  return { loop: { segments: dropTiny(segs, eps / 4), where: [...names].join(' − ') } };
+}
+
+/**
+ * Remove pieces shorter than `tiny` (two crossings closer than the validation tolerance, as nearly
+ * coincident edges make): the neighbours are joined, closing the gap exactly when one of them is a line.
+ */
+function dropTiny(segs: Segment[], tiny: number): Segment[] {
+  if (segs.length <= 3) return segs;
+  const out = segs.slice();
+  for (let i = 0; i < out.length && out.length > 3; ) {
+    const s = out[i];
+    const a = segmentPoint(s, 0), b = segmentPoint(s, 1);
+    if (Math.hypot(b[0] - a[0], b[1] - a[1]) > tiny || ops(s).length(s) > tiny) { i++; continue; }
+    out.splice(i, 1);
+    const pi = (i + out.length - 1) % out.length, ni = i % out.length;
+    const prev = out[pi], next = out[ni];
+    const end = segmentPoint(prev, 1), start = segmentPoint(next, 0);
+    if (prev.kind === 'line') out[pi] = { ...prev, x1: start[0], y1: start[1] };
+    else if (next.kind === 'line') out[ni] = { ...next, x0: end[0], y0: end[1] };
+  }
+  return out;
 }
 
 function clamp01(t: number): number {
