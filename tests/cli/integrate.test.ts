@@ -1,0 +1,95 @@
+/**
+ * The built command line (dist/cli/main.js): integrate, materials and the mass flags of measure.
+ */
+import { spawnSync } from 'node:child_process';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+
+const ROOT = join(import.meta.dirname, '..', '..');
+const CLI = join(ROOT, 'dist', 'cli', 'main.js');
+function platewise(args: string[], input?: string) {
+  const r = spawnSync(process.execPath, [CLI, ...args], { cwd: ROOT, input, encoding: 'utf8' });
+  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
+}
+
+// A vertical gate 2000 mm wide and 3000 mm high, its top edge 1000 mm below the water surface (y = 4000).
+const gate = JSON.stringify({ part: 'gate', units: 'mm', outline: { rectangle: { corner: [0, 0], size: [2000, 3000] } } });
+
+describe('platewise integrate', () => {
+  it('hydrostatic load on a rectangular gate: resultant and centre of pressure', () => {
+    // fluid-mechanics textbook result (from memory): F = γ·h̄·A, depth of the centre of pressure h̄ + I/(h̄·A)
+    // γ = 9.81 kN/m³ → p = 9.81·depth[m] kPa; h̄ = 2500 mm, I = b·h³/12, A = 6·10⁶ mm² → depth 2500 + 300 = 2800 mm
+    const r = platewise(['integrate', '-', '--format', 'part-json', '--expr', '9.81*(4000 - y)/1000', '--expr-unit', 'kPa', '--json'], gate);
+    expect(r.status, r.stderr).toBe(0);
+    const d = JSON.parse(r.stdout);
+    const F = 9.81 * 2.5 * 6e6; // kPa·mm²
+    expect(Math.abs(d.quantities.integral.value - F)).toBeLessThanOrEqual(Math.max(d.quantities.integral.error, 1e-9 * F));
+    expect(Math.abs(d.quantities.pointOfActionY.value - (4000 - 2800))).toBeLessThan(1e-8);
+    expect(Math.abs(d.quantities.pointOfActionX.value - 1000)).toBeLessThan(1e-8);
+    expect(d.units.integral).toBe('kPa·mm²');
+    const t = platewise(['integrate', '-', '--format', 'part-json', '--expr', '9.81*(4000 - y)/1000', '--expr-unit', 'kPa'], gate);
+    expect(t.stdout).toMatch(/^∫ f dA\s+147150000\s+±\s+\S+\s+kPa·mm²$/m);
+    expect(t.stdout).toMatch(/^point of action y\s+1200\s+±/m);
+  });
+
+  it('--tolerance reports how it stopped, in text and JSON', () => {
+    const expr = '1/sqrt((x-700)^2 + (y-1300)^2 + 1e-6)';
+    const j = JSON.parse(platewise(['integrate', '-', '--format', 'part-json', '--expr', expr, '--tolerance', '1e-7', '--json'], gate).stdout);
+    expect(j.method.stopped).toBe('tolerance');
+    const cap = platewise(['integrate', '-', '--format', 'part-json', '--expr', expr, '--tolerance', '1e-12', '--max-triangles', '1000'], gate);
+    expect(cap.status).toBe(0);
+    expect(cap.stdout).toMatch(/stopped at cap \(triangle limit reached/);
+  });
+
+  it('bad input: one line, exit 2', () => {
+    const r = platewise(['integrate', '-', '--format', 'part-json', '--expr', 'log(x - 1000)'], gate);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/^platewise: --expr: is NaN at \(\d+\.\d, \d+\.\d\); expected a finite value everywhere on the part\n$/);
+    const t = platewise(['integrate', '-', '--format', 'part-json', '--expr', 'x', '--tolerance', '2'], gate);
+    expect(t.status).toBe(2);
+    expect(t.stderr).toMatch(/^platewise: --tolerance: /);
+  });
+});
+
+describe('platewise materials and measure with mass', () => {
+  it('materials lists steel with its source, table and JSON', () => {
+    const t = platewise(['materials']);
+    expect(t.status).toBe(0);
+    expect(t.stdout).toMatch(/^steel\s+.*\s7850\s+EN 1993-1-1/m);
+    const j = JSON.parse(platewise(['materials', '--json']).stdout);
+    expect(j.materials.find((m: { id: string }) => m.id === 'steel').density).toBe(7850);
+  });
+
+  it('measure --thickness --material: 1 m × 1 m × 10 mm steel is 78.5 kg (173.06 lb), with the caution', () => {
+    // common practice, no source: 7.85 kg per m² per mm; 1 lb = 0.45359237 kg exactly (NIST SP 811)
+    const plate = JSON.stringify({ outline: { rectangle: { corner: [0, 0], size: [1000, 1000] } } });
+    const r = platewise(['measure', '-', '--format', 'part-json', '--thickness', '10', '--material', 'steel', '--json', '--mass-unit', 'lb'], plate);
+    expect(r.status, r.stderr).toBe(0);
+    const d = JSON.parse(r.stdout);
+    expect(Math.abs(d.massProperties.quantities.mass.value - 78.5 / 0.45359237)).toBeLessThan(1e-9);
+    expect(d.massProperties.units.mass).toBe('lb');
+    expect(d.massProperties.caution).toMatch(/competent person/);
+    const t = platewise(['measure', '-', '--format', 'part-json', '--thickness', '10', '--material', 'steel'], plate);
+    expect(t.stdout).toMatch(/^mass\s+78\.5\s+±/m);
+    expect(t.stdout).toMatch(/Caution: masses and centres of gravity/);
+  });
+
+  it('the layered sample reports every layer and the stacked mass', () => {
+    const r = platewise(['measure', 'samples/tapered-doubler-td5.json', '--json']);
+    expect(r.status, r.stderr).toBe(0);
+    const d = JSON.parse(r.stdout);
+    expect(d.layers.map((l: { layer: string }) => l.layer)).toEqual(['base', 'doubler']);
+    // doubler by hand: (200·150 − π·20²) mm² × mean thickness 12 mm (linear taper, symmetric hole) × 7850 kg/m³
+    const doubler = (200 * 150 - Math.PI * 400) * 12 * 7850e-9;
+    const got = d.massProperties.layers[1].quantities.mass;
+    expect(Math.abs(got.value - doubler)).toBeLessThanOrEqual(got.error + 1e-12);
+  });
+
+  it('thickness going negative is an error with its place', () => {
+    const plate = JSON.stringify({ outline: { rectangle: { corner: [0, 0], size: [1000, 80] } }, thickness: '20 - 0.025*x', material: 'steel' });
+    const r = platewise(['measure', '-', '--format', 'part-json'], plate);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/^platewise: thickness: is -?[\d.e-]+ at \((\d+)\.\d, \d+\.\d\); expected a positive thickness everywhere on the part\n$/);
+    expect(r.stdout).toBe('');
+  });
+});
