@@ -13,6 +13,7 @@ export function defineMeasure(program: Command): void {
     .option('--triangulation <mode>', 'delaunator (default), cdt2d or sweep')
     .option('--format <format>', 'input format: part-json, svg, geojson or wkt (default: by extension, then content)')
     .option('--units <unit>', 'length unit of drawing coordinates (SVG, GeoJSON, WKT): mm, cm, m, in, ft')
+    .option('--fabrication', 'add fabrication figures: cut length, pierces, bounding and minimum-area rectangles, scrap; masses with a thickness and a material or density')
     // mass properties (cli/commands/measureMass.ts)
     .option('--thickness <t>', 'plate thickness in the part\'s length unit: a number or an expression in x and y')
     .option('--density <rho>', 'density in kg/m³: a number or an expression in x and y')

@@ -5,6 +5,7 @@ import { readInputText } from '../../src/io/files.js';
 import { sectionJson, sectionText } from '../../src/io/output.js';
 import { type MassFlags, measurePlate } from './measureMass.js';
 import { checkReadOptions, readParts } from '../../src/io/read.js';
+import { type FabricationFlags, withFabrication } from './measureFabrication.js';
 
 export interface MeasureFlags { json?: boolean; degree?: number; levels?: number; triangulation?: string; format?: string; units?: string }
 
@@ -17,14 +18,14 @@ export function measure(file: string, flags: MeasureFlags & MassFlags): string {
   const input = readInputText(file);
   // thickness, density, materials and layers (cli/commands/measureMass.ts); undefined for a plain part
   const plate = measurePlate(input, flags, readOpts, { degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation as Triangulator | undefined });
-  if (plate !== undefined) return plate;
+  if (plate !== undefined) return withFabrication(plate, input, readOpts, { ...(flags as FabricationFlags), json: flags.json }, { degree: flags.degree, levels: flags.levels });
   const parts = readParts(input.text, input.label, readOpts);
   const results = parts.map((p) => measureSection(p, {
     degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation as Triangulator | undefined,
   }));
   if (flags.json) {
     const docs = results.map(sectionJson);
-    return JSON.stringify(docs.length === 1 ? docs[0] : { parts: docs }, null, 2) + '\n';
+    return withFabrication(JSON.stringify(docs.length === 1 ? docs[0] : { parts: docs }, null, 2) + '\n', input, readOpts, { ...(flags as FabricationFlags), json: flags.json }, { degree: flags.degree, levels: flags.levels });
   }
-  return results.map(sectionText).join('\n');
+  return withFabrication(results.map(sectionText).join('\n'), input, readOpts, { ...(flags as FabricationFlags), json: flags.json }, { degree: flags.degree, levels: flags.levels });
 }
