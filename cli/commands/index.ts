@@ -6,6 +6,8 @@ import { defineCompare } from './compare.def.js';
 import { defineBatch } from './batch.def.js';
 import { defineIntegrate } from './integrate.def.js';
 import { defineMaterials } from './materials.def.js';
+import { defineDraw } from './draw.def.js';
+import { defineReport } from './report.def.js';
 
 export const COMMANDS: ((program: Command) => void)[] = [
   defineMeasure,
@@ -14,4 +16,6 @@ export const COMMANDS: ((program: Command) => void)[] = [
   defineBatch,
   defineIntegrate,
   defineMaterials,
+  defineDraw,
+  defineReport,
 ];

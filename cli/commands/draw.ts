@@ -1,0 +1,43 @@
+import { measureSection } from '../../src/accuracy/measure.js';
+import { InputError } from '../../src/errors.js';
+import { TRIANGULATORS, type Triangulator } from '../../src/mesh/triangulate.js';
+import { readInputText, writeFileAtomic } from '../../src/io/files.js';
+import { checkReadOptions, readParts } from '../../src/io/read.js';
+
+export interface DrawFlags {
+  output?: string; mesh?: boolean; shade?: string; sheet?: boolean;
+  degree?: number; triangulation?: string; format?: string; units?: string;
+}
+
+/** `name.svg` → `name-<i>.svg` (1-based) for files holding several parts. */
+export function numberedName(target: string, i: number): string {
+  const m = /^(.*?)(\.[^./\\]*)?$/.exec(target)!;
+  return `${m[1]}-${i}${m[2] ?? ''}`;
+}
+
+export async function draw(file: string, flags: DrawFlags): Promise<string> {
+  if (flags.triangulation !== undefined && !TRIANGULATORS.includes(flags.triangulation as Triangulator)) {
+    throw new InputError('--triangulation', `expected one of ${TRIANGULATORS.join(', ')}, got "${flags.triangulation}"`);
+  }
+  if (flags.output !== undefined && flags.output.trim() === '') throw new InputError('--output', 'expected a file name, got an empty text');
+  const readOpts = checkReadOptions(flags.format, flags.units);
+  const input = readInputText(file);
+  const parts = readParts(input.text, input.label, readOpts);
+  const results = parts.map((p) => measureSection(p, { degree: flags.degree, triangulation: flags.triangulation as Triangulator | undefined }));
+  // the drawing stack is loaded only here, never by measure
+  const { drawPart, drawSheet } = await import('../../src/report/draw.js');
+  const opts = { mesh: flags.mesh, shade: flags.shade, degree: flags.degree };
+  if (flags.sheet || (results.length > 1 && flags.output === undefined)) {
+    const svg = await drawSheet(results, opts);
+    if (flags.output === undefined) return svg + '\n';
+    writeFileAtomic(flags.output, svg + '\n', [file]);
+    return '';
+  }
+  const svgs: string[] = [];
+  for (const r of results) svgs.push(await drawPart(r, opts));
+  if (flags.output === undefined) return svgs[0] + '\n';
+  const names = svgs.length === 1 ? [flags.output] : svgs.map((_, i) => numberedName(flags.output!, i + 1));
+  for (const n of names) if (n === file) throw new InputError(n, 'is the input file of this run; choose another output name (inputs are never overwritten)');
+  svgs.forEach((s, i) => writeFileAtomic(names[i], s + '\n', [file]));
+  return '';
+}
