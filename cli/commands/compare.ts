@@ -4,6 +4,7 @@ import { checkReadOptions, readParts } from '../../src/io/read.js';
 import type { Part } from '../../src/geometry/part.js';
 import { MASS_CAUTION } from '../../src/properties/fabrication.js';
 import { explainMissing, measurePart } from '../../src/qa/compute.js';
+import { modelFor } from '../../src/batch/task.js';
 import { plateFromFlags, resolvePlate } from '../../src/qa/plate.js';
 import { readReference } from '../../src/qa/reference.js';
 import { comparisonCsv, comparisonJson, comparisonText } from '../../src/qa/report.js';
@@ -41,13 +42,14 @@ export function compare(file: string, flags: CompareFlags): string {
     ? pickPart(parts, input.label, flags.part, '--part')
     : pickPart(parts, input.label, reference.part, `${refText.label}:part`);
   const plate = resolvePlate(plateSpec, part.units);
-  const figures = measurePart(part, plate, { degree: flags.degree, levels: flags.levels });
+  const model = modelFor(input.text, input.label, readOpts.format, part, parts.length);
+  const figures = measurePart(part, plate, { degree: flags.degree, levels: flags.levels, model });
   const comparison = compareAll(reference, figures.quantities, { lengthUnit: part.units, partSize: figures.size });
-  explainMissing(comparison.rows, plate);
+  explainMissing(comparison.rows, figures.known);
   const massStated = reference.values.some((v) => v.dimension === 'mass' || v.dimension === 'massMoment' || v.dimension === 'force');
   const meta = {
     file: input.label, part: part.name, reference: refText.label, lengthUnit: part.units,
-    plate: plate.thickness !== undefined || plate.density !== undefined ? plate : undefined,
+    plate: figures.plate.thickness !== undefined ? figures.plate : undefined,
     cautions: massStated ? [MASS_CAUTION] : [],
   };
   // a fail or inconclusive verdict is a result, not an error: print it and say so in the exit status

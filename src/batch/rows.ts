@@ -9,7 +9,8 @@
  *   width, height (axis-aligned bounding rectangle),
  *   cutLength, cutLengthOuter, cutLengthInner, pierces,
  *   blankWidth, blankHeight, blankAngle, blankArea, scrapFraction,
- *   netMass, netMassError, blankMass,
+ *   netMass, netMassError, blankMass (constant single-layer plates),
+ *   mass, massError (integrated mass properties: layered or varying plates, or when a stated value needs them),
  *   verdict (pass / fail / inconclusive, empty when nothing was stated), passes, fails, inconclusive,
  *   notPassed (each stated value that did not pass: "key verdict: stated S, computed C ± E, tolerance T"; "; "
  *   between them), error (why the part failed).
@@ -25,7 +26,7 @@ import type { BatchRow } from './task.js';
 const VALUE_KEYS = [
   'area', 'areaError', 'perimeter', 'centroidX', 'centroidY', 'Ix', 'Iy', 'Ixy', 'I1', 'I2', 'principalAngle',
   'width', 'height', 'cutLength', 'cutLengthOuter', 'cutLengthInner', 'pierces',
-  'blankWidth', 'blankHeight', 'blankAngle', 'blankArea', 'scrapFraction', 'netMass', 'netMassError', 'blankMass',
+  'blankWidth', 'blankHeight', 'blankAngle', 'blankArea', 'scrapFraction', 'netMass', 'netMassError', 'blankMass', 'mass', 'massError',
 ] as const;
 
 export const BATCH_CSV_HEADER: readonly string[] = [
@@ -84,7 +85,7 @@ export interface BatchSummary {
   partsFailed: number;
   /** Σ quantity over measured parts. */
   pieces: number;
-  /** Σ netMass × quantity, kg, over parts that have a mass; and its summed estimate. */
+  /** Σ netMass × quantity, kg (the integrated mass for layered or varying plates), over parts that have one; and its summed estimate. */
   netMassKg: number;
   netMassErrorKg: number;
   /** Σ blankMass × quantity, kg. */
@@ -125,9 +126,10 @@ export class SummaryBuilder {
     s.partsMeasured++;
     s.pieces += r.quantity;
     const q = r.quantities;
-    if (q.netMass) {
-      s.netMassKg += q.netMass.value * r.quantity;
-      s.netMassErrorKg += q.netMass.error * r.quantity;
+    const m = q.netMass ?? q.mass;
+    if (m) {
+      s.netMassKg += m.value * r.quantity;
+      s.netMassErrorKg += m.error * r.quantity;
       s.blankMassKg += (q.blankMass?.value ?? 0) * r.quantity;
     } else {
       s.partsWithoutMass++;

@@ -7,8 +7,12 @@ import { isInputError } from '../errors.js';
 import { readInputText } from '../io/files.js';
 import { readParts } from '../io/read.js';
 import type { Quantity } from '../properties/quantities.js';
-import { explainMissing, measurePart } from '../qa/compute.js';
+import { explainMissing, gapsOnly, measurePart, needsPlate, plainModel } from '../qa/compute.js';
 import { type PlateSpec, mergePlate, resolvePlate } from '../qa/plate.js';
+import { detectFormat } from '../io/detect.js';
+import { type InputFormat } from '../io/read.js';
+import { type PlateModel, readPlateModel } from '../io/partJson.js';
+import type { Part } from '../geometry/part.js';
 import { type Reference, readReference } from '../qa/reference.js';
 import { type ComparisonRow, type Verdict, compareAll } from '../qa/verdict.js';
 import type { Job } from './manifest.js';
@@ -57,11 +61,23 @@ function message(e: unknown): string {
   return `internal error: ${e instanceof Error ? e.message : String(e)}`;
 }
 
+/**
+ * The plate model of a part: a part JSON file's own (thickness, density, material, layers), else the part
+ * alone. `count` is how many parts the file gave (part JSON gives one).
+ */
+export function modelFor(text: string, label: string, format: InputFormat | undefined, part: Part, count: number): PlateModel {
+  const f = format ?? detectFormat(label === 'stdin' ? undefined : label, text);
+  if (f === 'part-json' && count === 1) return readPlateModel(text, label);
+  return plainModel(part);
+}
+
 export function runJob(job: Job, settings: JobSettings): BatchRow[] {
   let reference: Reference | null = null;
-  let parts;
+  let parts: Part[];
+  let text: string;
   try {
     const input = readInputText(job.path);
+    text = input.text;
     parts = readParts(input.text, job.file, { format: job.format, units: job.units });
     if (job.reference) {
       const rt = readInputText(job.reference.path);
@@ -76,7 +92,6 @@ export function runJob(job: Job, settings: JobSettings): BatchRow[] {
     if (dup) return [failed(job, `${sv.where}: "${sv.quantity}" is also stated in ${job.reference?.label} (${dup.where}); expected it in one place`)];
     stated.push(sv);
   }
-  const spec = mergePlate(settings.plate, job.plate);
   return parts.map((part, k) => {
     const row = failed(job, '');
     row.item = k + 1;
@@ -84,18 +99,21 @@ export function runJob(job: Job, settings: JobSettings): BatchRow[] {
     row.part = part.name;
     row.units = part.units;
     try {
-      const plate = resolvePlate(spec, part.units);
-      row.material = plate.material ?? null;
-      row.thickness = plate.thickness ?? null;
-      row.density = plate.density ?? null;
-      row.densitySource = plate.densitySource ?? null;
-      const f = measurePart(part, plate, { degree: settings.degree, levels: settings.levels });
+      const model = modelFor(text, job.file, job.format, part, parts.length);
+      // command-line settings fill what the file leaves unset; the row's own cells must not double the file's
+      const plate = resolvePlate(mergePlate(gapsOnly(model, settings.plate), job.plate), part.units);
+      const needMass = stated.some((s) => needsPlate(s.quantity) && s.quantity !== 'netMass' && s.quantity !== 'blankMass');
+      const f = measurePart(part, plate, { degree: settings.degree, levels: settings.levels, model, massProperties: needMass });
+      row.material = f.plate.material ?? null;
+      row.thickness = f.plate.thickness ?? null;
+      row.density = f.plate.density ?? null;
+      row.densitySource = f.plate.densitySource ?? null;
       row.quantities = f.quantities;
       row.warnings = f.section.warnings;
       const named = reference?.part;
       if (stated.length > 0 && (parts.length === 1 || named === undefined || named === part.name)) {
         const c = compareAll({ source: reference?.source ?? 'manifest', values: stated }, f.quantities, { lengthUnit: part.units, partSize: f.size });
-        explainMissing(c.rows, plate);
+        explainMissing(c.rows, f.known);
         row.verdict = c.verdict;
         row.counts = c.counts;
         row.comparison = c.rows;

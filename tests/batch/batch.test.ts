@@ -119,6 +119,29 @@ describe('batch exit statuses and output rules', () => {
     expect(row.counts).toEqual({ pass: 1, fail: 1, inconclusive: 0 });
   });
 
+  it('command-line plate settings fill only what a part file leaves unset; layered parts get the integrated mass', () => {
+    const mixed = join(dir, 'mixed');
+    mkdirSync(mixed);
+    // own 10 mm steel: 0.5 m² × 0.01 m × 7850 kg/m³ = 39.25 kg (EN 1993-1-1, 3.2.6)
+    writeFileSync(join(mixed, 'own.json'), JSON.stringify({ part: 'own plate data (invented)', units: 'mm', thickness: 10, material: 'steel', outline: { rectangle: { corner: [0, 0], size: [1000, 500] } } }));
+    // none: takes 6 mm aluminium (2700 kg/m³, EN 1999-1-1, 3.2.5): 0.1 m² × 0.006 m × 2700 = 1.62 kg
+    writeFileSync(join(mixed, 'plain.json'), JSON.stringify({ part: 'plain (invented)', units: 'mm', outline: { rectangle: { corner: [0, 0], size: [500, 200] } } }));
+    // two constant layers (invented): 200 × 100 × 10 steel on 100 × 100 × 5 steel = 1.57 + 0.3925 kg
+    writeFileSync(join(mixed, 'stack.json'), JSON.stringify({ part: 'stack (invented)', units: 'mm', material: 'steel', layers: [
+      { name: 'base', outline: { rectangle: { corner: [0, 0], size: [200, 100] } }, thickness: 10 },
+      { name: 'doubler', outline: { rectangle: { corner: [50, 0], size: [100, 100] } }, thickness: 5 },
+    ] }));
+    const r = platewise(['batch', 'mixed', '--thickness', '6 mm', '--material', 'aluminium', '--jsonl', '--quiet']);
+    expect(r.status, r.stdout).toBe(0);
+    const byFile = Object.fromEntries(r.stdout.trim().split('\n').map((l) => JSON.parse(l)).filter((l) => l.file).map((l) => [l.file, l]));
+    expect(byFile['own.json'].thickness).toBe(10);
+    expect(byFile['own.json'].quantities.netMass.value).toBeCloseTo(39.25, 9);
+    expect(byFile['plain.json'].thickness).toBe(6);
+    expect(byFile['plain.json'].quantities.netMass.value).toBeCloseTo(1.62, 9);
+    expect(byFile['stack.json'].quantities.netMass).toBeUndefined();
+    expect(byFile['stack.json'].quantities.mass.value).toBeCloseTo(1.57 + 0.3925, 9);
+  });
+
   it('refuses an existing output without --force, an input even with --force; bad manifest writes nothing', () => {
     writeFileSync(join(dir, 'taken.csv'), 'keep me');
     const r = platewise(['batch', 'good', '-o', 'taken.csv']);

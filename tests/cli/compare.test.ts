@@ -96,6 +96,28 @@ describe('compare: verdicts and exit statuses', () => {
     expect(inch.status).toBe(0);
   });
 
+  it('mass properties from the part file\'s own thickness and material (src/accuracy/plate.ts)', () => {
+    // 1000 × 500 × 10 mm steel (7850 kg/m³, EN 1993-1-1, 3.2.6): m = 39.25 kg; weight m·g with standard gravity
+    // 9.80665 m/s² (NIST SP 811); mass moment about the plate normal m(a² + b²)/12 (thin rectangular plate,
+    // handbook closed form) = 39.25·(1 + 0.25)/12 kg·m²; centre of mass at half the thickness
+    const own = file('own.json', { part: 'sheet with plate data (invented)', units: 'mm', thickness: 10, material: 'steel', outline: { rectangle: { corner: [0, 0], size: [1000, 500] } } });
+    const m = 39.25;
+    const ref = file('own.ref.json', { values: [
+      { quantity: 'mass', value: m, unit: 'kg', tolerance: '1e-9 rel' },
+      { quantity: 'netMass', value: m * 1000, unit: 'g', tolerance: '1e-9 rel' },
+      { quantity: 'weight', value: (m * 9.80665) / 1000, unit: 'kN', tolerance: '1e-9 rel' },
+      { quantity: 'massMomentZ', value: (m * 1.25) / 12, unit: 'kg·m²', tolerance: '1e-9 rel' },
+      { quantity: 'massCentreZ', value: 5, unit: 'mm' },
+    ] });
+    const r = platewise(['compare', own, '--reference', ref, '--json']);
+    expect(r.status, r.stderr).toBe(0);
+    expect(JSON.parse(r.stdout).counts).toEqual({ pass: 5, fail: 0, inconclusive: 0 });
+    // a thickness in the file and on the command line: one place only (exit 2)
+    const twice = platewise(['compare', own, '--reference', ref, '--thickness', '8']);
+    expect(twice.status).toBe(2);
+    expect(twice.stderr).toMatch(/^platewise: --thickness: the part file already gives a thickness/);
+  });
+
   it('--csv is RFC 4180 with one record per stated value and round-trip numbers', () => {
     const ref = file('csvout.json', { values: [{ quantity: 'area', value: A, unit: 'mm²' }, { quantity: 'Ix', value: Ix * 1.01, unit: 'mm⁴' }] });
     const r = platewise(['compare', plate, '--reference', ref, '--csv']);
