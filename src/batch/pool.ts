@@ -23,56 +23,70 @@ function crashedRow(job: Job, why: string): BatchRow {
   };
 }
 
+/** Jobs kept in flight per worker, so that a worker never waits for the main thread between jobs. */
+const IN_FLIGHT = 2;
+
 export function runPool(jobs: readonly Job[], options: PoolOptions): Promise<void> {
   const url = options.workerUrl ?? new URL('./worker.js', import.meta.url);
   const size = Math.max(1, Math.min(options.size, jobs.length));
-  let next = 0;
+  const queue: number[] = jobs.map((_, i) => i);
   let done = 0;
   return new Promise<void>((resolveAll, rejectAll) => {
     if (jobs.length === 0) { resolveAll(); return; }
+    let stopped = false;
+    const live = new Set<Worker>();
+    const complete = (rows: BatchRow[], index: number): boolean => {
+      try {
+        options.onRows(rows, jobs[index]);
+      } catch (e) {
+        stopped = true;
+        for (const w of live) void w.terminate();
+        rejectAll(e);
+        return false;
+      }
+      done++;
+      if (done === jobs.length) {
+        for (const w of live) void w.terminate();
+        resolveAll();
+      }
+      return true;
+    };
     const start = () => {
       const w = new Worker(url);
-      let current = -1;
-      let finished = false;
-      const give = () => {
-        if (next >= jobs.length) {
-          finished = true;
-          void w.terminate();
-          return;
+      live.add(w);
+      const inFlight: number[] = []; // job indices sent, in the order the worker runs them
+      let gone = false;
+      const fill = () => {
+        while (!stopped && inFlight.length < IN_FLIGHT && queue.length > 0) {
+          const k = queue.shift()!;
+          inFlight.push(k);
+          w.postMessage({ id: k, job: jobs[k], settings: options.settings });
         }
-        current = next++;
-        w.postMessage({ id: current, job: jobs[current], settings: options.settings });
-      };
-      const complete = (rows: BatchRow[], index: number) => {
-        try {
-          options.onRows(rows, jobs[index]);
-        } catch (e) {
-          finished = true;
+        if (inFlight.length === 0 && !gone) {
+          gone = true;
+          live.delete(w);
           void w.terminate();
-          rejectAll(e);
-          return;
         }
-        done++;
-        if (done === jobs.length) resolveAll();
       };
       w.on('message', (msg: { id: number; rows: BatchRow[] }) => {
-        current = -1;
-        complete(msg.rows, msg.id);
-        give();
+        const at = inFlight.indexOf(msg.id);
+        if (at >= 0) inFlight.splice(at, 1);
+        if (complete(msg.rows, msg.id)) fill();
       });
       const lost = (why: string) => {
-        if (finished) return;
-        finished = true;
-        if (current >= 0) {
-          const k = current;
-          current = -1;
-          complete([crashedRow(jobs[k], why)], k);
-        }
-        if (next < jobs.length) start();
+        if (gone) return;
+        gone = true;
+        live.delete(w);
+        if (stopped) return;
+        // the job it was running fails; the ones waiting behind it go back to the queue
+        const [running, ...waiting] = inFlight;
+        queue.unshift(...waiting);
+        if (running !== undefined && !complete([crashedRow(jobs[running], why)], running)) return;
+        if (queue.length > 0) start();
       };
       w.on('error', (e) => lost(e instanceof Error ? e.message : String(e)));
       w.on('exit', (code) => lost(`exit code ${code}`));
-      give();
+      fill();
     };
     for (let k = 0; k < size; k++) start();
   });
