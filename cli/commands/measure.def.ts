@@ -10,6 +10,7 @@ export function defineMeasure(program: Command): void {
     .option('--json', 'print JSON instead of a table')
     .option('--degree <n>', 'Dunavant rule degree on curved triangles (1-20)', intArg('--degree'))
     .option('--levels <n>', 'uniform refinements after the base mesh (the last two give the estimate)', intArg('--levels'))
+    .option('--method <method>', 'auto (straight-edged parts by the exact boundary formula) or mesh')
     .option('--triangulation <mode>', 'delaunator (default), cdt2d or sweep')
     .option('--format <format>', 'input format: part-json, svg, geojson or wkt (default: by extension, then content)')
     .option('--units <unit>', 'length unit of drawing coordinates (SVG, GeoJSON, WKT): mm, cm, m, in, ft')

@@ -7,12 +7,13 @@ import { type MassFlags, measurePlate } from './measureMass.js';
 import { checkReadOptions, readParts } from '../../src/io/read.js';
 import { type FabricationFlags, withFabrication } from './measureFabrication.js';
 
-export interface MeasureFlags { json?: boolean; degree?: number; levels?: number; triangulation?: string; format?: string; units?: string }
+export interface MeasureFlags { json?: boolean; degree?: number; levels?: number; triangulation?: string; method?: string; format?: string; units?: string }
 
 export function measure(file: string, flags: MeasureFlags & MassFlags): string {
   if (flags.triangulation !== undefined && !TRIANGULATORS.includes(flags.triangulation as Triangulator)) {
     throw new InputError('--triangulation', `expected one of ${TRIANGULATORS.join(', ')}, got "${flags.triangulation}"`);
   }
+  if (flags.method !== undefined && flags.method !== 'auto' && flags.method !== 'mesh') throw new InputError('--method', `expected auto or mesh, got "${flags.method}"`);
   if (flags.levels !== undefined && (flags.levels < 1 || flags.levels > 6)) throw new InputError('--levels', `expected 1 to 6, got ${flags.levels}`);
   const readOpts = checkReadOptions(flags.format, flags.units);
   const input = readInputText(file);
@@ -21,7 +22,7 @@ export function measure(file: string, flags: MeasureFlags & MassFlags): string {
   if (plate !== undefined) return withFabrication(plate, input, readOpts, { ...(flags as FabricationFlags), json: flags.json }, { degree: flags.degree, levels: flags.levels });
   const parts = readParts(input.text, input.label, readOpts);
   const results = parts.map((p) => measureSection(p, {
-    degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation as Triangulator | undefined,
+    degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation as Triangulator | undefined, method: flags.method as 'auto' | 'mesh' | undefined,
   }));
   if (flags.json) {
     const docs = results.map(sectionJson);

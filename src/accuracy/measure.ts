@@ -8,7 +8,8 @@
  */
 import { type Part, allLoops, loopLength, normalizePart, partBox } from '../geometry/part.js';
 import { validatePart } from '../geometry/validate.js';
-import { type MeshOptions, buildMesh } from '../mesh/build.js';
+import { type MeshOptions, buildMesh, localOrigin } from '../mesh/build.js';
+import { boundaryMoments } from '../properties/boundary.js';
 import type { Triangulator } from '../mesh/triangulate.js';
 import { type Mesh, countCurved, triangleCount } from '../mesh/mesh.js';
 import { refineUniform, selectTriangles, splitByCurvature } from '../mesh/refine.js';
@@ -22,6 +23,11 @@ export interface MeasureOptions extends MeshOptions {
   degree?: number;
   /** Number of uniform refinements after the base mesh (≥ 1; the last two levels give the estimate). */
   levels?: number;
+  /**
+   * 'auto' (default): straight-edged parts use the exact boundary formula (Green's theorem), everything
+   * else the mesh; 'mesh': always the mesh. More than one refinement level also forces the mesh.
+   */
+  method?: 'auto' | 'mesh';
 }
 
 export interface LevelResult {
@@ -33,7 +39,9 @@ export interface LevelResult {
 export interface MethodInfo {
   degree: number;
   rulePoints: number;
-  estimator: 'uniform refinement';
+  /** How the numbers were made: the mesh with refinement, or the exact boundary formula (straight edges). */
+  path: 'mesh' | 'boundary';
+  estimator: 'uniform refinement' | 'exact boundary formula';
   /** Triangles of the base mesh and of the finest mesh used. */
   baseTriangles: number;
   triangles: number;
@@ -71,6 +79,61 @@ export function exactFigures(part: Part): ExactFigures {
   return { perimeter, box: partBox(part) };
 }
 
+/** principalAngle is undefined when I1 and I2 are equal within their estimates. */
+function checkPrincipalAngle(q: SectionQuantities, warnings: string[]): void {
+  if (!(q.I1.value - q.I2.value > q.I1.error + q.I2.error)) {
+    q.principalAngle = { value: 0, error: 90 };
+    warnings.push('I1 and I2 are equal within their estimates: every centroidal axis is a principal axis, so principalAngle is not defined (reported as 0 ± 90°).');
+  } else if (q.principalAngle.error > 90) {
+    q.principalAngle.error = 90;
+  }
+}
+
+/**
+ * Straight-edged part, polynomial integrands: the boundary formula is exact, so each estimate is the
+ * round-off allowance alone. The mesh is built only if someone asks for it (drawings).
+ */
+function boundaryResult(part: Part, moments: Float64Array, origin: [number, number], exact: ExactFigures, degree: number, options: MeasureOptions): SectionResult {
+  const values = sectionFromMoments(moments, origin, exact);
+  const floor = roundoffFloor(moments, origin, values);
+  const quantities = {} as SectionQuantities;
+  for (const info of SECTION_QUANTITIES) {
+    const k = info.key as SectionKey;
+    quantities[k] = { value: values[k], error: floor[k] };
+  }
+  const warnings: string[] = [];
+  checkPrincipalAngle(quantities, warnings);
+  let vertices = 0;
+  for (const r of part.regions) for (const l of [r.outer, ...r.holes]) vertices += l.segments.length;
+  let mesh: Mesh | undefined;
+  return {
+    part: part.name,
+    units: part.units,
+    quantities,
+    method: {
+      degree,
+      rulePoints: getRule(degree).n,
+      path: 'boundary',
+      estimator: 'exact boundary formula',
+      baseTriangles: 0,
+      triangles: 0,
+      curvedTriangles: 0,
+      vertices,
+      refinementLevels: 0,
+      chordSplits: 0,
+      triangulation: options.triangulation ?? 'delaunator',
+      minJacobianRatio: 1,
+      localOrigin: origin,
+    },
+    warnings,
+    levels: [{ level: 0, triangles: 0, values }],
+    geometry: {
+      part,
+      get mesh() { return (mesh ??= buildMesh(part, options).mesh); },
+    },
+  };
+}
+
 function allTriangles(m: Mesh): Uint32Array {
   const n = m.triangles.length / 3;
   const out = new Uint32Array(n);
@@ -96,6 +159,11 @@ export function measureSection(input: Part, options: MeasureOptions = {}): Secti
   const levelsWanted = Math.max(1, Math.floor(options.levels ?? 1));
   const part = preparePart(input);
   const exact = exactFigures(part);
+  if ((options.method ?? 'auto') === 'auto' && levelsWanted === 1) {
+    const origin = localOrigin(part);
+    const moments = boundaryMoments(part, origin);
+    if (moments) return boundaryResult(part, moments, origin, exact, degree, options);
+  }
   const { mesh, chordSplits } = buildMesh(part, options);
 
   // Straight triangles integrate the moment integrands (polynomials of degree 2) exactly with the degree-2
@@ -126,13 +194,7 @@ export function measureSection(input: Part, options: MeasureOptions = {}): Secti
     quantities[k] = { value: fine[k], error: diff + floor[k] } satisfies Quantity;
   }
   const warnings: string[] = [];
-  const spread = fine.I1 - fine.I2;
-  if (!(spread > quantities.I1.error + quantities.I2.error)) {
-    quantities.principalAngle = { value: 0, error: 90 };
-    warnings.push('I1 and I2 are equal within their estimates: every centroidal axis is a principal axis, so principalAngle is not defined (reported as 0 ± 90°).');
-  } else if (quantities.principalAngle.error > 90) {
-    quantities.principalAngle.error = 90;
-  }
+  checkPrincipalAngle(quantities, warnings);
   if (!(minJac > 0.01)) warnings.push(`a curved triangle is strongly distorted (smallest Jacobian ratio ${minJac.toPrecision(2)}); treat the estimate with care.`);
 
   return {
@@ -142,6 +204,7 @@ export function measureSection(input: Part, options: MeasureOptions = {}): Secti
     method: {
       degree,
       rulePoints: rule.n,
+      path: 'mesh',
       estimator: 'uniform refinement',
       baseTriangles: triangleCount(mesh),
       triangles: levels[levels.length - 1].triangles,

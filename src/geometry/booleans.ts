@@ -18,6 +18,7 @@
  * Fast path: when there are no added shapes and a cut-out is clear of the outline and of every other
  * cut-out (by exact bounding boxes) and lies inside the outline, it stays a plain hole without clipping.
  */
+import { overlappingPairs } from './boxgrid.js';
 import polygonClipping from 'polygon-clipping';
 import { InputError } from '../errors.js';
 import { bezierSubCurve } from './curves.js';
@@ -274,13 +275,19 @@ export function combineShapes(input: BooleanInput, options: BooleanOptions = {})
   const plain: Loop[] = [];
   const clipped: Loop[] = [];
   if (add.length === 0) {
-    const segBoxes = outline.segments.map((s) => ops(s).bbox(s));
-    const boxes = cutouts.map(loopBox);
+    // boxes of the outline's segments, then of the cut-outs; a cut-out is clear when its box meets no other
+    const nSeg = outline.segments.length;
+    const flat = new Float64Array(4 * (nSeg + cutouts.length));
+    outline.segments.forEach((s, i) => flat.set(ops(s).bbox(s), 4 * i));
+    cutouts.forEach((c, i) => flat.set(loopBox(c), 4 * (nSeg + i)));
+    const touched = new Uint8Array(cutouts.length);
+    overlappingPairs(flat, (i, j) => {
+      if (i >= nSeg) touched[i - nSeg] = 1;
+      if (j >= nSeg) touched[j - nSeg] = 1;
+    });
     cutouts.forEach((c, i) => {
-      const b = boxes[i];
-      const clear = !segBoxes.some((sb) => boxesOverlap(sb, b)) && !boxes.some((o, j) => j !== i && boxesOverlap(o, b));
       const [px, py] = probePoint(c);
-      if (clear && pointInLoop(px, py, outline)) plain.push(c); else clipped.push(c);
+      if (!touched[i] && pointInLoop(px, py, outline)) plain.push(c); else clipped.push(c);
     });
   } else {
     clipped.push(...cutouts);

@@ -7,6 +7,7 @@
  * recursive subdivision on the exact curve down to the touching tolerance.
  */
 import { InputError } from '../errors.js';
+import { overlappingPairs } from './boxgrid.js';
 import { pointInLoop } from './nesting.js';
 import { type Loop, type Part, type Region, loopSignedArea, partBox } from './part.js';
 import { type ArcSegment, type Box, type LineSegment, type Segment, ops, segmentEnd, segmentPoint, segmentStart } from './segments.js';
@@ -15,7 +16,6 @@ interface SegRef {
   seg: Segment;
   loop: number;
   index: number;
-  box: Box;
 }
 
 interface Hit { x: number; y: number; ta: number; tb: number }
@@ -41,22 +41,20 @@ export function validatePart(part: Part): number {
 
   loops.forEach((l, li) => checkLoop(l, li, tol));
 
-  // all segments, sweep-and-prune on x
-  const refs: SegRef[] = [];
+  // all segments; candidate pairs from a uniform grid over their boxes (flat arrays: parts reach 10^6 edges)
+  let nSeg = 0;
+  for (const l of loops) nSeg += l.segments.length;
+  const boxes = new Float64Array(4 * nSeg);
+  const segLoop = new Int32Array(nSeg), segIndex = new Int32Array(nSeg);
+  const segs: Segment[] = new Array(nSeg);
+  let k = 0;
   loops.forEach((l, li) => l.segments.forEach((seg, index) => {
     const b = ops(seg).bbox(seg);
-    refs.push({ seg, loop: li, index, box: [b[0] - tol, b[1] - tol, b[2] + tol, b[3] + tol] });
+    boxes[4 * k] = b[0] - tol; boxes[4 * k + 1] = b[1] - tol; boxes[4 * k + 2] = b[2] + tol; boxes[4 * k + 3] = b[3] + tol;
+    segs[k] = seg; segLoop[k] = li; segIndex[k] = index;
+    k++;
   }));
-  refs.sort((a, b) => a.box[0] - b.box[0]);
-  const active: SegRef[] = [];
-  for (const r of refs) {
-    for (let k = active.length - 1; k >= 0; k--) if (active[k].box[2] < r.box[0]) { active[k] = active[active.length - 1]; active.pop(); }
-    for (const a of active) {
-      if (a.box[1] > r.box[3] || r.box[1] > a.box[3]) continue;
-      checkPair(a, r, loops, tol);
-    }
-    active.push(r);
-  }
+  overlappingPairs(boxes, (i, j) => checkPair({ seg: segs[i], loop: segLoop[i], index: segIndex[i] }, { seg: segs[j], loop: segLoop[j], index: segIndex[j] }, loops, tol));
 
   for (const l of loops) checkArea(l, tol);
 
@@ -268,22 +266,17 @@ const inside = (a: Box, b: Box) => a[0] >= b[0] && a[1] >= b[1] && a[2] <= b[2] 
 function checkHoleNesting(holes: Loop[]): void {
   if (holes.length < 2) return;
   const boxes = holes.map(looseBox);
-  const order = holes.map((_, i) => i).sort((i, j) => boxes[i][0] - boxes[j][0]);
-  const active: number[] = [];
-  for (const i of order) {
-    for (let k = active.length - 1; k >= 0; k--) if (boxes[active[k]][2] < boxes[i][0]) active.splice(k, 1);
-    for (const j of active) {
-      if (boxes[j][1] > boxes[i][3] || boxes[i][1] > boxes[j][3]) continue;
-      for (const [inner, outer] of [[i, j], [j, i]]) {
-        if (!inside(boxes[inner], boxes[outer])) continue;
-        const p = loopProbe(holes[inner]);
-        if (pointInLoop(p[0], p[1], holes[outer])) {
-          throw new InputError(holes[inner].where ?? 'cutout', `lies inside ${holes[outer].where ?? 'another cut-out'}; cut-outs must not overlap`);
-        }
+  const flat = new Float64Array(4 * holes.length);
+  boxes.forEach((b, i) => flat.set(b, 4 * i));
+  overlappingPairs(flat, (i, j) => {
+    for (const [inner, outer] of [[i, j], [j, i]]) {
+      if (!inside(boxes[inner], boxes[outer])) continue;
+      const p = loopProbe(holes[inner]);
+      if (pointInLoop(p[0], p[1], holes[outer])) {
+        throw new InputError(holes[inner].where ?? 'cutout', `lies inside ${holes[outer].where ?? 'another cut-out'}; cut-outs must not overlap`);
       }
     }
-    active.push(i);
-  }
+  });
 }
 
 function checkRegionNesting(regions: Region[]): void {

@@ -49,8 +49,10 @@ export function sectionText(r: SectionResult): string {
   const ordered: Record<string, Quantity> = {};
   for (const i of SECTION_QUANTITIES) ordered[i.key] = (r.quantities as Record<string, Quantity>)[i.key];
   const m = r.method;
-  const method = `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on curved triangles; ${m.baseTriangles} triangles ` +
-    `(${m.curvedTriangles} curved) refined ${m.refinementLevels}× to ${m.triangles}; estimate = |refined − coarse| + round-off allowance`;
+  const method = m.path === 'boundary'
+    ? `method: straight edges only, so the exact boundary formula (Green's theorem) over ${m.vertices} edges; estimate = round-off allowance (use --method mesh for the mesh)`
+    : `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on curved triangles; ${m.baseTriangles} triangles ` +
+      `(${m.curvedTriangles} curved) refined ${m.refinementLevels}× to ${m.triangles}; estimate = |refined − coarse| + round-off allowance`;
   const parts = [head, '', renderRows(quantityRows(ordered, r.units)), '', method];
   for (const w of r.warnings) parts.push(`warning: ${w}`);
   parts.push('', GEOMETRY_CAUTION);

@@ -31,15 +31,8 @@ export function localOrigin(part: Part): [number, number] {
 
 export interface MeshReport { mesh: Mesh; chordSplits: number; passes: number }
 
-/**
- * Mesh a validated, normalised part. Coordinates are moved to the local origin first.
- */
-export function buildMesh(part: Part, options: MeshOptions = {}): MeshReport {
-  const maxTurn = options.maxTurn ?? DEFAULT_MAX_TURN;
-  const maxBulge = options.maxBulge ?? DEFAULT_MAX_BULGE;
-  const origin = localOrigin(part);
-  const local = translatePart(part, -origin[0], -origin[1]);
-
+/** Segments of all loops (regions' outer loops then holes) and their initial chord vertices. */
+function initialChords(local: Part, maxTurn: number): { segments: Segment[]; loops: BVert[][] } {
   const segments: Segment[] = [];
   const loops: BVert[][] = [];
   for (const r of local.regions) {
@@ -54,6 +47,33 @@ export function buildMesh(part: Part, options: MeshOptions = {}): MeshReport {
       loops.push(verts);
     }
   }
+  return { segments, loops };
+}
+
+/**
+ * The chorded boundary the mesher starts from (after separating crowded chords, before interior points),
+ * in local coordinates: for benchmarks that give other triangulators exactly the same boundary.
+ */
+export function chordedBoundary(part: Part, options: MeshOptions = {}): { coords: Float64Array; loopStarts: number[] } {
+  const origin = localOrigin(part);
+  const { segments, loops } = initialChords(translatePart(part, -origin[0], -origin[1]), options.maxTurn ?? DEFAULT_MAX_TURN);
+  separateChords(loops, segments);
+  const c = collectChords(loops, segments);
+  const coords = new Float64Array(2 * c.n);
+  for (let i = 0; i < c.n; i++) { coords[2 * i] = c.x0[i]; coords[2 * i + 1] = c.y0[i]; }
+  const loopStarts: number[] = [];
+  let k = 0;
+  for (const v of loops) { loopStarts.push(k); k += v.length; }
+  return { coords, loopStarts };
+}
+
+/**
+ * Mesh a validated, normalised part. Coordinates are moved to the local origin first.
+ */
+export function buildMesh(part: Part, options: MeshOptions = {}): MeshReport {
+  const maxBulge = options.maxBulge ?? DEFAULT_MAX_BULGE;
+  const origin = localOrigin(part);
+  const { segments, loops } = initialChords(translatePart(part, -origin[0], -origin[1]), options.maxTurn ?? DEFAULT_MAX_TURN);
 
   let splits = 0;
   const T = (globalThis as { PLATEWISE_TIMING?: Record<string, number> }).PLATEWISE_TIMING;

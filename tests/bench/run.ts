@@ -1,0 +1,153 @@
+/**
+ * `npm run bench`: platewise against peers measured in the same run. Prints a Markdown table (paste it into
+ * the README's performance section) and writes bench-results.json. Never part of `npm test`.
+ *
+ * Usage: node dist/tests/bench/run.js [--quick] [--only name,name]
+ */
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
+import { availableParallelism, cpus, tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import ConstrainautorModule from '@kninnug/constrainautor';
+import Delaunator from 'delaunator';
+import earcut from 'earcut';
+import { measureSection, preparePart } from '../../src/accuracy/measure.js';
+import { compileExpression } from '../../src/functions/index.js';
+import { chordedBoundary } from '../../src/mesh/build.js';
+import { greenMoments } from './green.js';
+import { panel, squareHoles } from './cases.js';
+
+const Constrainautor = ConstrainautorModule as unknown as new (del: Delaunator<ArrayLike<number>>) => { constrainOne(a: number, b: number): void };
+const ROOT = join(dirname(fileURLToPath(import.meta.url)), '..', '..', '..');
+const args = process.argv.slice(2);
+const quick = args.includes('--quick');
+const onlyArg = args.indexOf('--only');
+const only = onlyArg >= 0 ? new Set(args[onlyArg + 1].split(',')) : null;
+const want = (name: string) => only === null || only.has(name);
+
+/** Median wall time in ms of `reps` runs after one warm-up. */
+function time(fn: () => unknown, reps = quick ? 3 : 7): number {
+  fn();
+  const ts: number[] = [];
+  for (let i = 0; i < reps; i++) {
+    const t = performance.now();
+    fn();
+    ts.push(performance.now() - t);
+  }
+  ts.sort((a, b) => a - b);
+  return ts[ts.length >> 1];
+}
+
+interface Row { case: string; ours: string; peer: string; ratio: string; target: string; met: string }
+const rows: Row[] = [];
+const results: Record<string, unknown> = {};
+const f = (ms: number) => ms < 10 ? ms.toFixed(2) : ms.toFixed(0);
+
+function peerTriangulations(coords: Float64Array, loopStarts: number[]) {
+  const n = coords.length / 2;
+  const holes = loopStarts.slice(1);
+  const flat = Array.from(coords);
+  const edges: [number, number][] = [];
+  for (let l = 0; l < loopStarts.length; l++) {
+    const a = loopStarts[l], b = l + 1 < loopStarts.length ? loopStarts[l + 1] : n;
+    for (let i = a; i < b; i++) edges.push([i, i + 1 < b ? i + 1 : a]);
+  }
+  const tEarcut = time(() => earcut(flat, holes));
+  const tDel = time(() => {
+    const d = new Delaunator(coords);
+    const c = new Constrainautor(d);
+    for (const [a, b] of edges) c.constrainOne(a, b);
+  });
+  return { tEarcut, tDel };
+}
+
+function panelCase(name: string, nx: number, ny: number, d: number) {
+  const part = preparePart(panel(2000, 1000, nx, ny, d));
+  const { coords, loopStarts } = chordedBoundary(part);
+  const { tEarcut, tDel } = peerTriangulations(coords, loopStarts);
+  const tOurs = time(() => measureSection(part), quick ? 3 : 5);
+  const best = Math.min(tEarcut, tDel);
+  const r = tOurs / best;
+  results[name] = { vertices: coords.length / 2, oursMs: tOurs, earcutMs: tEarcut, delaunatorConstrainautorMs: tDel, ratio: r };
+  rows.push({ case: `${name}: measure vs bare triangulation of the same boundary (${coords.length / 2} vertices)`, ours: f(tOurs), peer: `earcut ${f(tEarcut)}, delaunator+constrainautor ${f(tDel)}`, ratio: r.toFixed(2), target: name === 'panel-1250' ? '≤ 1.5' : '—', met: name === 'panel-1250' ? (r <= 1.5 ? 'yes' : 'no') : '—' });
+}
+
+if (want('panel-1250')) panelCase('panel-1250', 50, 25, 20);
+if (want('panel-10000') && !quick) panelCase('panel-10000', 200, 50, 6);
+
+if (want('scaling')) {
+  // straight-edged parts from 10^3 to 10^6 vertices, each in a fresh process for a clean peak-memory reading
+  const sizes = quick ? [1e3, 1e4, 1e5] : [1e3, 1e4, 1e5, 1e6];
+  const pts: { n: number; ms: number; greenMs: number; rssMB: number }[] = [];
+  for (const n of sizes) {
+    const r = spawnSync(process.execPath, [join(ROOT, 'dist', 'tests', 'bench', 'child.js'), 'square', String(n)], { encoding: 'utf8' });
+    if (r.status !== 0) throw new Error(`child failed for n=${n}: ${r.stderr}`);
+    pts.push(JSON.parse(r.stdout));
+  }
+  const a = pts[0], b = pts[pts.length - 1];
+  const exponent = Math.log(b.ms / a.ms) / Math.log(b.n / a.n);
+  results.scaling = { points: pts, exponent };
+  for (const p of pts) rows.push({ case: `straight plate, ${p.n} vertices: measure vs Green's-theorem boundary formula`, ours: f(p.ms), peer: `green ${f(p.greenMs)}`, ratio: (p.ms / p.greenMs).toFixed(1), target: '—', met: '—' });
+  rows.push({ case: `growth exponent of measure time, ${a.n}→${b.n} vertices`, ours: exponent.toFixed(3), peer: '', ratio: '', target: '≤ 1.15', met: exponent <= 1.15 ? 'yes' : 'no' });
+  const big = pts.find((p) => p.n === 1e6);
+  if (big) rows.push({ case: 'peak memory (max RSS) at 10^6 vertices', ours: `${big.rssMB.toFixed(0)} MB`, peer: '', ratio: '', target: '< 1024 MB', met: big.rssMB < 1024 ? 'yes' : 'no' });
+}
+
+if (want('expression')) {
+  const e = compileExpression('20 - 0.025*x + 0.001*x*y', 'bench').evaluate;
+  const hand = (x: number, y: number) => 20 - 0.025 * x + 0.001 * x * y;
+  const N = quick ? 2e6 : 1e7;
+  let sink = 0;
+  const run = (fn: (x: number, y: number) => number) => () => { let s = 0; for (let i = 0; i < N; i++) s += fn(i * 1e-3, 7 - i * 1e-4); sink += s; };
+  const tc = time(run(e)), th = time(run(hand));
+  results.expression = { compiledMs: tc, handMs: th, speed: th / tc, sink };
+  rows.push({ case: `expression, ${N} evaluations: compiled vs hand-written JavaScript`, ours: f(tc), peer: `hand ${f(th)}`, ratio: (tc / th).toFixed(2), target: 'speed ≥ 0.5 of hand-written (ratio ≤ 2)', met: tc / th <= 2 ? 'yes' : 'no' });
+}
+
+if (want('startup')) {
+  const wall = (argv: string[]) => {
+    const ts: number[] = [];
+    for (let i = 0; i < (quick ? 5 : 11); i++) {
+      const t = performance.now();
+      const r = spawnSync(process.execPath, argv, { cwd: ROOT, encoding: 'utf8' });
+      ts.push(performance.now() - t);
+      if (r.status !== 0) throw new Error(`${argv.join(' ')} failed: ${r.stderr}`);
+    }
+    ts.sort((a, b) => a - b);
+    return ts[ts.length >> 1];
+  };
+  const tn = wall(['-e', '0']);
+  const tm = wall([join(ROOT, 'dist', 'cli', 'main.js'), 'measure', join(ROOT, 'samples', 'base-plate-bp1.json')]);
+  results.startup = { nodeMs: tn, measureMs: tm, ratio: tm / tn };
+  rows.push({ case: 'start-up: `platewise measure` of a small part vs `node -e 0` (wall time)', ours: f(tm), peer: `node ${f(tn)}`, ratio: (tm / tn).toFixed(2), target: '≤ 2.5', met: tm / tn <= 2.5 ? 'yes' : 'no' });
+}
+
+if (want('batch')) {
+  // 1,000 small generated parts (invented), measured by the batch command with one and with two workers
+  const dir = join(tmpdir(), `platewise-bench-batch-${process.pid}`);
+  mkdirSync(dir, { recursive: true });
+  const n = quick ? 200 : 1000;
+  for (let i = 0; i < n; i++) {
+    const w = 100 + (i % 37) * 5, h = 60 + (i % 23) * 4;
+    writeFileSync(join(dir, `p${i}.json`), JSON.stringify({ part: `bench ${i}`, note: 'generated for the benchmark', outline: { rectangle: { corner: [0, 0], size: [w, h], cornerRadius: 5 } }, cutouts: [{ circle: { center: [w / 3, h / 2], diameter: 12 } }, { circle: { center: [2 * w / 3, h / 2], diameter: 12 } }] }));
+  }
+  const run = (jobs: number) => {
+    const out = join(dir, `out-${jobs}.csv`);
+    rmSync(out, { force: true });
+    const t = performance.now();
+    const r = spawnSync(process.execPath, [join(ROOT, 'dist', 'cli', 'main.js'), 'batch', dir, '--jobs', String(jobs), '-o', out], { encoding: 'utf8' });
+    const ms = performance.now() - t;
+    if (r.status === null || r.status > 1) throw new Error(`batch failed: ${r.stderr}`);
+    return ms;
+  };
+  const t1 = run(1), t2 = run(2);
+  rmSync(dir, { recursive: true, force: true });
+  results.batch = { parts: n, oneWorkerMs: t1, twoWorkersMs: t2, speedup: t1 / t2 };
+  rows.push({ case: `batch of ${n} small parts: 2 workers vs 1`, ours: `${f(t2)} (2 workers)`, peer: `${f(t1)} (1 worker)`, ratio: (t1 / t2).toFixed(2) + '× faster', target: '≥ 1.6×', met: t1 / t2 >= 1.6 ? 'yes' : 'no' });
+}
+
+const head = `Run ${new Date().toISOString().slice(0, 10)} on ${availableParallelism()} cores (${cpus()[0]?.model ?? 'unknown CPU'}), Node ${process.version}. Times in ms (median).`;
+const table = ['| case | platewise | peers | ratio | target | met |', '|---|---|---|---|---|---|', ...rows.map((r) => `| ${r.case} | ${r.ours} | ${r.peer} | ${r.ratio} | ${r.target} | ${r.met} |`)];
+console.log(head + '\n\n' + table.join('\n'));
+writeFileSync(join(ROOT, 'bench-results.json'), JSON.stringify({ date: new Date().toISOString(), cores: availableParallelism(), results }, null, 2) + '\n');
