@@ -139,7 +139,8 @@ describe('digits beyond the estimate', () => {
     // the estimate's leading digit sets the last supported place: 0.05 → hundredths, 50 → tens
     expect(splitDigits(12345.678, 0.05)).toEqual(['12345.67', '8']);
     expect(splitDigits(12345.678, 50)).toEqual(['1234', '5.678']);
-    expect(splitDigits(85826.94722303865, 1.2e-9)).toEqual(['85826.94722303865', '']);
+    expect(splitDigits(85826.94722303865, 1.2e-9)).toEqual(['85826.947223038', '65']);
+    expect(splitDigits(85826.94722303865, 1e-12)).toEqual(['85826.94722303865', '']);
     expect(splitDigits(1e-20, 1e-25)).toEqual(['1e-20', '']);
     expect(splitDigits(3, 0)).toEqual(['3', '']);
   });
