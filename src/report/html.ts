@@ -119,6 +119,16 @@ function quantityTable(q: Record<string, Quantity>, keys: readonly string[], len
 
 function methodList(r: SectionResult): string {
   const m = r.method;
+  if (m.path === 'boundary') {
+    const items: [string, string][] = [
+      ['path', 'exact boundary formula: every edge is straight, so the moments are sums over the edges (Green\'s theorem); no mesh, no refinement'],
+      ['estimate', `${m.estimator}: round-off allowance only`],
+      ['stop', 'no tolerance requested (nothing to refine)'],
+      ['edges', String(m.vertices)],
+      ['local origin', `(${formatNumber(m.localOrigin[0])}, ${formatNumber(m.localOrigin[1])}) ${r.units}`],
+    ];
+    return `<dl class="trace" data-role="method">${items.map(([k, v]) => `<dt>${escapeHtml(k)}</dt><dd>${escapeHtml(v)}</dd>`).join('')}</dl>`;
+  }
   const items: [string, string][] = [
     ['rule', `Dunavant degree ${m.degree} (${m.rulePoints} points) on curved triangles; straight triangles use the lowest rule exact for the moments`],
     ['triangles', `${m.baseTriangles} in the base mesh (${m.curvedTriangles} curved, ${m.vertices} vertices), refined uniformly ${m.refinementLevels}× to ${m.triangles}`],
@@ -128,7 +138,7 @@ function methodList(r: SectionResult): string {
     ['curved maps', `smallest Jacobian ratio ${formatNumber(m.minJacobianRatio, 3)}`],
     ['local origin', `(${formatNumber(m.localOrigin[0])}, ${formatNumber(m.localOrigin[1])}) ${r.units}`],
   ];
-  const known = new Set(['degree', 'rulePoints', 'estimator', 'baseTriangles', 'triangles', 'curvedTriangles', 'vertices', 'refinementLevels', 'chordSplits', 'triangulation', 'minJacobianRatio', 'localOrigin']);
+  const known = new Set(['path', 'degree', 'rulePoints', 'estimator', 'baseTriangles', 'triangles', 'curvedTriangles', 'vertices', 'refinementLevels', 'chordSplits', 'triangulation', 'minJacobianRatio', 'localOrigin']);
   if (m.chordSplits) items.push(['chord splits', String(m.chordSplits)]);
   // fields added to MethodInfo later (a tolerance, a stop reason) appear without changes here
   for (const [k, v] of Object.entries(m)) if (!known.has(k)) items.push([k, typeof v === 'object' ? JSON.stringify(v) : String(v)]);
@@ -170,7 +180,7 @@ ${quantityTable(q, keys, r.units, 'quantities')}
 ${methodList(r)}
 <h3>Convergence</h3>
 <div class="plots">${plots.join('')}</div>
-<p><small>Change of each value from one uniform refinement to the next (${levels.length - 1} refinements, ${levels.map((l) => l.triangles).join(' → ')} triangles).${anyZero ? ' Open markers on the bottom edge: no change at all in floating point.' : ''} The table's values come from the run described under Method.</small></p>
+<p><small>Change of each value from one refinement of the curved triangles to the next (${levels.length - 1} refinements; straight triangles are exact and are not refined; ${levels.map((l) => l.triangles).join(' → ')} triangles).${anyZero ? ' Open markers on the bottom edge: no change at all in floating point.' : ''} The table's values come from the run described under Method.</small></p>
 <h3>Mass and materials</h3>
 ${massBlock(p)}
 <h3>Cautions</h3>
