@@ -9,7 +9,7 @@ export function defineDraw(program: Command): void {
     .argument('<file>', 'part file (platewise JSON, SVG, GeoJSON or WKT), or - for standard input')
     .option('-o, --output <file.svg>', 'write here (several parts: name-1.svg, name-2.svg, …); default: standard output')
     .option('--mesh', 'overlay the triangles of the mesh (curved triangles drawn curved)')
-    .option('--shade <what>', '"error" (refinement error indicator per triangle) or an expression in x and y, e.g. a density')
+    .option('--shade <what>', '"error" (refinement error indicator per triangle), "thickness" or "density" (from the part file), or an expression in x and y')
     .option('--sheet', 'all parts of the file on one drawing')
     .option('--degree <n>', 'Dunavant rule degree on curved triangles (1-20)', intArg('--degree'))
     .option('--triangulation <mode>', 'delaunator (default), cdt2d or sweep')

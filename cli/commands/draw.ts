@@ -3,6 +3,8 @@ import { InputError } from '../../src/errors.js';
 import { TRIANGULATORS, type Triangulator } from '../../src/mesh/triangulate.js';
 import { readInputText, writeFileAtomic } from '../../src/io/files.js';
 import { checkReadOptions, readParts } from '../../src/io/read.js';
+import { detectFormat } from '../../src/io/detect.js';
+import { readPlateModel } from '../../src/io/partJson.js';
 
 export interface DrawFlags {
   output?: string; mesh?: boolean; shade?: string; sheet?: boolean;
@@ -13,6 +15,21 @@ export interface DrawFlags {
 export function numberedName(target: string, i: number): string {
   const m = /^(.*?)(\.[^./\\]*)?$/.exec(target)!;
   return `${m[1]}-${i}${m[2] ?? ''}`;
+}
+
+/**
+ * `--shade thickness` / `--shade density` take the part file's own field (a number or an expression);
+ * anything else is passed on ("error" or an expression).
+ */
+export function shadeText(shade: string | undefined, text: string, label: string, format: string): string | undefined {
+  const what = shade?.trim();
+  if (what !== 'thickness' && what !== 'density') return shade;
+  if (format !== 'part-json') throw new InputError('--shade', `"${what}" comes from a part JSON file; this input is ${format}: give an expression instead, e.g. --shade "7850"`);
+  const model = readPlateModel(text, label);
+  if (model.layers.length !== 1) throw new InputError('--shade', `the part has ${model.layers.length} layers, each with its own ${what}; give an expression instead`);
+  const field = model.layers[0][what];
+  if (!field) throw new InputError('--shade', `the part file gives no "${what}"; give an expression instead`);
+  return String(field.value);
 }
 
 export async function draw(file: string, flags: DrawFlags): Promise<string> {
@@ -26,7 +43,10 @@ export async function draw(file: string, flags: DrawFlags): Promise<string> {
   const results = parts.map((p) => measureSection(p, { degree: flags.degree, triangulation: flags.triangulation as Triangulator | undefined }));
   // the drawing stack is loaded only here, never by measure
   const { drawPart, drawSheet } = await import('../../src/report/draw.js');
-  const opts = { mesh: flags.mesh, shade: flags.shade, degree: flags.degree };
+  const shade = shadeText(flags.shade, input.text, input.label, readOpts.format ?? detectFormat(input.label === 'stdin' ? undefined : input.label, input.text));
+  const named = flags.shade?.trim() === 'thickness' || flags.shade?.trim() === 'density';
+  const unit = flags.shade?.trim() === 'density' ? 'kg/m³' : parts[0]?.units ?? '';
+  const opts = { mesh: flags.mesh, shade, degree: flags.degree, shadeTitle: named ? `${flags.shade!.trim()} = ${shade} ${unit}` : undefined };
   if (flags.sheet || (results.length > 1 && flags.output === undefined)) {
     const svg = await drawSheet(results, opts);
     if (flags.output === undefined) return svg + '\n';

@@ -27,6 +27,8 @@ export interface DrawOptions {
   shade?: string;
   /** Rule degree for the error indicator (default: the degree the result was measured with). */
   degree?: number;
+  /** Legend title for a shading function (default: the expression itself). */
+  shadeTitle?: string;
 }
 
 /** Our palette: chosen for contrast on white, distinct under colour-vision deficiencies, ordered in grey. */
@@ -98,11 +100,13 @@ function legendNumber(v: number): string {
 }
 
 /** Values shown by the shading option, or undefined. */
-export function shadeValues(r: SectionResult, shade: string | undefined, degree?: number): TriangleValues | undefined {
+export function shadeValues(r: SectionResult, shade: string | undefined, degree?: number, title?: string): TriangleValues | undefined {
   if (shade === undefined) return undefined;
   if (shade.trim() === '') throw new InputError('--shade', 'expected "error" or an expression in x and y, got an empty text');
   const mesh = r.geometry.mesh;
-  return shade.trim() === 'error' ? errorIndicator(mesh, degree ?? r.method.degree) : functionValues(mesh, shade);
+  if (shade.trim() === 'error') return errorIndicator(mesh, degree ?? r.method.degree);
+  const tv = functionValues(mesh, shade);
+  return title ? { ...tv, title } : tv;
 }
 
 /**
@@ -117,7 +121,7 @@ function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: num
   const w = xMax - xMin, h = yMax - yMin;
   const BOX = 520;
   const k = Math.min(BOX / w, BOX / h);
-  const shadeVals = shadeValues(r, opts.shade, opts.degree);
+  const shadeVals = shadeValues(r, opts.shade, opts.degree, opts.shadeTitle);
   const left = 80, stripH = 74, topPad = 44;
   const T = top + stripH + topPad;
   const pw = k * w, ph = k * h;

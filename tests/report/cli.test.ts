@@ -71,6 +71,23 @@ describe('platewise draw', () => {
   });
 });
 
+describe('platewise draw --shade thickness', () => {
+  it('shades by the part file\'s own thickness field; values lie in its range over the part', () => {
+    // invented test plate: 200 × 100 mm, thickness 20 − 0.05·x mm, so 10 ≤ t ≤ 20 on the plate
+    const src = join(dir, 'tapered.json');
+    writeFileSync(src, JSON.stringify({ part: 'tapered', units: 'mm', thickness: '20 - 0.05*x', density: 7850, outline: { rectangle: { corner: [0, 0], size: [200, 100] } } }));
+    const r = platewise(['draw', src, '--shade', 'thickness']);
+    expect(r.status, r.stderr).toBe(0);
+    const values = [...r.stdout.matchAll(/<path d="[^"]*"[^>]*data-value="([^"]+)"/g)].map((m) => Number(m[1]));
+    expect(values.length).toBeGreaterThan(0);
+    for (const v of values) { expect(v).toBeGreaterThan(10); expect(v).toBeLessThan(20); }
+    expect(r.stdout).toContain('thickness = 20 - 0.05*x mm');
+    const bad = platewise(['draw', 'samples/bracket.svg', '--shade', 'thickness']);
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toMatch(/^platewise: --shade: .*part JSON/);
+  });
+});
+
 describe('platewise report', () => {
   const out = join(dir, 'bp1.html');
   const run = platewise(['report', 'samples/base-plate-bp1.json', '-o', out]);
