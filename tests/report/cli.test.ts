@@ -151,6 +151,21 @@ describe('platewise report', () => {
   });
 });
 
+describe('markup in names', () => {
+  it('a part name with markup is shown as text, never run (HTML and SVG escaping)', () => {
+    const src = join(dir, 'markup.json');
+    writeFileSync(src, JSON.stringify({ part: 'x"><script>alert(1)</script> & co', units: 'mm', outline: { rectangle: { corner: [0, 0], size: [20, 10] } } }));
+    const o = join(dir, 'markup.html');
+    expect(platewise(['report', src, '-o', o]).status).toBe(0);
+    const h = readFileSync(o, 'utf8');
+    expect(h).not.toMatch(/<script/i);
+    expect(h).toContain('x&quot;&gt;&lt;script&gt;alert(1)&lt;/script&gt; &amp; co');
+    const svg = platewise(['draw', src]).stdout;
+    expect(parseXml(svg, {}, 'drawing').name).toBe('svg');
+    expect(svg).not.toMatch(/<script/i);
+  });
+});
+
 describe('digits beyond the estimate', () => {
   it('keeps every digit and marks the ones finer than the estimate', () => {
     // the estimate's leading digit sets the last supported place: 0.05 → hundredths, 50 → tens
