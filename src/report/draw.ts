@@ -137,7 +137,7 @@ function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: num
   strip.rect(width, stripH).move(0, top).attr({ fill: PALETTE.strip });
   const fmt = (key: keyof typeof q, digits = 10) => `${formatNumber(q[key].value, digits)} ± ${formatError(q[key].error)}`;
   strip.plain(r.part).attr({ x: 14, y: top + 24, style: `font-size:17px;font-weight:600`, fill: PALETTE.ink });
-  strip.plain(`lengths in ${u} · area ${fmt('area')} ${u}² · centroid (${formatNumber(q.centroidX.value)}, ${formatNumber(q.centroidY.value)}) ${u}`)
+  strip.plain(`lengths in ${u} · area ${fmt('area')} ${u}² · centroid (${formatNumber(q.centroidX.value)}, ${formatNumber(q.centroidY.value)}) ± ${formatError(Math.max(q.centroidX.error, q.centroidY.error))} ${u}`)
     .attr({ x: 14, y: top + 46, style: `font-size:12.5px`, fill: PALETTE.ink });
   strip.plain(`I1 ${fmt('I1')} ${u}⁴ · I2 ${fmt('I2')} ${u}⁴ (principal second moments)`)
     .attr({ x: 14, y: top + 64, style: `font-size:12.5px`, fill: PALETTE.ink });
