@@ -14,7 +14,8 @@ program
   .name('platewise')
   .description('Area and mass properties of flat plates with cut-outs, each value with an error estimate.')
   .version(VERSION)
-  .showHelpAfterError('(run with --help for usage)')
+  // one line on standard error, like every other bad-input message: "platewise: <what> (run with --help for usage)"
+  .configureOutput({ outputError: (str, write) => write(`platewise: ${str.replace(/^error: /, '').trim().split('\n')[0]} (run with --help for usage)\n`) })
   .exitOverride();
 
 for (const define of COMMANDS) define(program);

@@ -19,6 +19,7 @@ import { DEFAULT_DEGREE } from '../quadrature/rules.js';
 import type { LengthUnit } from '../units.js';
 import { type AdaptiveResult, type StopReason, integrateAdaptive } from './adaptive.js';
 import { preparePart } from './measure.js';
+import { checkPoles } from './singular.js';
 
 /** A thickness or density ready to evaluate. */
 export interface Field {
@@ -304,6 +305,7 @@ export function integrateExpression(input: Part, text: string, opts: Integration
   const ev = expr.evaluate;
   const part = preparePart(input);
   const { mesh } = buildMesh(part, opts);
+  if (!expr.isConstant) checkPoles(mesh, ev, where);
   const f = (x: number, y: number, lx: number, ly: number, out: Float64Array) => {
     const v = ev(x, y);
     if (!Number.isFinite(v)) throw new InputError(where, `is ${v} at (${x.toFixed(1)}, ${y.toFixed(1)}); expected a finite value everywhere on the part`);

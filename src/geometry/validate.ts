@@ -26,6 +26,7 @@ const at = (x: number, y: number) => `(${fmt(x)}, ${fmt(y)})`;
 /** Throws InputError on the first problem found; returns the touching tolerance used. */
 export function validatePart(part: Part): number {
   if (part.regions.length === 0) throw new InputError('outline', 'the part has no material (no outline)');
+  checkRange(part);
   const box = partBox(part);
   const size = Math.max(box[2] - box[0], box[3] - box[1]);
   if (!Number.isFinite(size) || !(size > 0)) throw new InputError('outline', 'expected an outline with finite, non-zero extent');
@@ -73,6 +74,29 @@ export function validatePart(part: Part): number {
 }
 
 function loopName(l: Loop): string { return l.where ?? 'loop'; }
+
+/** Largest coordinate magnitude accepted from any reader (the part-file reader's limit, src/io/partJson.ts). */
+export const MAX_COORDINATE_MAGNITUDE = 1e12;
+
+/**
+ * Every loop's box must be finite and within ±MAX_COORDINATE_MAGNITUDE: beyond that the touching tolerance
+ * (relative to the part's size) swallows whole segments and squares of coordinates lose all digits, so the
+ * later checks would give misleading messages ("zero-length segment").
+ */
+function checkRange(part: Part): void {
+  for (const r of part.regions) {
+    for (const l of [r.outer, ...r.holes]) {
+      for (const seg of l.segments) {
+        const b = ops(seg).bbox(seg);
+        for (const v of b) {
+          if (!Number.isFinite(v) || Math.abs(v) > MAX_COORDINATE_MAGNITUDE) {
+            throw new InputError(loopName(l), `reaches coordinate ${fmt(v)}; expected finite coordinates of magnitude at most ${MAX_COORDINATE_MAGNITUDE} (in the part's length unit)`);
+          }
+        }
+      }
+    }
+  }
+}
 
 function checkLoop(loop: Loop, li: number, tol: number): void {
   const n = loop.segments.length;
