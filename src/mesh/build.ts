@@ -8,7 +8,7 @@ import { type Part, partBox, translatePart } from '../geometry/part.js';
 import { type Segment, ops, piecesForTurning, segmentPoint, segmentStart } from '../geometry/segments.js';
 import { type Mesh, TriangleMap, curvedEdgeRatio } from './mesh.js';
 import { type Triangulator, triangulateConstrained } from './triangulate.js';
-import { type BVert, collectChords, crowdedChords, interiorPoints } from './chords.js';
+import { type BVert, chordEnd, collectChords, crowdedChords, interiorPoints } from './chords.js';
 
 export interface MeshOptions {
   /** Largest tangent turning per chord on a curve, radians (default π/4: 8 chords on a circle). */
@@ -95,7 +95,7 @@ export function buildMesh(part: Part, options: MeshOptions = {}): MeshReport {
         const key = chordKey(verts, i);
         if (!bad.has(key)) continue;
         const a = verts[i], b = verts[(i + 1) % verts.length];
-        const t1 = b.seg === a.seg ? b.t : 1;
+        const t1 = chordEnd(a, b);
         verts.splice(i + 1, 0, { seg: a.seg, t: (a.t + t1) / 2 });
         splits++;
       }
@@ -113,7 +113,12 @@ function chordKey(verts: BVert[], i: number): string {
 /** Split crowded curved chords (see crowdedChords) until none is left; returns the number of splits. */
 function separateChords(loops: BVert[][], segments: Segment[]): number {
   let total = 0;
+  let start = 0;
+  for (const v of loops) start += v.length;
   for (let round = 0; round < 30; round++) {
+    if (total > 20 * start + 10000) {
+      throw new InputError('mesh', `curved edges lie too close to other edges to be meshed (${total} chord splits); are two loops almost touching?`);
+    }
     const crowded = crowdedChords(collectChords(loops, segments));
     if (crowded.length === 0) return total;
     // split from the back of each loop so earlier indices stay valid
@@ -121,7 +126,7 @@ function separateChords(loops: BVert[][], segments: Segment[]): number {
     for (const [li, i] of crowded) {
       const verts = loops[li];
       const a = verts[i], b = verts[(i + 1) % verts.length];
-      const t1 = b.seg === a.seg ? b.t : 1;
+      const t1 = chordEnd(a, b);
       verts.splice(i + 1, 0, { seg: a.seg, t: (a.t + t1) / 2 });
       total++;
     }
@@ -151,7 +156,7 @@ function triangulate(loops: BVert[][], segments: Segment[], origin: [number, num
       if (!ops(s).straight) {
         const w = verts[(i + 1) % verts.length];
         chordOf.set(Math.min(a, b) * n + Math.max(a, b), chSeg.length);
-        chSeg.push(v.seg); chS0.push(v.t); chS1.push(w.seg === v.seg ? w.t : 1); chFrom.push(a);
+        chSeg.push(v.seg); chS0.push(v.t); chS1.push(chordEnd(v, w)); chFrom.push(a);
       }
     }
     base += verts.length;

@@ -40,7 +40,7 @@ export function collectChords(loops: BVert[][], segments: Segment[]): Chords {
       c.x0[k] = p[0]; c.y0[k] = p[1];
       if (!o.straight) {
         const w = verts[(i + 1) % verts.length];
-        c.dev[k] = o.deviation(s, v.t, w.seg === v.seg ? w.t : 1);
+        c.dev[k] = o.deviation(s, v.t, chordEnd(v, w));
       }
       c.loop[k] = li; c.index[k] = i;
     }
@@ -208,4 +208,13 @@ export function interiorPoints(c: Chords): Float64Array {
     kept++;
   }
   return out.slice(0, 2 * kept);
+}
+
+/**
+ * Parameter at which the chord from vertex a to the next vertex b ends on a's segment: b's parameter when
+ * b lies further along the same segment, else the segment's end (1) — also when a loop of a single
+ * segment wraps round to its own start.
+ */
+export function chordEnd(a: BVert, b: BVert): number {
+  return b.seg === a.seg && b.t > a.t ? b.t : 1;
 }
