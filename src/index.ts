@@ -31,3 +31,23 @@ export type { SectionResult, MeasureOptions } from './accuracy/measure.js';
 export { measureSection, preparePart } from './accuracy/measure.js';
 export { sectionJson, sectionText } from './io/output.js';
 export { GEOMETRY_CAUTION, MASS_CAUTION } from './cautions.js';
+// expressions, materials, plates with thickness and density, mass, user integrands
+export { compileExpression } from './functions/index.js';
+export type { CompiledExpression } from './functions/index.js';
+export { findMaterial, listMaterials, loadMaterialFile } from './materials/index.js';
+export { readPlateModel, plateModelFromObject } from './io/partJson.js';
+export { resolvePlate, measureMass, integrateExpression } from './accuracy/plate.js';
+export { integrateAdaptive } from './accuracy/adaptive.js';
+// fabrication figures, QA references and verdicts, batches
+export { fabricationFigures, minAreaRectangle } from './properties/fabrication.js';
+export { boundaryMoments } from './properties/boundary.js';
+export { readReference } from './qa/reference.js';
+export { judge, compareAll } from './qa/verdict.js';
+export { measurePart } from './qa/compute.js';
+export { parseManifest, folderJobs } from './batch/manifest.js';
+export { runJob } from './batch/task.js';
+export { runPool } from './batch/pool.js';
+export { parseCsv, parseCsvRecords, formatCsvRow } from './io/csv.js';
+// drawings and reports (svg.js and svgdom load only when these run)
+export { drawPart, drawSheet } from './report/draw.js';
+export { buildReport } from './report/html.js';

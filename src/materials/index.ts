@@ -11,6 +11,5 @@ export * from './units.js';
  * Caution to print beside any mass, weight or mass moment computed from these densities.
  * Nominal densities are not certified values; lifting and structural decisions need more.
  */
-export const MASS_CAUTION =
-  'Masses use nominal densities and are estimates for planning. Before lifting, rigging or any structural ' +
-  'check, confirm the mass (weigh the part or use certified data) and follow local codes and a competent person.';
+import { MASS_CAUTION } from '../cautions.js';
+export { MASS_CAUTION };

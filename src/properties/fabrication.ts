@@ -399,9 +399,8 @@ export interface FabricationFigures {
   caution?: string;
 }
 
-export const MASS_CAUTION =
-  'Masses are computed from the nominal thickness and density given; they are not a lifting or rigging ' +
-  'assessment. Check actual weights and lifting arrangements against local codes with a competent person.';
+import { MASS_CAUTION } from '../cautions.js';
+export { MASS_CAUTION };
 
 function roundoff(v: number, terms: number): number {
   return 4 * EPS * Math.abs(v) * Math.max(1, terms);
