@@ -9,7 +9,7 @@
  */
 import type { ExpressionResult, MassResult } from '../accuracy/plate.js';
 import { stopText } from '../accuracy/plate.js';
-import { MASS_CAUTION } from '../cautions.js';
+import { GEOMETRY_CAUTION, MASS_CAUTION } from '../cautions.js';
 import { type MassMomentUnit, type MassUnit, massFromKg, massMomentFromSI } from '../materials/units.js';
 import { MASS_QUANTITIES, type MassKey } from '../properties/mass.js';
 import type { Quantity } from '../properties/quantities.js';
@@ -95,6 +95,7 @@ export function integralText(r: ExpressionResult, fUnit?: string): string {
     `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on ${m.triangles} triangles (from ${m.baseTriangles}); ${stopText(m)}`,
   ];
   for (const w of r.warnings) out.push(`warning: ${w}`);
+  out.push('', GEOMETRY_CAUTION);
   return out.join('\n') + '\n';
 }
 
@@ -109,5 +110,6 @@ export function integralJson(r: ExpressionResult, fUnit?: string): Record<string
     },
     method: { ...r.method },
     warnings: r.warnings,
+    caution: GEOMETRY_CAUTION,
   };
 }
