@@ -90,7 +90,7 @@ describe('compare: verdicts and exit statuses', () => {
     expect(JSON.parse(none.stdout).rows[0].note).toMatch(/needs a thickness and a density/);
     const ok = platewise(['compare', sheet, '--reference', ref, '--thickness', '10 mm', '--material', 'steel']);
     expect(ok.status).toBe(0);
-    expect(ok.stdout).toMatch(/Masses are computed from the nominal thickness/);
+    expect(ok.stdout).toMatch(/Caution: masses and centres of gravity come from the geometry/);
     // the same thickness given in inches (10 mm = 10/25.4 in) and density in g/cm³
     const inch = platewise(['compare', sheet, '--reference', ref, '--thickness', `${10 / 25.4} in`, '--density', '7.85 g/cm3']);
     expect(inch.status).toBe(0);
