@@ -7,11 +7,19 @@ export class InputError extends Error {
   readonly where: string;
   readonly detail: string;
   constructor(where: string, detail: string) {
+    // one line always: line breaks and other control characters quoted from the input are escaped
+    where = oneLine(where);
+    detail = oneLine(detail);
     super(where ? `${where}: ${detail}` : detail);
     this.name = 'InputError';
     this.where = where;
     this.detail = detail;
   }
+}
+
+/** Escape control characters (line breaks included) so that a message stays on one line. */
+export function oneLine(s: string): string {
+  return s.replace(/[\u0000-\u001f\u007f\u2028\u2029]/g, (c) => (c === '\n' ? '\\n' : c === '\r' ? '\\r' : c === '\t' ? '\\t' : `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`));
 }
 
 export function isInputError(e: unknown): e is InputError {

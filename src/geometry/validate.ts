@@ -122,16 +122,22 @@ function checkArea(loop: Loop, tol: number): void {
 }
 
 function checkPair(a: SegRef, b: SegRef, loops: Loop[], tol: number): void {
-  const hits = intersect(a.seg, b.seg, tol);
+  // joints shared by neighbouring segments of a loop are not crossings; the subdivision search must skip
+  // them and go on looking (it stops at its first hit, which for neighbours was the joint: a line crossing
+  // the elliptical arc that follows it was missed)
+  const joints: [number, number][] = [];
+  if (a.loop === b.loop) {
+    const n = loops[a.loop].segments.length;
+    if ((a.index + 1) % n === b.index) joints.push(segmentEnd(a.seg));
+    if ((b.index + 1) % n === a.index) joints.push(segmentEnd(b.seg));
+  }
+  const atJoint = (x: number, y: number) => joints.some((p) => Math.hypot(x - p[0], y - p[1]) <= 100 * tol);
+  const hits = intersect(a.seg, b.seg, tol, joints.length > 0 ? atJoint : undefined);
   if (hits.length === 0) return;
   if (a.loop === b.loop) {
     const loop = loops[a.loop];
-    const n = loop.segments.length;
-    const joints: [number, number][] = [];
     const i = a.index, j = b.index;
-    if ((i + 1) % n === j) joints.push(segmentEnd(a.seg));
-    if ((j + 1) % n === i) joints.push(segmentEnd(b.seg));
-    const real = hits.filter((h) => !joints.some((p) => Math.hypot(h.x - p[0], h.y - p[1]) <= 100 * tol));
+    const real = hits.filter((h) => !atJoint(h.x, h.y));
     if (real.length === 0) return;
     if (i === j) return;
     const h = real[0];
@@ -143,13 +149,16 @@ function checkPair(a: SegRef, b: SegRef, loops: Loop[], tol: number): void {
   throw new InputError(loopName(lb), `crosses or touches ${loopName(la)} near ${at(h.x, h.y)}; cut-outs must lie strictly inside the outline and apart from each other`);
 }
 
-/** Intersections of two segments, within `tol` (tangency counts as a touch). */
-export function intersect(a: Segment, b: Segment, tol: number): Hit[] {
+/**
+ * Intersections of two segments, within `tol` (tangency counts as a touch). For curve kinds without a
+ * closed form the search stops at its first hit; hits where `ignore` is true do not count there.
+ */
+export function intersect(a: Segment, b: Segment, tol: number, ignore?: (x: number, y: number) => boolean): Hit[] {
   if (a.kind === 'line' && b.kind === 'line') return lineLine(a, b, tol);
   if (a.kind === 'line' && b.kind === 'arc') return lineArc(a, b, tol);
   if (a.kind === 'arc' && b.kind === 'line') return lineArc(b, a, tol).map((h) => ({ ...h, ta: h.tb, tb: h.ta }));
   if (a.kind === 'arc' && b.kind === 'arc') return arcArc(a, b, tol);
-  return generic(a, 0, 1, b, 0, 1, tol, 0);
+  return generic(a, 0, 1, b, 0, 1, tol, 0, ignore);
 }
 
 function lineLine(a: LineSegment, b: LineSegment, tol: number): Hit[] {
@@ -243,23 +252,27 @@ function arcArc(a: ArcSegment, b: ArcSegment, tol: number): Hit[] {
 }
 
 /** Subdivision on exact curves: boxes of sub-ranges are the chord's box grown by the curve's deviation. */
-function generic(a: Segment, a0: number, a1: number, b: Segment, b0: number, b1: number, tol: number, depth: number): Hit[] {
+function generic(a: Segment, a0: number, a1: number, b: Segment, b0: number, b1: number, tol: number, depth: number, ignore?: (x: number, y: number) => boolean): Hit[] {
   const ba = subBox(a, a0, a1), bb = subBox(b, b0, b1);
   if (ba[0] > bb[2] + tol || bb[0] > ba[2] + tol || ba[1] > bb[3] + tol || bb[1] > ba[3] + tol) return [];
   const da = ops(a).deviation(a, a0, a1), db = ops(b).deviation(b, b0, b1);
-  if ((da <= tol && db <= tol) || depth > 40) {
+  if ((da <= tol && db <= tol) || depth > 60) {
     const pa0 = segmentPoint(a, a0), pa1 = segmentPoint(a, a1), pb0 = segmentPoint(b, b0), pb1 = segmentPoint(b, b1);
     const la: LineSegment = { kind: 'line', x0: pa0[0], y0: pa0[1], x1: pa1[0], y1: pa1[1] };
     const lb: LineSegment = { kind: 'line', x0: pb0[0], y0: pb0[1], x1: pb1[0], y1: pb1[1] };
     if (ops(la).length(la) === 0 || ops(lb).length(lb) === 0) return [];
-    return lineLine(la, lb, tol).map((h) => ({ ...h, ta: a0 + (a1 - a0) * h.ta, tb: b0 + (b1 - b0) * h.tb }));
+    return lineLine(la, lb, tol).map((h) => ({ ...h, ta: a0 + (a1 - a0) * h.ta, tb: b0 + (b1 - b0) * h.tb })).filter((h) => !ignore?.(h.x, h.y));
   }
   const am = (a0 + a1) / 2, bm = (b0 + b1) / 2;
   const out: Hit[] = [];
-  const splitA = da >= db;
+  // split the piece with the larger deviation, or with the much larger box: a long straight segment
+  // (deviation 0) next to a curve would otherwise stay whole and overlap every piece of the curve
+  const wa = Math.max(da, 0.01 * Math.hypot(ba[2] - ba[0], ba[3] - ba[1]));
+  const wb = Math.max(db, 0.01 * Math.hypot(bb[2] - bb[0], bb[3] - bb[1]));
+  const splitA = wa >= wb;
   const parts: [number, number, number, number][] = splitA ? [[a0, am, b0, b1], [am, a1, b0, b1]] : [[a0, a1, b0, bm], [a0, a1, bm, b1]];
   for (const [p0, p1, q0, q1] of parts) {
-    out.push(...generic(a, p0, p1, b, q0, q1, tol, depth + 1));
+    out.push(...generic(a, p0, p1, b, q0, q1, tol, depth + 1, ignore));
     if (out.length > 0) return out;
   }
   return out;

@@ -58,6 +58,7 @@ class ChordGrid {
   private readonly items: Int32Array;
   private readonly nx: number; private readonly ny: number;
   private readonly ox: number; private readonly oy: number; private readonly size: number;
+  private readonly chords: number;
 
   constructor(c: Chords, size: number) {
     let xMin = Infinity, yMin = Infinity, xMax = -Infinity, yMax = -Infinity;
@@ -67,8 +68,9 @@ class ChordGrid {
     }
     // keep the grid to a sensible number of cells
     const span = Math.max(xMax - xMin, yMax - yMin, 1e-300);
-    size = Math.max(size, span / 2048);
-    this.size = size; this.ox = xMin; this.oy = yMin;
+    // and to the number of chords: a few very long chords among tiny ones otherwise cover millions of cells
+    size = Math.max(size, span / Math.min(2048, 4 * Math.ceil(Math.sqrt(c.n))));
+    this.size = size; this.ox = xMin; this.oy = yMin; this.chords = c.n;
     this.nx = Math.floor((xMax - xMin) / size) + 1;
     this.ny = Math.floor((yMax - yMin) / size) + 1;
     const count = new Int32Array(this.nx * this.ny + 1);
@@ -88,9 +90,18 @@ class ChordGrid {
   private cx(x: number) { return Math.min(this.nx - 1, Math.max(0, Math.floor((x - this.ox) / this.size))); }
   private cy(y: number) { return Math.min(this.ny - 1, Math.max(0, Math.floor((y - this.oy) / this.size))); }
 
-  /** Visit chords whose cells overlap the box; stop early when fn returns true. A chord may repeat. */
+  /**
+   * Visit chords whose cells overlap the box; stop early when fn returns true. A chord may repeat, and
+   * chords outside the box may be visited (callers test the geometry themselves): a box that covers more
+   * cells than there are chords visits every chord once instead of walking up to 2048² cells (a tiny
+   * median chord and one long chord made the mesher spend seconds here).
+   */
   some(x0: number, y0: number, x1: number, y1: number, fn: (i: number) => boolean): boolean {
     const i0 = this.cx(x0), i1 = this.cx(x1), j0 = this.cy(y0), j1 = this.cy(y1);
+    if ((i1 - i0 + 1) * (j1 - j0 + 1) > this.chords) {
+      for (let i = 0; i < this.chords; i++) if (fn(i)) return true;
+      return false;
+    }
     for (let a = i0; a <= i1; a++) for (let b = j0; b <= j1; b++) {
       const cell = a * this.ny + b;
       for (let k = this.start[cell]; k < this.start[cell + 1]; k++) if (fn(this.items[k])) return true;
@@ -195,7 +206,10 @@ export function interiorPoints(c: Chords): Float64Array {
     let near = false;
     const ci = Math.floor(qx / size), cj = Math.floor(qy / size);
     const reach = Math.ceil(clear / size);
-    for (let a = ci - reach; a <= ci + reach && !near; a++) for (let b = cj - reach; b <= cj + reach && !near; b++) {
+    if ((2 * reach + 1) ** 2 > kept) {
+      // fewer kept points than cells to look in: check them all
+      for (let k = 0; k < kept && !near; k++) if (Math.hypot(out[2 * k] - qx, out[2 * k + 1] - qy) < 0.6 * Math.min(h, keptH[k])) near = true;
+    } else for (let a = ci - reach; a <= ci + reach && !near; a++) for (let b = cj - reach; b <= cj + reach && !near; b++) {
       for (let k = heads.get(a * 4194304 + b) ?? -1; k >= 0; k = next[k]) {
         if (Math.hypot(out[2 * k] - qx, out[2 * k + 1] - qy) < 0.6 * Math.min(h, keptH[k])) { near = true; break; }
       }
