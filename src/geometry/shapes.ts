@@ -104,7 +104,7 @@ export interface PathStep {
 /**
  * A closed path of lines and arcs starting at `start`. The last step may end at `start`; if it does not,
  * a closing line is added. An arc's start and end must be the same distance from its centre
- * (to 1e-9 relative); an arc that ends where it starts is a full circle.
+ * (to 1e-9 relative, plus the round-off of the coordinates); an arc that ends where it starts is a full circle.
  */
 export function pathLoop(start: Pt, steps: readonly PathStep[], where = 'path'): Loop {
   if (steps.length === 0) throw new InputError(`${where}.segments`, 'expected at least one segment');
@@ -121,7 +121,10 @@ export function pathLoop(start: Pt, steps: readonly PathStep[], where = 'path'):
       const r0 = Math.hypot(cur[0] - cx, cur[1] - cy);
       const r1 = Math.hypot(to[0] - cx, to[1] - cy);
       if (!(r0 > 0)) throw new InputError(`${w}.center`, 'is the arc\'s start point; expected a centre away from it');
-      if (Math.abs(r0 - r1) > 1e-9 * Math.max(r0, r1)) {
+      // 1e-9 relative, plus the round-off of the coordinates themselves (a 1 mm fillet drawn at site
+      // coordinates of 10^7 mm cannot be written closer than about 1e-9 mm)
+      const roundoff = 8 * Number.EPSILON * Math.max(Math.abs(cx), Math.abs(cy), Math.abs(cur[0]), Math.abs(cur[1]), Math.abs(to[0]), Math.abs(to[1]));
+      if (Math.abs(r0 - r1) > 1e-9 * Math.max(r0, r1) + roundoff) {
         throw new InputError(`${w}.to`, `expected a point at the arc's radius ${r0} from the centre, got one at ${r1}`);
       }
       const ccw = st.turn !== 'cw';
