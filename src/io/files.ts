@@ -94,3 +94,33 @@ export function writeFileAtomic(target: string, data: string | Uint8Array, input
     throw new InputError(target, `cannot be written (${code ?? (e as Error).message})`);
   }
 }
+
+/**
+ * Write several files as one step: every target is checked against the inputs (and against each other)
+ * before anything is written, each file goes through a temporary name, and if any write fails the files
+ * already written by this call are removed again, so a failed run leaves nothing behind (a file that one of
+ * those writes had replaced is gone too: the check before writing is what protects existing files).
+ */
+export function writeFilesAtomic(files: readonly { target: string; data: string | Uint8Array }[], inputs: readonly string[] = []): void {
+  const seen = new Set<string>();
+  for (const { target } of files) {
+    for (const i of inputs) {
+      if (i !== '-' && existsSync(target) && sameFile(target, i)) {
+        throw new InputError(target, 'is an input file of this run; choose another output name (inputs are never overwritten)');
+      }
+    }
+    const key = resolve(target);
+    if (seen.has(key)) throw new InputError(target, 'is named twice as an output of this run');
+    seen.add(key);
+  }
+  const done: string[] = [];
+  try {
+    for (const { target, data } of files) {
+      writeFileAtomic(target, data, inputs);
+      done.push(target);
+    }
+  } catch (e) {
+    for (const t of done) rmSync(t, { force: true });
+    throw e;
+  }
+}
