@@ -6,7 +6,7 @@
  * not a benchmark). Requirements: the project's own rule for bad input (one line, exit 2, never partial
  * output) — common practice, no source.
  */
-import { spawnSync } from 'node:child_process';
+import { spawn } from 'node:child_process';
 import { closeSync, mkdirSync, mkdtempSync, openSync, readdirSync, readFileSync, rmSync, writeSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -37,19 +37,53 @@ function writeBig(path: string, head: string, fill: string, tail: string, total:
 beforeAll(() => {
   tmp = mkdtempSync(join(tmpdir(), 'platewise-hardening-'));
   out = join(tmp, 'out');
-  rmSync(out, { recursive: true, force: true });
   // 50 MB part file: a valid part whose note is huge (over the 32 MiB file limit)
   writeBig(join(tmp, 'big.json'), '{"outline": {"rectangle": {"corner": [0, 0], "size": [100, 60]}}, "note": "', 'x', '"}\n', 50 * 1024 * 1024);
   // 25 MB SVG: under the file limit, over the 20 MiB XML limit
   writeBig(join(tmp, 'big.svg'), '<svg xmlns="http://www.w3.org/2000/svg"><path d="M0 0 H100 V60 H0 Z"/>', '<!-- padding -->', '</svg>\n', 25 * 1024 * 1024);
 });
-afterAll(() => { if (tmp) rmSync(tmp, { recursive: true, force: true }); });
+afterAll(() => {
+  if (tmp) rmSync(tmp, { recursive: true, force: true });
+  const times = [...outcomes.values()].map((o) => o.ms).sort((a, b) => a - b);
+  if (times.length) console.log(`hardening bad inputs: ${times.length} spawns, median ${times[times.length >> 1].toFixed(0)} ms, slowest ${times[times.length - 1].toFixed(0)} ms`);
+});
 
 const fill = (a: string) => a.replaceAll('{bad}', BAD).replaceAll('{out}', out).replaceAll('{tmp}', tmp);
 
+interface Outcome { status: number | null; signal: string | null; stdout: string; stderr: string; ms: number; outFiles: string[] }
+const outcomes = new Map<string, Outcome>();
+
+/** Run one case in its own empty output folder; the time is the child's wall time. */
+function runCase(c: Case, i: number): Promise<Outcome> {
+  const outDir = join(out, String(i));
+  mkdirSync(outDir, { recursive: true });
+  const args = c.args.map((a) => a.replaceAll('{out}', outDir)).map(fill);
+  return new Promise((done) => {
+    const t0 = performance.now();
+    const child = spawn(process.execPath, [CLI, ...args], { cwd: ROOT, stdio: ['pipe', 'pipe', 'pipe'] });
+    let stdout = '', stderr = '';
+    child.stdout.setEncoding('utf8').on('data', (d: string) => { stdout += d; });
+    child.stderr.setEncoding('utf8').on('data', (d: string) => { stderr += d; });
+    const timer = setTimeout(() => child.kill('SIGKILL'), 20000);
+    child.on('close', (status, signal) => {
+      clearTimeout(timer);
+      done({ status, signal, stdout, stderr, ms: performance.now() - t0, outFiles: readdirSync(outDir) });
+    });
+    child.stdin.end(c.stdin ? readFileSync(join(BAD, c.stdin)) : undefined);
+  });
+}
+
 describe('bad inputs: exit 2, one located line, no output, < 2 s', () => {
-  it('the catalogue holds at least 40 cases and every case file exists', () => {
+  beforeAll(async () => {
+    // two children at a time (the machine has two cores); each case is timed on its own
+    let next = 0;
+    const worker = async () => { for (let i = next++; i < cases.length; i = next++) outcomes.set(cases[i].name, await runCase(cases[i], i)); };
+    await Promise.all([worker(), worker()]);
+  }, 300000);
+
+  it('the catalogue holds at least 40 cases with distinct names, and every case file exists', () => {
     expect(cases.length).toBeGreaterThanOrEqual(40);
+    expect(new Set(cases.map((c) => c.name)).size).toBe(cases.length);
     const files = new Set(readdirSync(BAD));
     for (const c of cases) for (const a of c.args) {
       const m = /^\{bad\}\/(.+)$/.exec(a);
@@ -58,13 +92,7 @@ describe('bad inputs: exit 2, one located line, no output, < 2 s', () => {
   });
   for (const c of cases) {
     it(c.name, () => {
-      // a fresh, empty output folder for each case
-      rmSync(out, { recursive: true, force: true });
-      mkdirSync(out);
-      const input = c.stdin ? readFileSync(join(BAD, c.stdin)) : undefined;
-      const t0 = performance.now();
-      const r = spawnSync(process.execPath, [CLI, ...c.args.map(fill)], { cwd: ROOT, input, encoding: 'utf8', timeout: 20000 });
-      const ms = performance.now() - t0;
+      const r = outcomes.get(c.name)!;
       expect(r.signal, `${c.name}: killed (hang?)`).toBeNull();
       expect(r.status, `${c.name}: ${r.stderr}`).toBe(2);
       expect(r.stdout).toBe('');
@@ -74,8 +102,8 @@ describe('bad inputs: exit 2, one located line, no output, < 2 s', () => {
       expect(r.stderr).not.toMatch(/\n\s+at |internal error|Error:/);
       // file names may be printed with their folder
       expect(lines[0]).toMatch(new RegExp(`^platewise: (?:[^ ]*/)?(?:${c.stderr})`));
-      if (c.output) expect(readdirSync(out), 'nothing written, no temporary file left').toEqual([]);
-      expect(ms, `${c.name} took ${ms.toFixed(0)} ms`).toBeLessThan(2000);
+      if (c.output) expect(r.outFiles, 'nothing written, no temporary file left').toEqual([]);
+      expect(r.ms, `${c.name} took ${r.ms.toFixed(0)} ms`).toBeLessThan(2000);
     });
   }
 });
