@@ -1,7 +1,7 @@
 import { measureSection } from '../../src/accuracy/measure.js';
 import { InputError } from '../../src/errors.js';
 import { TRIANGULATORS, type Triangulator } from '../../src/mesh/triangulate.js';
-import { readInputText, writeFileAtomic } from '../../src/io/files.js';
+import { readInputText, writeFileAtomic, writeFilesAtomic } from '../../src/io/files.js';
 import { checkReadOptions, readParts } from '../../src/io/read.js';
 import { detectFormat } from '../../src/io/detect.js';
 import { readPlateModel } from '../../src/io/partJson.js';
@@ -58,6 +58,6 @@ export async function draw(file: string, flags: DrawFlags): Promise<string> {
   if (flags.output === undefined) return svgs[0] + '\n';
   const names = svgs.length === 1 ? [flags.output] : svgs.map((_, i) => numberedName(flags.output!, i + 1));
   for (const n of names) if (n === file) throw new InputError(n, 'is the input file of this run; choose another output name (inputs are never overwritten)');
-  svgs.forEach((s, i) => writeFileAtomic(names[i], s + '\n', [file]));
+  writeFilesAtomic(svgs.map((s, i) => ({ target: names[i], data: s + '\n' })), [file]);
   return '';
 }
