@@ -19,7 +19,15 @@
  * cut-out (by exact bounding boxes) and lies inside the outline, it stays a plain hole without clipping.
  */
 import { overlappingPairs } from './boxgrid.js';
-import polygonClipping from 'polygon-clipping';
+import { createRequire } from 'node:module';
+import type PolygonClippingModule from 'polygon-clipping';
+
+// loaded on first use (its CommonJS build), so parts without booleans do not pay for it at start-up
+type PolygonClipping = typeof PolygonClippingModule;
+let clipperModule: PolygonClipping | undefined;
+function polygonClipping(): PolygonClipping {
+  return (clipperModule ??= createRequire(import.meta.url)('polygon-clipping') as PolygonClipping);
+}
 import { InputError } from '../errors.js';
 import { bezierSubCurve } from './curves.js';
 import { pointInLoop } from './nesting.js';
@@ -42,8 +50,8 @@ export interface ClipEngine {
 
 export const POLYGON_CLIPPING: ClipEngine = {
   name: 'polygon-clipping',
-  union: (g, ...m) => polygonClipping.union(g, ...m),
-  difference: (g, ...m) => polygonClipping.difference(g, ...m),
+  union: (g, ...m) => polygonClipping().union(g, ...m),
+  difference: (g, ...m) => polygonClipping().difference(g, ...m),
 };
 
 export interface BooleanInput {

@@ -2,10 +2,16 @@
  * File access for the CLI and library: strict UTF-8 reading with a size limit, and atomic writing
  * (temporary name, then rename) that never overwrites an input file.
  */
-import { randomBytes } from 'node:crypto';
 import { readFileSync, renameSync, rmSync, writeFileSync, realpathSync, existsSync, fstatSync, openSync, closeSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { InputError } from '../errors.js';
+
+let tempCounter = 0;
+/** A suffix unique within this process (pid in the name makes it unique across processes). */
+function tempSuffix(): string {
+  tempCounter++;
+  return `${tempCounter.toString(36)}${Math.floor(Math.random() * 0x100000000).toString(16)}`;
+}
 
 /** Largest input accepted, in bytes. */
 export const MAX_INPUT_BYTES = 32 * 1024 * 1024;
@@ -84,7 +90,7 @@ export function writeFileAtomic(target: string, data: string | Uint8Array, input
       throw new InputError(target, 'is an input file of this run; choose another output name (inputs are never overwritten)');
     }
   }
-  const tmp = join(dirname(resolve(target)), `.${basename(target)}.${process.pid}.${randomBytes(4).toString('hex')}.tmp`);
+  const tmp = join(dirname(resolve(target)), `.${basename(target)}.${process.pid}.${tempSuffix()}.tmp`);
   try {
     writeFileSync(tmp, data);
     renameSync(tmp, target);

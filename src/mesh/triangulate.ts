@@ -7,14 +7,20 @@
  *  - 'cdt2d' / 'sweep': cdt2d with Delaunay flips, or its monotone sweep alone.
  * See DEVELOPERS.md for the measured comparison.
  */
-import ConstrainautorModule from '@kninnug/constrainautor';
-import cdt2d from 'cdt2d';
+
+import { createRequire } from 'node:module';
+import type Cdt2d from 'cdt2d';
 import Delaunator from 'delaunator';
 import { InputError } from '../errors.js';
 
 /** The package ships TypeScript source as its types, read as CommonJS under NodeNext; its ESM build has a default export. */
 interface ConstrainautorLike { constrainOne(a: number, b: number): unknown; isConstrained(edge: number): boolean }
-const Constrainautor = ConstrainautorModule as unknown as new (del: { triangles: Uint32Array; halfedges: Int32Array; coords: ArrayLike<number> }) => ConstrainautorLike;
+type ConstrainautorCtor = new (del: { triangles: Uint32Array; halfedges: Int32Array; coords: ArrayLike<number> }) => ConstrainautorLike;
+// the package's single-file CommonJS build (robust predicates compiled in) loads faster than its ES modules
+let constrainautorCtor: ConstrainautorCtor | undefined;
+function Constrainautor(): ConstrainautorCtor {
+  return (constrainautorCtor ??= createRequire(import.meta.url)('@kninnug/constrainautor/min') as ConstrainautorCtor);
+}
 
 export type Triangulator = 'delaunator' | 'cdt2d' | 'sweep';
 export const TRIANGULATORS: readonly Triangulator[] = ['delaunator', 'cdt2d', 'sweep'];
@@ -40,6 +46,8 @@ function viaCdt2d(coords: Float64Array, edges: Uint32Array, delaunay: boolean): 
   for (let i = 0; i < coords.length; i += 2) pts.push([coords[i], coords[i + 1]]);
   const e: [number, number][] = [];
   for (let i = 0; i < edges.length; i += 2) e.push([edges[i], edges[i + 1]]);
+  // loaded only when asked for (it is not the default back end)
+  const cdt2d = createRequire(import.meta.url)('cdt2d') as typeof Cdt2d;
   const tris = cdt2d(pts, e, { exterior: false, delaunay });
   const out = new Uint32Array(tris.length * 3);
   tris.forEach((t, i) => out.set(t, 3 * i));
@@ -48,7 +56,7 @@ function viaCdt2d(coords: Float64Array, edges: Uint32Array, delaunay: boolean): 
 
 function viaDelaunator(coords: Float64Array, edges: Uint32Array): Uint32Array {
   const del = new Delaunator(coords);
-  const con = new Constrainautor(del);
+  const con = new (Constrainautor())(del);
   try {
     for (let i = 0; i < edges.length; i += 2) con.constrainOne(edges[i], edges[i + 1]);
   } catch (e) {
