@@ -21,6 +21,7 @@ import {
   type CompareOp,
   type ExprNode,
 } from './ast.js';
+import { editDistance } from '../text.js';
 
 /** Longest accepted expression text, in UTF-16 code units. */
 export const MAX_EXPRESSION_LENGTH = 4000;
@@ -168,20 +169,6 @@ function suggestName(name: string): string | undefined {
   return best;
 }
 
-function editDistance(a: string, b: string): number {
-  const prev = new Array<number>(b.length + 1);
-  for (let j = 0; j <= b.length; j++) prev[j] = j;
-  for (let i = 1; i <= a.length; i++) {
-    let diag = prev[0]!;
-    prev[0] = i;
-    for (let j = 1; j <= b.length; j++) {
-      const tmp = prev[j]!;
-      prev[j] = Math.min(prev[j]! + 1, prev[j - 1]! + 1, diag + (a[i - 1] === b[j - 1] ? 0 : 1));
-      diag = tmp;
-    }
-  }
-  return prev[b.length]!;
-}
 
 class Parser {
   private k = 0;

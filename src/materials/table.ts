@@ -5,6 +5,7 @@
  * Nominal densities are for mass estimates; real parts vary with grade, temper and temperature.
  */
 import { InputError } from '../errors.js';
+import { editDistance } from '../text.js';
 
 export interface Material {
   /** Lower-case identifier used on the command line and in files, e.g. "stainless-1.4301". */
@@ -151,17 +152,3 @@ export function listMaterials(userTable?: MaterialTable): Material[] {
   return out;
 }
 
-function editDistance(a: string, b: string): number {
-  const prev = new Array<number>(b.length + 1);
-  for (let j = 0; j <= b.length; j++) prev[j] = j;
-  for (let i = 1; i <= a.length; i++) {
-    let diag = prev[0]!;
-    prev[0] = i;
-    for (let j = 1; j <= b.length; j++) {
-      const tmp = prev[j]!;
-      prev[j] = Math.min(prev[j]! + 1, prev[j - 1]! + 1, diag + (a[i - 1] === b[j - 1] ? 0 : 1));
-      diag = tmp;
-    }
-  }
-  return prev[b.length]!;
-}

@@ -35,6 +35,7 @@ import { type Dimension, quantityInfo, SECTION_QUANTITIES } from '../properties/
 import { FABRICATION_QUANTITIES } from '../properties/fabrication.js';
 import { parseCsvRecords, csvWhere } from '../io/csv.js';
 import { type ParsedUnit, parseUnit, plainScale, UNIT_EXAMPLES } from './units.js';
+import { editDistance } from '../text.js';
 
 export type StatedTolerance =
   | { kind: 'relative'; fraction: number; text: string }
@@ -67,19 +68,6 @@ export interface ReferenceOptions {
 
 // ---------------------------------------------------------------- helpers
 
-function levenshtein(a: string, b: string): number {
-  const d = Array.from({ length: b.length + 1 }, (_, j) => j);
-  for (let i = 1; i <= a.length; i++) {
-    let prev = d[0];
-    d[0] = i;
-    for (let j = 1; j <= b.length; j++) {
-      const tmp = d[j];
-      d[j] = Math.min(d[j] + 1, d[j - 1] + 1, prev + (a[i - 1] === b[j - 1] ? 0 : 1));
-      prev = tmp;
-    }
-  }
-  return d[b.length];
-}
 
 /** The closest known key to `name`, if close enough to be a likely typo. */
 export function suggestKey(name: string, keys: readonly string[]): string | undefined {
@@ -88,7 +76,7 @@ export function suggestKey(name: string, keys: readonly string[]): string | unde
   if (exactCase) return exactCase;
   let best: string | undefined, bestD = Infinity;
   for (const k of keys) {
-    const dd = levenshtein(lower, k.toLowerCase());
+    const dd = editDistance(lower, k.toLowerCase());
     if (dd < bestD) { bestD = dd; best = k; }
   }
   return bestD <= Math.max(2, Math.floor(name.length / 3)) ? best : undefined;

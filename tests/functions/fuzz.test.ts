@@ -1,6 +1,6 @@
 /**
  * Seeded, reproducible fuzz tests for the expression language.
- * PRNG: mulberry32 (a small public-domain 32-bit generator), written here; change SEED to explore.
+ * PRNG: mulberry32 (a small public-domain 32-bit generator, tests/helpers.ts); change SEED to explore.
  * Checks: (1) any string is either accepted or rejected with InputError, quickly; (2) for random
  * well-formed trees, text → parse → compiled evaluator equals this file's own evaluation of the
  * generated tree AND the library's tree-walking interpreter, bit for bit (Object.is);
@@ -10,19 +10,10 @@ import { describe, it, expect } from 'vitest';
 import { InputError } from '../../src/errors.js';
 import { compileExpression, interpret, parseExpression } from '../../src/functions/index.js';
 import { generateSource } from '../../src/functions/compile.js';
+import { rng as mulberry32 } from '../helpers.js';
 
 const SEED = 0x5eed2026;
 
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 type Rand = () => number;
 const pick = <T>(r: Rand, xs: readonly T[]): T => xs[Math.floor(r() * xs.length)]!;

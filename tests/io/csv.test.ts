@@ -1,18 +1,8 @@
 import { describe, it, expect } from 'vitest';
 import { parseCsv, parseCsvRecords, formatCsvRow, formatCsv, formatCsvNumber } from '../../src/io/csv.js';
 import { InputError } from '../../src/errors.js';
+import { rng as mulberry32 } from '../helpers.js';
 
-/** Small seeded PRNG (mulberry32, public-domain algorithm, from memory) so failures can be replayed. */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function errorOf(f: () => unknown): InputError {
   try {

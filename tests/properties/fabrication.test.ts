@@ -7,17 +7,8 @@ import { circleLoop, polygonLoop, rectangleLoop, slotLoop, type Pt } from '../..
 import { normalizePart, type Part, type Loop } from '../../src/geometry/part.js';
 import type { ArcSegment } from '../../src/geometry/segments.js';
 import { quantityInfo } from '../../src/properties/quantities.js';
+import { rng as mulberry32 } from '../helpers.js';
 
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const part = (outer: Loop, holes: Loop[] = [], more: Loop[] = []): Part =>
   normalizePart({ name: 'test', units: 'mm', regions: [{ outer, holes }, ...more.map((o) => ({ outer: o, holes: [] }))] });
