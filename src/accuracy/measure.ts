@@ -93,7 +93,7 @@ function checkPrincipalAngle(q: SectionQuantities, warnings: string[]): void {
  * Straight-edged part, polynomial integrands: the boundary formula is exact, so each estimate is the
  * round-off allowance alone. The mesh is built only if someone asks for it (drawings).
  */
-function boundaryResult(part: Part, moments: Float64Array, origin: [number, number], exact: ExactFigures, degree: number, options: MeasureOptions): SectionResult {
+function boundaryResult(input: Part, moments: Float64Array, origin: [number, number], exact: ExactFigures, degree: number, options: MeasureOptions): SectionResult {
   const values = sectionFromMoments(moments, origin, exact);
   const floor = roundoffFloor(moments, origin, values);
   const quantities = {} as SectionQuantities;
@@ -104,11 +104,12 @@ function boundaryResult(part: Part, moments: Float64Array, origin: [number, numb
   const warnings: string[] = [];
   checkPrincipalAngle(quantities, warnings);
   let vertices = 0;
-  for (const r of part.regions) for (const l of [r.outer, ...r.holes]) vertices += l.segments.length;
+  for (const r of input.regions) for (const l of [r.outer, ...r.holes]) vertices += l.segments.length;
   let mesh: Mesh | undefined;
+  let oriented: Part | undefined;
   return {
-    part: part.name,
-    units: part.units,
+    part: input.name,
+    units: input.units,
     quantities,
     method: {
       degree,
@@ -128,8 +129,8 @@ function boundaryResult(part: Part, moments: Float64Array, origin: [number, numb
     warnings,
     levels: [{ level: 0, triangles: 0, values }],
     geometry: {
-      part,
-      get mesh() { return (mesh ??= buildMesh(part, options).mesh); },
+      get part() { return (oriented ??= normalizePart(input)); },
+      get mesh() { return (mesh ??= buildMesh(this.part, options).mesh); },
     },
   };
 }
@@ -157,13 +158,15 @@ export function measureSection(input: Part, options: MeasureOptions = {}): Secti
   const degree = options.degree ?? DEFAULT_DEGREE;
   const rule = getRule(degree);
   const levelsWanted = Math.max(1, Math.floor(options.levels ?? 1));
-  const part = preparePart(input);
-  const exact = exactFigures(part);
+  validatePart(input);
+  const exact = exactFigures(input);
   if ((options.method ?? 'auto') === 'auto' && levelsWanted === 1) {
-    const origin = localOrigin(part);
-    const moments = boundaryMoments(part, origin);
-    if (moments) return boundaryResult(part, moments, origin, exact, degree, options);
+    // the boundary formula copes with either loop direction, so the (large) part is not copied to reorient it
+    const origin = localOrigin(input);
+    const moments = boundaryMoments(input, origin);
+    if (moments) return boundaryResult(input, moments, origin, exact, degree, options);
   }
+  const part = normalizePart(input);
   const { mesh, chordSplits } = buildMesh(part, options);
 
   // Straight triangles integrate the moment integrands (polynomials of degree 2) exactly with the degree-2

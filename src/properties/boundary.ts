@@ -16,31 +16,40 @@ export function isStraightEdged(part: Part): boolean {
 }
 
 /**
- * Raw moments [A, ∫x, ∫y, ∫x², ∫xy, ∫y²] about `origin` of a normalised straight-edged part, with
- * Neumaier-compensated sums. Returns null if the part has a curved segment.
+ * Raw moments [A, ∫x, ∫y, ∫x², ∫xy, ∫y²] about `origin` of a straight-edged part, with
+ * Neumaier-compensated sums. Loops may run either way: each loop's sums are taken with the sign that
+ * makes an outline add and a hole subtract (its own signed area decides). Returns null if the part has a
+ * curved segment.
  */
 export function boundaryMoments(part: Part, origin: readonly [number, number]): Float64Array | null {
   if (!isStraightEdged(part)) return null;
-  const sum = new Float64Array(6), comp = new Float64Array(6);
-  const add = (k: number, v: number) => {
-    const s = sum[k], t = s + v;
-    comp[k] += Math.abs(s) >= Math.abs(v) ? (s - t) + v : (v - t) + s;
-    sum[k] = t;
+  const sum = new Float64Array(6), comp = new Float64Array(6), loopSum = new Float64Array(6), loopComp = new Float64Array(6);
+  // Neumaier-compensated accumulation into (acc, cmp)
+  const add = (acc: Float64Array, cmp: Float64Array, k: number, v: number) => {
+    const s = acc[k], t = s + v;
+    cmp[k] += Math.abs(s) >= Math.abs(v) ? (s - t) + v : (v - t) + s;
+    acc[k] = t;
   };
   const [ox, oy] = origin;
   for (const r of part.regions) {
-    for (const l of [r.outer, ...r.holes]) {
-      for (const s of l.segments) {
+    const loops = [r.outer, ...r.holes];
+    for (let li = 0; li < loops.length; li++) {
+      loopSum.fill(0);
+      loopComp.fill(0);
+      for (const s of loops[li].segments) {
         if (s.kind !== 'line') return null;
         const x0 = s.x0 - ox, y0 = s.y0 - oy, x1 = s.x1 - ox, y1 = s.y1 - oy;
         const c = x0 * y1 - x1 * y0;
-        add(0, c / 2);
-        add(1, (x0 + x1) * c / 6);
-        add(2, (y0 + y1) * c / 6);
-        add(3, (x0 * x0 + x0 * x1 + x1 * x1) * c / 12);
-        add(4, (2 * x0 * y0 + x0 * y1 + x1 * y0 + 2 * x1 * y1) * c / 24);
-        add(5, (y0 * y0 + y0 * y1 + y1 * y1) * c / 12);
+        add(loopSum, loopComp, 0, c / 2);
+        add(loopSum, loopComp, 1, (x0 + x1) * c / 6);
+        add(loopSum, loopComp, 2, (y0 + y1) * c / 6);
+        add(loopSum, loopComp, 3, (x0 * x0 + x0 * x1 + x1 * x1) * c / 12);
+        add(loopSum, loopComp, 4, (2 * x0 * y0 + x0 * y1 + x1 * y0 + 2 * x1 * y1) * c / 24);
+        add(loopSum, loopComp, 5, (y0 * y0 + y0 * y1 + y1 * y1) * c / 12);
       }
+      // outline counter-clockwise adds, hole clockwise subtracts, whatever the direction it was drawn in
+      const sign = (li === 0) === (loopSum[0] + loopComp[0] > 0) ? 1 : -1;
+      for (let k = 0; k < 6; k++) { add(sum, comp, k, sign * loopSum[k]); add(sum, comp, k, sign * loopComp[k]); }
     }
   }
   for (let k = 0; k < 6; k++) sum[k] += comp[k];

@@ -53,3 +53,20 @@ describe('boundary formula vs mesh on random straight-edged plates with holes', 
     expect(r.method.path).toBe('mesh');
   });
 });
+
+describe('loop direction does not matter to the boundary formula', () => {
+  it('an outline drawn clockwise with holes drawn counter-clockwise gives the same moments as the reverse', () => {
+    const outline = [[0, 0], [300, 0], [300, 80], [120, 200], [0, 200]];
+    const hole = [[40, 40], [80, 40], [60, 90]];
+    const a = measureObj({ outline: { polygon: outline }, cutouts: [{ polygon: hole }] });
+    const b = measureObj({ outline: { polygon: [...outline].reverse() }, cutouts: [{ polygon: [...hole].reverse() }] });
+    expect(a.method.path).toBe('boundary');
+    // closed form by the shoelace formula (common practice): outline 300·80 + trapezoid-ish top, minus the triangle
+    const shoelace = (p: number[][]) => Math.abs(p.reduce((s, q, i) => s + q[0] * p[(i + 1) % p.length][1] - p[(i + 1) % p.length][0] * q[1], 0)) / 2;
+    const area = shoelace(outline) - shoelace(hole);
+    for (const r of [a, b]) expect(Math.abs(r.quantities.area.value - area) / area).toBeLessThan(1e-14);
+    for (const k of ['centroidX', 'centroidY', 'Ix', 'Iy', 'Ixy'] as const) {
+      expect(Math.abs(a.quantities[k].value - b.quantities[k].value)).toBeLessThanOrEqual(a.quantities[k].error + b.quantities[k].error);
+    }
+  });
+});
