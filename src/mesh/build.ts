@@ -76,18 +76,11 @@ export function buildMesh(part: Part, options: MeshOptions = {}): MeshReport {
   const { segments, loops } = initialChords(translatePart(part, -origin[0], -origin[1]), options.maxTurn ?? DEFAULT_MAX_TURN);
 
   let splits = 0;
-  const T = (globalThis as { PLATEWISE_TIMING?: Record<string, number> }).PLATEWISE_TIMING;
-  let t0 = performance.now();
-  const lap = (k: string) => { if (T) { const t = performance.now(); T[k] = (T[k] ?? 0) + t - t0; t0 = t; } };
   splits += separateChords(loops, segments);
-  lap('separate');
   for (let pass = 1; pass <= 12; pass++) {
     const extra = interiorPoints(collectChords(loops, segments));
-    lap('steiner');
     const mesh = triangulate(loops, segments, origin, options.triangulation ?? 'delaunator', extra);
-    lap('triangulate');
     const bad = badCurvedEdges(mesh, maxBulge);
-    lap('check');
     if (bad.size === 0) return { mesh, chordSplits: splits, passes: pass };
     // split the offending chords at their parameter midpoint, on the curve
     for (const verts of loops) {
