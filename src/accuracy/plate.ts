@@ -326,7 +326,12 @@ export function integrateExpression(input: Part, text: string, opts: Integration
   const q = (k: keyof typeof values): Quantity => ({ value: values[k], error: errors[k] });
   const warnings: string[] = [];
   const definedPoint = Math.abs(values.integral) > errors.integral && Number.isFinite(values.pointX) && Number.isFinite(values.pointY);
-  if (!definedPoint) warnings.push('∫ f dA is zero within its estimate: the resultant has no point of action (a pure couple, or a balanced load).');
+  const rough = 'the integrand may be singular (a pole, division by zero) inside the part or too rough for this mesh: check it, and try --tolerance';
+  if (!definedPoint) {
+    warnings.push(`∫ f dA is not distinguishable from zero within its estimate (${errors.integral.toPrecision(2)} against |${values.integral.toPrecision(6)}|): either the load balances (a pure couple) or ${rough}. No point of action is given.`);
+  } else if (errors.integral > 1e-3 * Math.abs(values.integral)) {
+    warnings.push(`the estimate of ∫ f dA is ${(100 * errors.integral / Math.abs(values.integral)).toPrecision(2)}% of its value: ${rough}.`);
+  }
   const method = methodOf([r], opts.tolerance);
   if (method.stopped === 'triangle cap' || method.stopped === 'time cap') warnings.push(stopText(method));
   return {

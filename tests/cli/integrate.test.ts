@@ -93,3 +93,18 @@ describe('platewise materials and measure with mass', () => {
     expect(r.stdout).toBe('');
   });
 });
+
+describe('integrate warns when its own estimate says the number cannot be trusted', () => {
+  it('an even-order pole inside the part (no sign change, no point hits it) gives a warning, a smooth load none', async () => {
+    const { integrateExpression } = await import('../../src/accuracy/plate.js');
+    const { partFromObject } = await import('../../src/io/partJson.js');
+    const plate = partFromObject({ outline: { rectangle: { corner: [0, 0], size: [300, 300] } } });
+    // ∫ 1/(x − 151.3)² dA diverges (common practice, no source: ∫ dx/x² near 0)
+    const bad = integrateExpression(plate, '1/(x-151.3)^2');
+    expect(bad.warnings.join(' ')).toMatch(/singular \(a pole, division by zero\) inside the part/);
+    // a linear load over a rectangle is integrated exactly: ∫(0.2 + 0.001x) dA = 300·300·(0.2 + 0.001·150)
+    const good = integrateExpression(plate, '0.2 + 0.001*x');
+    expect(Math.abs(good.integral.value - 90000 * 0.35) / (90000 * 0.35)).toBeLessThan(1e-13);
+    expect(good.warnings).toEqual([]);
+  });
+});
