@@ -28,27 +28,20 @@ export async function measure(file: string, flags: MeasureFlags & MassFlags): Pr
   const sectionOptions = {
     degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation as Triangulator | undefined, method: flags.method as 'auto' | 'mesh' | undefined,
   };
-  if (!involvesPlate(input.text, flags)) {
-    // plain area properties: the mass and fabrication modules are not even loaded (start-up time)
-    const results = readParts(input.text, input.label, readOpts).map((p) => measureSection(p, sectionOptions));
-    if (flags.json) {
-      const docs = results.map(sectionJson);
-      return JSON.stringify(docs.length === 1 ? docs[0] : { parts: docs }, null, 2) + '\n';
-    }
-    return results.map(sectionText).join('\n');
-  }
+  const plainResults = () => readParts(input.text, input.label, readOpts).map((p) => measureSection(p, sectionOptions));
+  const plainOutput = (results: ReturnType<typeof plainResults>) => {
+    if (!flags.json) return results.map(sectionText).join('\n');
+    const docs = results.map(sectionJson);
+    return JSON.stringify(docs.length === 1 ? docs[0] : { parts: docs }, null, 2) + '\n';
+  };
+  // plain area properties: the mass and fabrication modules are not even loaded (start-up time)
+  if (!involvesPlate(input.text, flags)) return plainOutput(plainResults());
   const { measurePlate } = await import('./measureMass.js');
   const { withFabrication } = await import('./measureFabrication.js');
+  const fabFlags = { ...(flags as FabricationFlags), json: flags.json };
   // thickness, density, materials and layers (cli/commands/measureMass.ts); undefined for a plain part
-  const plate = measurePlate(input, flags, readOpts, { degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation as Triangulator | undefined });
-  if (plate !== undefined) return withFabrication(plate, input, readOpts, { ...(flags as FabricationFlags), json: flags.json }, { degree: flags.degree, levels: flags.levels });
-  const parts = readParts(input.text, input.label, readOpts);
-  const results = parts.map((p) => measureSection(p, {
-    degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation as Triangulator | undefined, method: flags.method as 'auto' | 'mesh' | undefined,
-  }));
-  if (flags.json) {
-    const docs = results.map(sectionJson);
-    return withFabrication(JSON.stringify(docs.length === 1 ? docs[0] : { parts: docs }, null, 2) + '\n', input, readOpts, { ...(flags as FabricationFlags), json: flags.json }, { degree: flags.degree, levels: flags.levels });
-  }
-  return withFabrication(results.map(sectionText).join('\n'), input, readOpts, { ...(flags as FabricationFlags), json: flags.json }, { degree: flags.degree, levels: flags.levels });
+  const plate = measurePlate(input, flags, readOpts, { degree: flags.degree, levels: flags.levels, triangulation: sectionOptions.triangulation });
+  if (plate !== undefined) return withFabrication(plate, input, readOpts, fabFlags, { degree: flags.degree, levels: flags.levels });
+  const results = plainResults();
+  return withFabrication(plainOutput(results), input, readOpts, fabFlags, sectionOptions, results);
 }

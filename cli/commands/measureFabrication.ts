@@ -30,9 +30,10 @@ function fileSettings(input: InputText): FabricationFlags {
 /**
  * Add the fabrication block to measure's output (`out`: its text, or its JSON text when `json`): text gets one
  * block per part appended; JSON gets a "fabrication" object on each part's document. `out` comes back
- * unchanged when fabrication figures are not asked for.
+ * unchanged when fabrication figures are not asked for. `measured`: the parts' area results when the caller
+ * has them already.
  */
-export function withFabrication(out: string, input: InputText, readOpts: ReadOptions, flags: FabricationFlags & { json?: boolean }, section: MeasureOptions = {}): string {
+export function withFabrication(out: string, input: InputText, readOpts: ReadOptions, flags: FabricationFlags & { json?: boolean }, section: MeasureOptions = {}, measured?: readonly SectionResult[]): string {
   const file = fileSettings(input);
   const merged: FabricationFlags = {
     fabrication: flags.fabrication,
@@ -42,7 +43,8 @@ export function withFabrication(out: string, input: InputText, readOpts: ReadOpt
   };
   const known = merged.thickness !== undefined && (merged.material !== undefined || merged.density !== undefined);
   if (!flags.fabrication && !known) return out;
-  const results = readParts(input.text, input.label, readOpts).map((p) => measureSection(p, section));
+  // the parts' area results: those measure already has, else measured here
+  const results = measured ?? readParts(input.text, input.label, readOpts).map((p) => measureSection(p, section));
   const block = fabricationBlock(results, { ...merged, fabrication: true })!;
   if (!flags.json) return out + '\n' + block.text.join('\n');
   const doc = JSON.parse(out) as Record<string, unknown>;
