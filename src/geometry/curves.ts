@@ -9,6 +9,7 @@
  *
  * Only type imports from segments.ts here, so there is no runtime import cycle.
  */
+import { angleInSweep } from './angles.js';
 import type { Box, Out2, SegmentOps } from './segments.js';
 
 /**
@@ -134,15 +135,6 @@ function inOpenUnit(ts: number[]): number[] {
   return ts.filter((t) => t > 0 && t < 1).sort((p, q) => p - q);
 }
 
-/** Is angle `a` inside the sweep from a0 to a1 (either direction), ends excluded? */
-function angleInSweep(a: number, a0: number, a1: number): boolean {
-  const lo = Math.min(a0, a1);
-  const hi = Math.max(a0, a1);
-  const k = Math.ceil((lo - a) / TWO_PI);
-  let b = a + k * TWO_PI;
-  if (b <= lo) b += TWO_PI;
-  return b < hi;
-}
 
 /** All angles a + kπ strictly inside the sweep (a0, a1), as parameters t in (0, 1), sorted. */
 function sweepParams(a: number, a0: number, a1: number): number[] {

@@ -13,6 +13,8 @@ import {
 
 export type { CubicSegment, EllipticalArcSegment, QuadraticSegment } from './curves.js';
 
+import { angleInSweep } from './angles.js';
+
 export interface LineSegment {
   kind: 'line';
   x0: number; y0: number;
@@ -76,19 +78,6 @@ const lineOps: SegmentOps<LineSegment> = {
   deviation: () => 0,
   yTurns: () => [],
 };
-
-const TWO_PI = 2 * Math.PI;
-
-/** Is angle `a` inside the sweep from a0 to a1 (either direction), ends excluded? */
-function angleInSweep(a: number, a0: number, a1: number): boolean {
-  const lo = Math.min(a0, a1);
-  const hi = Math.max(a0, a1);
-  // smallest a + 2πk that is > lo
-  let k = Math.ceil((lo - a) / TWO_PI);
-  let b = a + k * TWO_PI;
-  if (b <= lo) b += TWO_PI;
-  return b < hi;
-}
 
 const arcOps: SegmentOps<ArcSegment> = {
   straight: false,
