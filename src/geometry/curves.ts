@@ -41,7 +41,6 @@ export interface CubicSegment {
   x3: number; y3: number;
 }
 
-const TWO_PI = 2 * Math.PI;
 /** Relative safety margin added to the numerical bounds (turning, deviation). */
 const MARGIN = 1e-12;
 
