@@ -3,22 +3,17 @@
  * `npx tsc -p .` first): generated parts with closed-form figures, one malformed part, exit statuses,
  * identical results with 1 and 2 workers, output-file rules.
  */
-import { spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { runCli } from '../helpers.js';
 import { parseCsvRecords } from '../../src/io/csv.js';
 import { generateParts } from './generate.js';
 
-const ROOT = join(import.meta.dirname, '..', '..');
-const CLI = join(ROOT, 'dist', 'cli', 'main.js');
 const dir = mkdtempSync(join(tmpdir(), 'platewise-batch-'));
 
-function platewise(args: string[]) {
-  const r = spawnSync(process.execPath, [CLI, ...args], { cwd: dir, encoding: 'utf8' });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
+const platewise = (args: string[]) => runCli(args, undefined, { cwd: dir });
 
 // 30 generated parts (invented) and one malformed file, listed in a manifest with quantities 1..3,
 // 8 mm steel (7850 kg/m³, EN 1993-1-1, 3.2.6) on the command line, 10 mm for every fifth row.

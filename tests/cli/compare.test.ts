@@ -2,21 +2,15 @@
  * `platewise compare` through the built command line (dist/cli/main.js; build with `npx tsc -p .` first):
  * verdicts on parts with closed-form properties, unit conversion, exit statuses, JSON and CSV output.
  */
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { runCli as platewise } from '../helpers.js';
 import { parseCsvRecords } from '../../src/io/csv.js';
 
-const ROOT = join(import.meta.dirname, '..', '..');
-const CLI = join(ROOT, 'dist', 'cli', 'main.js');
 const dir = mkdtempSync(join(tmpdir(), 'platewise-compare-'));
 
-function platewise(args: string[], input?: string) {
-  const r = spawnSync(process.execPath, [CLI, ...args], { cwd: ROOT, input, encoding: 'utf8' });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
 function file(name: string, content: unknown): string {
   const p = join(dir, name);
   writeFileSync(p, typeof content === 'string' ? content : JSON.stringify(content));

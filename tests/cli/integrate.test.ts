@@ -1,16 +1,9 @@
 /**
  * The built command line (dist/cli/main.js): integrate, materials and the mass flags of measure.
  */
-import { spawnSync } from 'node:child_process';
-import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { runCli as platewise } from '../helpers.js';
 
-const ROOT = join(import.meta.dirname, '..', '..');
-const CLI = join(ROOT, 'dist', 'cli', 'main.js');
-function platewise(args: string[], input?: string) {
-  const r = spawnSync(process.execPath, [CLI, ...args], { cwd: ROOT, input, encoding: 'utf8' });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
 
 // A vertical gate 2000 mm wide and 3000 mm high, its top edge 1000 mm below the water surface (y = 4000).
 const gate = JSON.stringify({ part: 'gate', units: 'mm', outline: { rectangle: { corner: [0, 0], size: [2000, 3000] } } });

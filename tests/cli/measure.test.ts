@@ -6,14 +6,9 @@ import { spawnSync } from 'node:child_process';
 import { readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { ROOT, CLI, runCli as platewise } from '../helpers.js';
 
-const ROOT = join(import.meta.dirname, '..', '..');
-const CLI = join(ROOT, 'dist', 'cli', 'main.js');
 
-export function platewise(args: string[], input?: string) {
-  const r = spawnSync(process.execPath, [CLI, ...args], { cwd: ROOT, input, encoding: 'utf8' });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
 
 const samples = readdirSync(join(ROOT, 'samples')).filter((f) => /\.(json|svg|geojson|wkt)$/.test(f));
 

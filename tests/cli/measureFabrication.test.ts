@@ -2,13 +2,10 @@
  * `platewise measure --fabrication` (cli/commands/measureFabrication.ts) through the built CLI: the block's
  * figures against closed forms, its JSON, and that it is absent unless asked for.
  */
-import { spawnSync } from 'node:child_process';
-import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { runCli } from '../helpers.js';
 
-const ROOT = join(import.meta.dirname, '..', '..');
-const CLI = join(ROOT, 'dist', 'cli', 'main.js');
-const run = (args: string[]) => spawnSync(process.execPath, [CLI, ...args], { cwd: ROOT, encoding: 'utf8' });
+const run = (args: string[]) => runCli(args);
 
 // samples/job/endplate-e2.json (invented): 250 × 150 with R10 corners, six Ø18 holes, one 40 × 18 slot.
 // Cut length: outer 2(250 + 150) − 8·10 + 2π·10, holes 6·π·18, slot 2·40 + π·18 (closed forms);

@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { measureObj } from '../helpers.js';
+import { expectSectionClose, measureObj } from '../helpers.js';
 import { partFromObject } from '../../src/io/partJson.js';
 import { InputError } from '../../src/errors.js';
 
@@ -32,21 +32,6 @@ function central(m: M) {
   const xc = m.Sy / m.A, yc = m.Sx / m.A;
   return { area: m.A, centroidX: xc, centroidY: yc, Ix: m.Ixx - m.A * yc * yc, Iy: m.Iyy - m.A * xc * xc, Ixy: m.Ixy - m.A * xc * yc };
 }
-const KEYS = ['area', 'centroidX', 'centroidY', 'Ix', 'Iy', 'Ixy'] as const;
-
-function expectClose(r: ReturnType<typeof measureObj>, ref: ReturnType<typeof central>, size: number, label: string) {
-  const iScale = Math.sqrt(Math.abs(ref.Ix * ref.Iy));
-  const scales = { area: ref.area, centroidX: size, centroidY: size, Ix: iScale, Iy: iScale, Ixy: iScale };
-  const rows: string[] = [];
-  for (const k of KEYS) {
-    const q = r.quantities[k];
-    const err = Math.abs(q.value - ref[k]);
-    rows.push(`${k} rel ${(err / scales[k]).toExponential(2)} est ${(q.error / scales[k]).toExponential(2)}`);
-    expect(err / scales[k], `${label} ${k}`).toBeLessThanOrEqual(1e-12);
-    expect(q.error, `${label} ${k}: estimate ≥ true error`).toBeGreaterThanOrEqual(err);
-  }
-  console.log(`${label}: ${rows.join('; ')}`);
-}
 
 describe('notch cut by a circle at the plate edge keeps the exact arc', () => {
   // plate 200 × 100 from the origin, circle of radius r centred below the top edge (y = 100) at depth d
@@ -58,7 +43,7 @@ describe('notch cut by a circle at the plate edge keeps the exact arc', () => {
       const whole = segmentAbove(cx, 100 - d, r, -r); // h = −r: the whole circle
       const above = segmentAbove(cx, 100 - d, r, d); // part of the circle above y = 100
       const ref = central(sub(rectM(0, 0, 200, 100), sub(whole, above)));
-      expectClose(r0, ref, 200, `notch r=${r} d=${d}`);
+      expectSectionClose(r0, ref, 200, `notch r=${r} d=${d}`);
       const outer = r0.geometry.part.regions[0].outer;
       expect(outer.segments.filter((s) => s.kind === 'arc').length).toBeGreaterThanOrEqual(1);
       expect(r0.geometry.part.regions[0].holes.length).toBe(0);
@@ -77,7 +62,7 @@ describe('overlapping cut-outs, added material, open slots', () => {
     // lens = part of circle 1 above the mid line + part of circle 2 below it (each at h = d/2 from its centre)
     const lens = add(segmentAbove(x, y1, r, d / 2), segmentAbove(x, y1 + d, r, d / 2, true));
     const ref = central(sub(rectM(0, 0, 200, 100), sub(add(whole1, whole2), lens)));
-    expectClose(res, ref, 200, 'overlapping discs');
+    expectSectionClose(res, ref, 200, 'overlapping discs');
     const hole = res.geometry.part.regions[0].holes;
     expect(hole.length).toBe(1);
     expect(hole[0].segments.every((s) => s.kind === 'arc' && (s.r === r))).toBe(true);
@@ -86,19 +71,19 @@ describe('overlapping cut-outs, added material, open slots', () => {
     for (const [cx, r, d] of [[50, 10, 0], [120, 18, 7.5]]) {
       const res = measureObj(plate({ add: [circ(cx, 100 - d, r)] }));
       const ref = central(add(rectM(0, 0, 200, 100), segmentAbove(cx, 100 - d, r, d)));
-      expectClose(res, ref, 200, `boss r=${r} d=${d}`);
+      expectSectionClose(res, ref, 200, `boss r=${r} d=${d}`);
     }
   });
   it('open slot from inside through the bottom edge: removes a rectangle and a half disc', () => {
     const res = measureObj(plate({ cutouts: [{ slot: { from: [50, 20], to: [50, -30], width: 10 } }] }));
     // inside the plate: the straight part x 45..55, y 0..20 and the round end above (50, 20)
     const removed = add(rectM(45, 0, 10, 20), segmentAbove(50, 20, 5, 0));
-    expectClose(res, central(sub(rectM(0, 0, 200, 100), removed)), 200, 'open slot');
+    expectSectionClose(res, central(sub(rectM(0, 0, 200, 100), removed)), 200, 'open slot');
   });
   it('a cut-out inside a bigger cut-out is absorbed', () => {
     const res = measureObj(plate({ cutouts: [circ(100, 50, 20), circ(104, 50, 5)] }));
     const ref = central(sub(rectM(0, 0, 200, 100), segmentAbove(100, 50, 20, -20)));
-    expectClose(res, ref, 200, 'nested cut-outs');
+    expectSectionClose(res, ref, 200, 'nested cut-outs');
   });
 });
 

@@ -3,17 +3,15 @@
  * leave nothing behind when a run fails (DESIGN.md "Errors"; common practice, no source).
  * CLI cases spawn the built command line (dist/cli/main.js).
  */
-import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
+import { runCli } from '../helpers.js';
 import { InputError } from '../../src/errors.js';
 import { writeFileAtomic, writeFilesAtomic } from '../../src/io/files.js';
 
-const ROOT = join(import.meta.dirname, '..', '..');
-const CLI = join(ROOT, 'dist', 'cli', 'main.js');
 const base = mkdtempSync(join(tmpdir(), 'platewise-safe-'));
 let dir = '';
 let n = 0;
@@ -21,10 +19,7 @@ beforeEach(() => { dir = join(base, String(n++)); mkdirSync(dir); });
 afterAll(() => rmSync(base, { recursive: true, force: true }));
 
 const hash = (p: string) => createHash('sha256').update(readFileSync(p)).digest('hex');
-function cli(args: string[]) {
-  const r = spawnSync(process.execPath, [CLI, ...args], { cwd: dir, encoding: 'utf8', timeout: 30000 });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
+const cli = (args: string[]) => runCli(args, undefined, { cwd: dir, timeout: 30000 });
 const PART = JSON.stringify({ part: 'safe-output plate (invented)', outline: { rectangle: { corner: [0, 0], size: [100, 60] } }, cutouts: [{ circle: { center: [30, 30], diameter: 20 } }] }) + '\n';
 const noTemp = () => expect(readdirSync(dir).filter((f) => f.endsWith('.tmp')), 'temporary files left').toEqual([]);
 

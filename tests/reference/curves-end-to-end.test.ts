@@ -6,30 +6,10 @@
  */
 import { describe, it, expect } from 'vitest';
 import { readParts } from '../../src/io/read.js';
-import { measureSection, type SectionResult } from '../../src/accuracy/measure.js';
+import { measureSection } from '../../src/accuracy/measure.js';
+import { type SectionRef, expectSectionClose } from '../helpers.js';
 
-type Ref = { area: number; centroidX: number; centroidY: number; Ix: number; Iy: number; Ixy: number };
-const KEYS = ['area', 'centroidX', 'centroidY', 'Ix', 'Iy', 'Ixy'] as const;
-
-/**
- * Compare with the reference. Scales: a length against the part's size, a second moment against
- * √(Ix·Iy) (so a zero product moment is judged on the scale of the others). Returns the worst ratio.
- */
-function check(r: SectionResult, ref: Ref, size: number): { worst: number; rows: string[] } {
-  const iScale = Math.sqrt(Math.abs(ref.Ix * ref.Iy));
-  const scale: Ref = { area: ref.area, centroidX: size, centroidY: size, Ix: iScale, Iy: iScale, Ixy: iScale };
-  let worst = 0;
-  const rows: string[] = [];
-  for (const k of KEYS) {
-    const q = r.quantities[k];
-    const err = Math.abs(q.value - ref[k]);
-    rows.push(`${k}: rel ${(err / scale[k]).toExponential(2)} est ${(q.error / scale[k]).toExponential(2)}`);
-    worst = Math.max(worst, err / scale[k]);
-    expect(err / scale[k], k).toBeLessThanOrEqual(1e-12);
-    expect(q.error, `${k} estimate ≥ true error`).toBeGreaterThanOrEqual(err);
-  }
-  return { worst, rows };
-}
+type Ref = SectionRef;
 
 describe('rotated ellipse (SVG <ellipse> with rotate transform → elliptical arcs)', () => {
   // Ellipse with semi-axes a (along u), b (along v): A = πab, I_u = ∫v² dA = πab³/4, I_v = ∫u² dA = πa³b/4
@@ -47,8 +27,7 @@ describe('rotated ellipse (SVG <ellipse> with rotate transform → elliptical ar
       const Iu = (Math.PI * a * b ** 3) / 4, Iv = (Math.PI * a ** 3 * b) / 4;
       const s = Math.sin(phi), c = Math.cos(phi);
       const ref: Ref = { area: Math.PI * a * b, centroidX: cx, centroidY: -cy, Ix: Iv * s * s + Iu * c * c, Iy: Iv * c * c + Iu * s * s, Ixy: (Iv - Iu) * s * c };
-      const { rows } = check(r, ref, 2 * a);
-      console.log(`ellipse ${a}×${b} @${deg}°: ${rows.join('; ')}`);
+      expectSectionClose(r, ref, 2 * a, `ellipse ${a}×${b} @${deg}°`);
     });
   }
 });
@@ -68,8 +47,7 @@ describe('circle built from two SVG elliptical-arc commands with rx = ry (→ ci
       const xr = cx + R, xl = cx - R;
       const Rf = (xr - xl) / 2, cf = xl + Rf;
       const I = (Math.PI * Rf ** 4) / 4;
-      const { rows } = check(r, { area: Math.PI * Rf * Rf, centroidX: cf, centroidY: -cy, Ix: I, Iy: I, Ixy: 0 }, 2 * R);
-      console.log(`circle R=${R}: ${rows.join('; ')}`);
+      expectSectionClose(r, { area: Math.PI * Rf * Rf, centroidX: cf, centroidY: -cy, Ix: I, Iy: I, Ixy: 0 }, 2 * R, `circle R=${R}`);
     });
   }
 });
@@ -169,8 +147,7 @@ describe('Bézier-bounded bracket (SVG path with cubic and quadratic commands, a
       const outer = exactMoments([flip(ol)]), h = exactMoments([flip(hl)]);
       const sgnO = Math.sign(outer.area), sgnH = Math.sign(h.area);
       const ref = exactMoments([sgnO > 0 ? flip(ol) : flip(ol).reverse().map((q) => q.slice().reverse()), sgnH < 0 ? flip(hl) : flip(hl).reverse().map((q) => q.slice().reverse())]);
-      const { rows } = check(r, ref, 120 * (label === 'as drawn' ? 1 : 3));
-      console.log(`bracket ${label}: ${rows.join('; ')}`);
+      expectSectionClose(r, ref, 120 * (label === 'as drawn' ? 1 : 3), `bracket ${label}`);
     });
   }
 });

@@ -2,24 +2,18 @@
  * `platewise draw` and `platewise report` through the built CLI (dist/, made by tsc): files written,
  * several parts, inputs never overwritten, one-line errors, the report's trace, numbers and self-containment.
  */
-import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
+import { ROOT, runCli as platewise } from '../helpers.js';
 import { parseXml } from '../../src/io/xml.js';
 import { splitDigits } from '../../src/report/html.js';
 
-const ROOT = join(import.meta.dirname, '..', '..');
-const CLI = join(ROOT, 'dist', 'cli', 'main.js');
 const dir = mkdtempSync(join(tmpdir(), 'platewise-report-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-function platewise(args: string[], input?: string) {
-  const r = spawnSync(process.execPath, [CLI, ...args], { cwd: ROOT, input, encoding: 'utf8' });
-  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
-}
 
 // Invented test data: two separate plates in one SVG drawing (user units taken as mm).
 const TWO_PARTS = `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 300 100">
