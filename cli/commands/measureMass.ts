@@ -10,7 +10,7 @@ import { detectFormat } from '../../src/io/detect.js';
 import type { InputText } from '../../src/io/files.js';
 import { type MassUnits, massJson, massText } from '../../src/io/massOutput.js';
 import { sectionJson, sectionText } from '../../src/io/output.js';
-import { type PlateModel, readPlateModel } from '../../src/io/partJson.js';
+import { type PlateModel, readPlateModel, singleLayerModel } from '../../src/io/partJson.js';
 import { type ReadOptions, readParts } from '../../src/io/read.js';
 import { parseMassMomentUnit, parseMassUnit } from '../../src/materials/units.js';
 import { integrationOptions } from './integrate.js';
@@ -28,7 +28,7 @@ function plateModels(input: InputText, readOpts: ReadOptions): PlateModel[] {
     if (readOpts.units !== undefined) throw new InputError('--units', 'applies to SVG, GeoJSON and WKT drawings; a part file states its own "units"');
     return [readPlateModel(input.text, input.label)];
   }
-  return readParts(input.text, input.label, readOpts).map((p) => ({ name: p.name, units: p.units, layered: false, layers: [{ name: p.name, where: '', part: p }] }));
+  return readParts(input.text, input.label, readOpts).map(singleLayerModel);
 }
 
 /**

@@ -4,7 +4,7 @@ import { type MassResult, type PlateFlags, hasMassInput, measureMass, resolvePla
 import { InputError } from '../../src/errors.js';
 import { TRIANGULATORS, type Triangulator } from '../../src/mesh/triangulate.js';
 import { readInputText, writeFileAtomic } from '../../src/io/files.js';
-import { type PlateModel, readPlateModel } from '../../src/io/partJson.js';
+import { type PlateModel, readPlateModel, singleLayerModel } from '../../src/io/partJson.js';
 import { checkReadOptions, readParts } from '../../src/io/read.js';
 import { detectFormat } from '../../src/io/detect.js';
 import type { Part } from '../../src/geometry/part.js';
@@ -20,10 +20,10 @@ export interface ReportFlags {
 /** Levels of the run behind the convergence plot (at least three refinements). */
 export const CONVERGENCE_LEVELS = 3;
 
-function plateModels(text: string, label: string, format: string, parts: Part[], flags: PlateFlags): PlateModel[] {
+function plateModels(text: string, label: string, format: string, parts: Part[]): PlateModel[] {
   // part JSON states thickness, density, material or layers itself; drawings get them from the flags only
   if (format === 'part-json') return [readPlateModel(text, label)];
-  return parts.map((p) => ({ name: p.name, units: p.units, layered: false, layers: [{ name: p.name, where: '', part: p }] }));
+  return parts.map(singleLayerModel);
 }
 
 export async function report(file: string, flags: ReportFlags): Promise<string> {
@@ -44,7 +44,7 @@ export async function report(file: string, flags: ReportFlags): Promise<string> 
     : measureSection(p, { degree: flags.degree, levels: CONVERGENCE_LEVELS, triangulation }).levels));
 
   const plateFlags: PlateFlags = { thickness: flags.thickness, density: flags.density, material: flags.material };
-  const models = plateModels(input.text, input.label, format, parts, plateFlags);
+  const models = plateModels(input.text, input.label, format, parts);
   const masses: (MassResult | undefined)[] = [];
   const notes: (string | undefined)[] = [];
   parts.forEach((_, i) => {

@@ -32,7 +32,7 @@ import { InputError } from '../errors.js';
 import { bezierSubCurve } from './curves.js';
 import { pointInLoop } from './nesting.js';
 import { type Loop, type Region, loopBox, loopLength, loopSignedArea } from './part.js';
-import { type Box, type Out2, type Segment, ops, segmentPoint } from './segments.js';
+import { type Out2, type Segment, ops, segmentPoint } from './segments.js';
 import { validatePart } from './validate.js';
 
 export type ClipPair = [number, number];
@@ -236,10 +236,6 @@ class ChordGrid {
 
 // -------------------------------------------------------------------------------------------------
 // main entry
-
-function boxesOverlap(a: Box, b: Box): boolean {
-  return !(a[2] < b[0] || b[2] < a[0] || a[3] < b[1] || b[3] < a[1]);
-}
 
 function probePoint(loop: Loop): [number, number] {
   return segmentPoint(loop.segments[0], 0.5);

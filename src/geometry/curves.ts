@@ -10,7 +10,7 @@
  * Only type imports from segments.ts here, so there is no runtime import cycle.
  */
 import { angleInSweep } from './angles.js';
-import type { Box, Out2, SegmentOps } from './segments.js';
+import type { Out2, SegmentOps } from './segments.js';
 
 /**
  * Elliptical arc in parametric form p(θ) = c + R(phi)·(rx cos θ, ry sin θ), θ running from t0 to t1

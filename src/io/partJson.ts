@@ -305,6 +305,11 @@ export interface PlateModel {
   layers: LayerSpec[];
 }
 
+/** A part read from a drawing (or a plain part file) as a plate of one layer with no stated thickness. */
+export function singleLayerModel(part: Part): PlateModel {
+  return { name: part.name, units: part.units, layered: false, layers: [{ name: part.name, where: '', part }] };
+}
+
 const LAYER_KEYS = ['name', 'outline', 'cutouts', 'regions', 'thickness', 'density', 'material', 'z', 'note'];
 
 function readField(v: unknown, where: string, what: string): FieldSpec | undefined {

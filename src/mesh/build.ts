@@ -5,7 +5,7 @@
  */
 import { InputError } from '../errors.js';
 import { type Part, partBox, translatePart } from '../geometry/part.js';
-import { type Segment, ops, piecesForTurning, segmentPoint, segmentStart } from '../geometry/segments.js';
+import { type Segment, ops, piecesForTurning, segmentStart } from '../geometry/segments.js';
 import { type Mesh, TriangleMap, curvedEdgeRatio } from './mesh.js';
 import { type Triangulator, triangulateConstrained } from './triangulate.js';
 import { type BVert, chordEnd, collectChords, crowdedChords, interiorPoints } from './chords.js';

@@ -15,7 +15,7 @@
 import { type MeasureOptions, type SectionResult, measureSection } from '../accuracy/measure.js';
 import { type ResolvedLayer, measureMass, resolvePlate as resolveLayers } from '../accuracy/plate.js';
 import type { Part } from '../geometry/part.js';
-import type { PlateModel } from '../io/partJson.js';
+import { type PlateModel, singleLayerModel } from '../io/partJson.js';
 import { type FabricationFigures, fabricationFigures } from '../properties/fabrication.js';
 import type { Quantity } from '../properties/quantities.js';
 import type { PlateSpec, ResolvedPlate } from './plate.js';
@@ -36,9 +36,7 @@ export interface PartFigures {
 }
 
 /** A single-layer model for a part read from a drawing (or a part JSON without plate keys). */
-export function plainModel(part: Part): PlateModel {
-  return { name: part.name, units: part.units, layered: false, layers: [{ name: part.name, where: '', part }] };
-}
+export { singleLayerModel as plainModel } from '../io/partJson.js';
 
 /** Settings in the part's unit as flag texts for `resolvePlate` (src/accuracy/plate.ts). */
 function flagTexts(plate: ResolvedPlate): { thickness?: string; density?: string } {
@@ -69,7 +67,7 @@ export interface MeasurePartOptions extends MeasureOptions {
 }
 
 export function measurePart(part: Part, plate: ResolvedPlate, options: MeasurePartOptions = {}): PartFigures {
-  const model = options.model ?? plainModel(part);
+  const model = options.model ?? singleLayerModel(part);
   const section = measureSection(part, options);
   const flags = flagTexts(plate);
   // resolve when both are known (from the file or the settings); an InputError names a figure given twice
