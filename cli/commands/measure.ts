@@ -41,7 +41,7 @@ export async function measure(file: string, flags: MeasureFlags & MassFlags): Pr
   const fabFlags = { ...(flags as FabricationFlags), json: flags.json };
   // thickness, density, materials and layers (cli/commands/measureMass.ts); undefined for a plain part
   const plate = measurePlate(input, flags, readOpts, { degree: flags.degree, levels: flags.levels, triangulation: sectionOptions.triangulation });
-  if (plate !== undefined) return withFabrication(plate, input, readOpts, fabFlags, { degree: flags.degree, levels: flags.levels });
+  if (plate !== undefined) return withFabrication(plate.out, input, readOpts, fabFlags, sectionOptions, plate.areas);
   const results = plainResults();
   return withFabrication(plainOutput(results), input, readOpts, fabFlags, sectionOptions, results);
 }

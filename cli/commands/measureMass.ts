@@ -3,7 +3,7 @@
  * calls measurePlate first and goes on with its own area report when this returns undefined (a plain part
  * without thickness or density).
  */
-import { measureSection } from '../../src/accuracy/measure.js';
+import { type SectionResult, measureSection } from '../../src/accuracy/measure.js';
 import { type PlateFlags, hasMassInput, measureMass, resolvePlate } from '../../src/accuracy/plate.js';
 import { InputError } from '../../src/errors.js';
 import { detectFormat } from '../../src/io/detect.js';
@@ -34,8 +34,9 @@ function plateModels(input: InputText, readOpts: ReadOptions): PlateModel[] {
 /**
  * Area properties per layer and mass properties, or undefined when the input has neither layers nor any
  * thickness/density (then measure's own report applies). `section` holds measure's area options.
+ * Returns the text and, per part, the area results of its first layer (for the fabrication figures).
  */
-export function measurePlate(input: InputText, flags: MassFlags & { json?: boolean }, readOpts: ReadOptions, section: Parameters<typeof measureSection>[1]): string | undefined {
+export function measurePlate(input: InputText, flags: MassFlags & { json?: boolean }, readOpts: ReadOptions, section: Parameters<typeof measureSection>[1]): { out: string; areas: SectionResult[] } | undefined {
   const models = plateModels(input, readOpts);
   const plateFlags: PlateFlags = { thickness: flags.thickness, density: flags.density, material: flags.material, materials: userMaterials(flags.materialsFile) };
   const wantMass = models.some((m) => hasMassInput(m, plateFlags));
@@ -52,8 +53,10 @@ export function measurePlate(input: InputText, flags: MassFlags & { json?: boole
   const opts = { ...integrationOptions({ ...flags, degree: section?.degree }), triangulation: section?.triangulation };
   const texts: string[] = [];
   const docs: Record<string, unknown>[] = [];
+  const firstLayers: SectionResult[] = [];
   for (const model of models) {
     const areas = model.layers.map((l) => measureSection(l.part, section));
+    firstLayers.push(areas[0]);
     const mass = wantMass ? measureMass(model.name, model.units, resolvePlate(model, plateFlags), opts) : undefined;
     if (flags.json) {
       const doc: Record<string, unknown> = model.layered
@@ -67,6 +70,6 @@ export function measurePlate(input: InputText, flags: MassFlags & { json?: boole
       if (mass) texts.push(massText(mass, units));
     }
   }
-  if (flags.json) return JSON.stringify(docs.length === 1 ? docs[0] : { parts: docs }, null, 2) + '\n';
-  return texts.join('\n');
+  const out = flags.json ? JSON.stringify(docs.length === 1 ? docs[0] : { parts: docs }, null, 2) + '\n' : texts.join('\n');
+  return { out, areas: firstLayers };
 }
