@@ -1,0 +1,63 @@
+/**
+ * The drawing: what a drawing reader (SVG, DXF) hands to the one interpretation step that decides what
+ * is cut, what is marking and what is ignored, removes duplicates, refuses (or unites) overlaps and
+ * groups contours into parts. Readers only read: they resolve transforms, units and visibility and
+ * report every contour exactly, with where it came from; they never decide roles or nesting.
+ */
+import type { Segment } from '../geometry/segments.js';
+import type { LengthUnit } from '../units.js';
+
+/** Where the length unit came from: stated by the file, chosen by the user, or assumed (with a warning). */
+export type UnitSource = 'file' | 'option' | 'assumed';
+
+export interface DrawingUnits {
+  unit: LengthUnit;
+  source: UnitSource;
+  /** What the file said or what was assumed, as facts (e.g. { insunits: 4 } or { assumed: 'css-px' }). */
+  detail?: Record<string, string | number>;
+}
+
+/** Why a contour is hidden: hidden content is never cut. */
+export type HiddenReason = 'display-none' | 'visibility-hidden' | 'layer-off' | 'layer-frozen';
+
+export interface DrawnContour {
+  /** Exact segments in drawing units, after every transform; each starts where the previous ends. */
+  segments: Segment[];
+  /** True when the last segment ends where the first starts (within the reader's join tolerance). */
+  closed: boolean;
+  /** Layer (DXF layer, SVG layer group label or id) or undefined. */
+  layer?: string;
+  /** Colour as the drawing states it (DXF ACI number or true colour, SVG stroke/fill text). */
+  colour?: number | string;
+  /** Location for messages: "svg path#outline", "dxf LINE #2F layer CUT" … */
+  where: string;
+  /** Entity handles or element ids that make up this contour (DXF loose entities joined into one). */
+  sources?: string[];
+  /** A name the drawing gives this contour or its group (SVG <title>, group label, DXF block name). */
+  name?: string;
+  hidden?: HiddenReason;
+}
+
+/** A gap between loose ends that the joining step closed, or could not close. */
+export interface JoinGap {
+  x: number; y: number;
+  /** Distance between the two ends (0 for a dangling end: `closed` false). */
+  gap: number;
+  closed: boolean;
+  where: string;
+  layer?: string;
+}
+
+export interface Drawing {
+  format: 'svg' | 'dxf' | 'geojson' | 'wkt' | 'part-json';
+  /** File name or "stdin". */
+  label: string;
+  units: DrawingUnits;
+  contours: DrawnContour[];
+  /** Counts of what the reader skipped, by reason key ("text", "dimension", "hatch", "point", "paper-space", …). */
+  ignored: Record<string, number>;
+  /** Joining of loose entities: tolerance used and every gap met. */
+  join?: { tolerance: number; gaps: JoinGap[] };
+  /** A name for the whole drawing (SVG <title> of the root), if any. */
+  name?: string;
+}
