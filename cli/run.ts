@@ -4,7 +4,7 @@ export async function run(body: () => Promise<string | void>): Promise<void> {
     const out = await body();
     if (out) process.stdout.write(out);
   } catch (e) {
-    const { isInputError } = await import('../src/errors.js');
+    const { isInputError } = await import('../src/base/errors.js');
     if (isInputError(e)) {
       process.stderr.write(`platewise: ${e.message}\n`);
       process.exitCode = 2;

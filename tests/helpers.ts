@@ -1,8 +1,8 @@
 import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import { expect } from 'vitest';
-import { type MeasureOptions, type SectionResult, measureSection } from '../src/accuracy/measure.js';
-import { partFromObject } from '../src/io/partJson.js';
+import { type MeasureOptions, type SectionResult, measureSection } from '../src/analysis/measure.js';
+import { partFromObject } from '../src/read/partJson.js';
 
 /** Measure a part given as a plain part-description object. */
 export function measureObj(obj: unknown, opts: MeasureOptions = {}): SectionResult {

@@ -2,13 +2,13 @@ import { closeSync, existsSync, openSync, realpathSync, statSync, writeSync } fr
 import { availableParallelism } from 'node:os';
 import { resolve } from 'node:path';
 import { performance } from 'node:perf_hooks';
-import { InputError } from '../../src/errors.js';
-import { readInputText, writeFileAtomic } from '../../src/io/files.js';
+import { InputError } from '../../src/base/errors.js';
+import { readInputText, writeFileAtomic } from '../../src/base/files.js';
 import { type Job, folderJobs, manifestBase, parseManifest } from '../../src/batch/manifest.js';
 import { runPool } from '../../src/batch/pool.js';
-import { type BatchSummary, SummaryBuilder, batchCsvHeader, batchCsvRow, batchJsonLine, summaryText } from '../../src/batch/rows.js';
+import { type BatchSummary, SummaryBuilder, batchCsvHeader, batchCsvRow, batchJsonLine, summaryText } from '../../src/output/batchRows.js';
 import type { BatchRow } from '../../src/batch/task.js';
-import { plateFromFlags } from '../../src/qa/plate.js';
+import { plateFromFlags } from '../../src/model/plate.js';
 
 export interface BatchFlags {
   output?: string; force?: boolean; jsonl?: boolean; csv?: boolean; jobs?: number;

@@ -1,13 +1,13 @@
-import { InputError } from '../../src/errors.js';
-import { readInputText } from '../../src/io/files.js';
-import { checkReadOptions, readParts } from '../../src/io/read.js';
+import { InputError } from '../../src/base/errors.js';
+import { readInputText } from '../../src/base/files.js';
+import { checkReadOptions, readParts } from '../../src/read/read.js';
 import type { Part } from '../../src/geometry/part.js';
-import { MASS_CAUTION } from '../../src/properties/fabrication.js';
+import { MASS_CAUTION } from '../../src/output/cautions.js';
 import { explainMissing, measurePart } from '../../src/qa/compute.js';
 import { modelFor } from '../../src/batch/task.js';
-import { plateFromFlags, resolvePlate } from '../../src/qa/plate.js';
+import { plateFromFlags, resolvePlate } from '../../src/model/plate.js';
 import { readReference } from '../../src/qa/reference.js';
-import { comparisonCsv, comparisonJson, comparisonText } from '../../src/qa/report.js';
+import { comparisonCsv, comparisonJson, comparisonText } from '../../src/output/compareText.js';
 import { compareAll } from '../../src/qa/verdict.js';
 
 export interface CompareFlags {

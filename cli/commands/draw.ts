@@ -1,10 +1,10 @@
-import { measureSection } from '../../src/accuracy/measure.js';
-import { InputError } from '../../src/errors.js';
+import { measureSection } from '../../src/analysis/measure.js';
+import { InputError } from '../../src/base/errors.js';
 import { TRIANGULATORS, type Triangulator } from '../../src/mesh/triangulate.js';
-import { readInputText, writeFileAtomic, writeFilesAtomic } from '../../src/io/files.js';
-import { checkReadOptions, readParts } from '../../src/io/read.js';
-import { detectFormat } from '../../src/io/detect.js';
-import { readPlateModel } from '../../src/io/partJson.js';
+import { readInputText, writeFileAtomic, writeFilesAtomic } from '../../src/base/files.js';
+import { checkReadOptions, readParts } from '../../src/read/read.js';
+import { detectFormat } from '../../src/read/detect.js';
+import { readPlateModel } from '../../src/read/partJson.js';
 
 export interface DrawFlags {
   output?: string; mesh?: boolean; shade?: string; sheet?: boolean;
@@ -42,7 +42,7 @@ export async function draw(file: string, flags: DrawFlags): Promise<string> {
   const parts = readParts(input.text, input.label, readOpts);
   const results = parts.map((p) => measureSection(p, { degree: flags.degree, triangulation: flags.triangulation as Triangulator | undefined }));
   // the drawing stack is loaded only here, never by measure
-  const { drawPart, drawSheet } = await import('../../src/report/draw.js');
+  const { drawPart, drawSheet } = await import('../../src/output/draw.js');
   const shade = shadeText(flags.shade, input.text, input.label, readOpts.format ?? detectFormat(input.label === 'stdin' ? undefined : input.label, input.text));
   const named = flags.shade?.trim() === 'thickness' || flags.shade?.trim() === 'density';
   const unit = flags.shade?.trim() === 'density' ? 'kg/m³' : parts[0]?.units ?? '';

@@ -1,11 +1,11 @@
-import { type IntegrationOptions, integrateExpression } from '../../src/accuracy/plate.js';
-import { InputError } from '../../src/errors.js';
+import { type IntegrationOptions, integrateExpression } from '../../src/analysis/plate.js';
+import { InputError } from '../../src/base/errors.js';
 import type { Part } from '../../src/geometry/part.js';
-import { detectFormat } from '../../src/io/detect.js';
-import { readInputText } from '../../src/io/files.js';
-import { integralJson, integralText } from '../../src/io/massOutput.js';
-import { readPlateModel } from '../../src/io/partJson.js';
-import { checkReadOptions, readParts } from '../../src/io/read.js';
+import { detectFormat } from '../../src/read/detect.js';
+import { readInputText } from '../../src/base/files.js';
+import { integralJson, integralText } from '../../src/output/massText.js';
+import { readPlateModel } from '../../src/read/partJson.js';
+import { checkReadOptions, readParts } from '../../src/read/read.js';
 import { SAFE_DEGREES } from '../../src/quadrature/rules.js';
 
 export interface IntegrateFlags {

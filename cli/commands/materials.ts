@@ -1,6 +1,6 @@
-import { readInputText } from '../../src/io/files.js';
-import { type MaterialTable, listMaterials, loadMaterialFile } from '../../src/materials/index.js';
-import { MASS_CAUTION } from '../../src/cautions.js';
+import { readInputText } from '../../src/base/files.js';
+import { type MaterialTable, listMaterials, loadMaterialFile } from '../../src/model/index.js';
+import { MASS_CAUTION } from '../../src/output/cautions.js';
 
 /** Read --materials-file when given. */
 export function userMaterials(path: string | undefined): MaterialTable | undefined {

@@ -1,10 +1,10 @@
-import { measureSection } from '../../src/accuracy/measure.js';
-import { InputError } from '../../src/errors.js';
+import { measureSection } from '../../src/analysis/measure.js';
+import { InputError } from '../../src/base/errors.js';
 import { TRIANGULATORS, type Triangulator } from '../../src/mesh/triangulate.js';
-import { readInputText } from '../../src/io/files.js';
-import { sectionJson, sectionText } from '../../src/io/output.js';
+import { readInputText } from '../../src/base/files.js';
+import { sectionJson, sectionText } from '../../src/output/text.js';
 import type { MassFlags } from './measureMass.js';
-import { checkReadOptions, readParts } from '../../src/io/read.js';
+import { checkReadOptions, readParts } from '../../src/read/read.js';
 import type { FabricationFlags } from './measureFabrication.js';
 
 export interface MeasureFlags { json?: boolean; degree?: number; levels?: number; triangulation?: string; method?: string; format?: string; units?: string }

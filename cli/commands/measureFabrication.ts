@@ -8,12 +8,12 @@
  * a thickness that varies over the part (an expression) gives the figures without masses (the mass block
  * integrates it properly).
  */
-import { type MeasureOptions, type SectionResult, measureSection } from '../../src/accuracy/measure.js';
-import type { InputText } from '../../src/io/files.js';
-import { type ReadOptions, readParts } from '../../src/io/read.js';
-import { fabricationJson, fabricationText } from '../../src/io/fabricationOutput.js';
+import { type MeasureOptions, type SectionResult, measureSection } from '../../src/analysis/measure.js';
+import type { InputText } from '../../src/base/files.js';
+import { type ReadOptions, readParts } from '../../src/read/read.js';
+import { fabricationJson, fabricationText } from '../../src/output/fabricationText.js';
 import { fabricationFigures } from '../../src/properties/fabrication.js';
-import { type PlateSpec, lookupMaterial, parseDensity, parseThickness, resolvePlate } from '../../src/qa/plate.js';
+import { type PlateSpec, lookupMaterial, parseDensity, parseThickness, resolvePlate } from '../../src/model/plate.js';
 
 export interface FabricationFlags { fabrication?: boolean; thickness?: string; material?: string; density?: string }
 

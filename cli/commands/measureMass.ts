@@ -3,16 +3,16 @@
  * calls measurePlate first and goes on with its own area report when this returns undefined (a plain part
  * without thickness or density).
  */
-import { type SectionResult, measureSection } from '../../src/accuracy/measure.js';
-import { type PlateFlags, hasMassInput, measureMass, resolvePlate } from '../../src/accuracy/plate.js';
-import { InputError } from '../../src/errors.js';
-import { detectFormat } from '../../src/io/detect.js';
-import type { InputText } from '../../src/io/files.js';
-import { type MassUnits, massJson, massText } from '../../src/io/massOutput.js';
-import { sectionJson, sectionText } from '../../src/io/output.js';
-import { type PlateModel, readPlateModel, singleLayerModel } from '../../src/io/partJson.js';
-import { type ReadOptions, readParts } from '../../src/io/read.js';
-import { parseMassMomentUnit, parseMassUnit } from '../../src/materials/units.js';
+import { type SectionResult, measureSection } from '../../src/analysis/measure.js';
+import { type PlateFlags, hasMassInput, measureMass, resolvePlate } from '../../src/analysis/plate.js';
+import { InputError } from '../../src/base/errors.js';
+import { detectFormat } from '../../src/read/detect.js';
+import type { InputText } from '../../src/base/files.js';
+import { type MassUnits, massJson, massText } from '../../src/output/massText.js';
+import { sectionJson, sectionText } from '../../src/output/text.js';
+import { type PlateModel, readPlateModel, singleLayerModel } from '../../src/read/partJson.js';
+import { type ReadOptions, readParts } from '../../src/read/read.js';
+import { parseMassMomentUnit, parseMassUnit } from '../../src/model/massUnits.js';
 import { integrationOptions } from './integrate.js';
 import { userMaterials } from './materials.js';
 

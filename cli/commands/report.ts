@@ -1,12 +1,12 @@
 import { createHash } from 'node:crypto';
-import { measureSection } from '../../src/accuracy/measure.js';
-import { type MassResult, type PlateFlags, hasMassInput, measureMass, resolvePlate } from '../../src/accuracy/plate.js';
-import { InputError } from '../../src/errors.js';
+import { measureSection } from '../../src/analysis/measure.js';
+import { type MassResult, type PlateFlags, hasMassInput, measureMass, resolvePlate } from '../../src/analysis/plate.js';
+import { InputError } from '../../src/base/errors.js';
 import { TRIANGULATORS, type Triangulator } from '../../src/mesh/triangulate.js';
-import { readInputText, writeFileAtomic } from '../../src/io/files.js';
-import { type PlateModel, readPlateModel, singleLayerModel } from '../../src/io/partJson.js';
-import { checkReadOptions, readParts } from '../../src/io/read.js';
-import { detectFormat } from '../../src/io/detect.js';
+import { readInputText, writeFileAtomic } from '../../src/base/files.js';
+import { type PlateModel, readPlateModel, singleLayerModel } from '../../src/read/partJson.js';
+import { checkReadOptions, readParts } from '../../src/read/read.js';
+import { detectFormat } from '../../src/read/detect.js';
 import type { Part } from '../../src/geometry/part.js';
 import { VERSION } from '../version.js';
 
@@ -59,7 +59,7 @@ export async function report(file: string, flags: ReportFlags): Promise<string> 
     notes.push(undefined);
   });
 
-  const { buildReport } = await import('../../src/report/html.js');
+  const { buildReport } = await import('../../src/output/html.js');
   const html = await buildReport({
     file: { name: input.label, sha256: createHash('sha256').update(input.bytes).digest('hex') },
     version: VERSION,

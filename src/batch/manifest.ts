@@ -30,15 +30,15 @@
  */
 import { readdirSync, statSync } from 'node:fs';
 import { dirname, isAbsolute, join, resolve } from 'node:path';
-import { InputError } from '../errors.js';
-import { csvWhere, parseCsvRecords, parseCsvRows } from '../io/csv.js';
-import { type InputFormat, INPUT_FORMATS } from '../io/read.js';
-import type { MaterialTable } from '../materials/index.js';
-import { type PlateSpec, lookupMaterial, parseDensity, parseThickness } from '../qa/plate.js';
+import { InputError } from '../base/errors.js';
+import { csvWhere, parseCsvRecords, parseCsvRows } from '../base/csv.js';
+import { type InputFormat, INPUT_FORMATS } from '../read/read.js';
+import type { MaterialTable } from '../model/index.js';
+import { type PlateSpec, lookupMaterial, parseDensity, parseThickness } from '../model/plate.js';
 import { type StatedValue, checkQuantity, splitValueText, suggestKey, unitFor } from '../qa/reference.js';
 import { SECTION_QUANTITIES } from '../properties/quantities.js';
 import { FABRICATION_QUANTITIES } from '../properties/fabrication.js';
-import { type LengthUnit, isLengthUnit } from '../units.js';
+import { type LengthUnit, isLengthUnit } from '../base/units.js';
 
 export interface Job {
   /** Manifest row number (data records from 1) or position in the folder listing (from 1). */

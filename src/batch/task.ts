@@ -3,15 +3,15 @@
  * fabrication figures, judge the stated values. Runs inside a worker thread (src/batch/worker.ts) and may
  * be called directly (tests, a single-threaded run). Never throws: a failure becomes the row's `error`.
  */
-import { isInputError } from '../errors.js';
-import { readInputText } from '../io/files.js';
-import { readParts } from '../io/read.js';
+import { isInputError } from '../base/errors.js';
+import { readInputText } from '../base/files.js';
+import { readParts } from '../read/read.js';
 import type { Quantity } from '../properties/quantities.js';
 import { explainMissing, gapsOnly, measurePart, needsPlate, plainModel } from '../qa/compute.js';
-import { type PlateSpec, mergePlate, resolvePlate } from '../qa/plate.js';
-import { detectFormat } from '../io/detect.js';
-import { type InputFormat } from '../io/read.js';
-import { type PlateModel, readPlateModel } from '../io/partJson.js';
+import { type PlateSpec, mergePlate, resolvePlate } from '../model/plate.js';
+import { detectFormat } from '../read/detect.js';
+import { type InputFormat } from '../read/read.js';
+import { type PlateModel, readPlateModel } from '../read/partJson.js';
 import type { Part } from '../geometry/part.js';
 import { type Reference, readReference } from '../qa/reference.js';
 import { type ComparisonRow, type Verdict, compareAll } from '../qa/verdict.js';

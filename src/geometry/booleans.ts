@@ -28,7 +28,7 @@ let clipperModule: PolygonClipping | undefined;
 function polygonClipping(): PolygonClipping {
   return (clipperModule ??= createRequire(import.meta.url)('polygon-clipping') as PolygonClipping);
 }
-import { InputError } from '../errors.js';
+import { InputError } from '../base/errors.js';
 import { bezierSubCurve } from './curves.js';
 import { pointInLoop } from './nesting.js';
 import { type Loop, type Region, loopBox, loopLength, loopSignedArea } from './part.js';

@@ -4,7 +4,7 @@
  * A region is one outer loop and any number of hole loops; a part is one or more regions.
  * After `normalizePart`, outer loops run counter-clockwise and holes clockwise.
  */
-import type { LengthUnit } from '../units.js';
+import type { LengthUnit } from '../base/units.js';
 import { type Box, type Segment, ops } from './segments.js';
 
 export interface Loop {

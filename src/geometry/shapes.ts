@@ -3,7 +3,7 @@
  * They check geometric sense (positive sizes, consistent arcs) and report problems as InputError
  * naming `where`; the readers check types before calling them.
  */
-import { InputError } from '../errors.js';
+import { InputError } from '../base/errors.js';
 import type { Loop } from './part.js';
 import type { ArcSegment, LineSegment, Segment } from './segments.js';
 

@@ -6,7 +6,7 @@
  * Intersections are exact (closed form) for line/line, line/arc and arc/arc pairs; other curve kinds use
  * recursive subdivision on the exact curve down to the touching tolerance.
  */
-import { InputError } from '../errors.js';
+import { InputError } from '../base/errors.js';
 import { overlappingPairs } from './boxgrid.js';
 import { pointInLoop } from './nesting.js';
 import { type Loop, type Part, type Region, loopSignedArea, partBox } from './part.js';
@@ -75,7 +75,7 @@ export function validatePart(part: Part): number {
 
 function loopName(l: Loop): string { return l.where ?? 'loop'; }
 
-/** Largest coordinate magnitude accepted from any reader (the part-file reader's limit, src/io/partJson.ts). */
+/** Largest coordinate magnitude accepted from any reader (the part-file reader's limit, src/read/partJson.ts). */
 export const MAX_COORDINATE_MAGNITUDE = 1e12;
 
 /**

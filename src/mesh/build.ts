@@ -3,7 +3,7 @@
  * constrained to the chords, tag every triangle edge that lies on a curve, and split chords until every
  * curved triangle's map is safely valid.
  */
-import { InputError } from '../errors.js';
+import { InputError } from '../base/errors.js';
 import { type Part, partBox, translatePart } from '../geometry/part.js';
 import { type Segment, ops, piecesForTurning, segmentStart } from '../geometry/segments.js';
 import { type Mesh, TriangleMap, curvedEdgeRatio } from './mesh.js';

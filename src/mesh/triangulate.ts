@@ -11,7 +11,7 @@
 import { createRequire } from 'node:module';
 import type Cdt2d from 'cdt2d';
 import Delaunator from 'delaunator';
-import { InputError } from '../errors.js';
+import { InputError } from '../base/errors.js';
 
 /** The package ships TypeScript source as its types, read as CommonJS under NodeNext; its ESM build has a default export. */
 interface ConstrainautorLike { constrainOne(a: number, b: number): unknown; isConstrained(edge: number): boolean }

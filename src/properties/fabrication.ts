@@ -29,11 +29,11 @@
  *   rectangle itself is an exact enclosing rectangle; `area − lowerBound` is its optimality gap and is the
  *   error given for blankArea.
  */
-import { InputError } from '../errors.js';
+import { InputError } from '../base/errors.js';
 import type { Part } from '../geometry/part.js';
 import { partBox, loopLength } from '../geometry/part.js';
 import { type Segment, type Out2, ops } from '../geometry/segments.js';
-import { LENGTH_UNITS } from '../units.js';
+import { LENGTH_UNITS } from '../base/units.js';
 import { type Quantity, type QuantityInfo, registerQuantities } from './quantities.js';
 
 const EPS = Number.EPSILON;
@@ -395,12 +395,10 @@ export interface FabricationFigures {
   /** Axis-aligned bounding rectangle of the material. */
   box: { xMin: number; yMin: number; xMax: number; yMax: number; width: number; height: number };
   blank: MinRectangle;
-  /** Present whenever a mass is given: masses are for planning only. */
-  caution?: string;
+  /** 'mass' whenever a mass is given (masses are for planning only); the output layer words the caution. */
+  caution?: 'mass';
 }
 
-import { MASS_CAUTION } from '../cautions.js';
-export { MASS_CAUTION };
 
 function roundoff(v: number, terms: number): number {
   return 4 * EPS * Math.abs(v) * Math.max(1, terms);
@@ -448,13 +446,13 @@ export function fabricationFigures(part: Part, options: FabricationOptions): Fab
     blankArea: { value: blank.area, error: blankAreaErr },
     scrapFraction: { value: scrap, error: scrapErr },
   };
-  let caution: string | undefined;
+  let caution: 'mass' | undefined;
   if (options.thickness !== undefined && options.density !== undefined) {
     const toM = LENGTH_UNITS[part.units];
     const k = options.thickness * options.density * toM * toM * toM; // kg per (part unit)² of area
     quantities.netMass = { value: area.value * k, error: area.error * k + roundoff(area.value * k, 4) };
     quantities.blankMass = { value: blank.area * k, error: blankAreaErr * k + roundoff(blank.area * k, 4) };
-    caution = MASS_CAUTION;
+    caution = 'mass';
   }
   return {
     quantities,

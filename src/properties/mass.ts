@@ -12,8 +12,8 @@
  * the mid-plane; for variable thickness the exact ∫ z² dm about the centre of mass (which contains ∫ρ·t³/12
  * plus the spread of the mid-planes).
  */
-import { STANDARD_GRAVITY } from '../materials/units.js';
-import { LENGTH_UNITS, type LengthUnit } from '../units.js';
+import { STANDARD_GRAVITY } from '../model/massUnits.js';
+import { LENGTH_UNITS, type LengthUnit } from '../base/units.js';
 import { type QuantityInfo, registerQuantities } from './quantities.js';
 
 /** Number of raw mass sums per integrand vector. */
@@ -88,7 +88,7 @@ export function massFromSums(s: ArrayLike<number>, ref: readonly [number, number
 }
 
 /**
- * Error of each derived quantity, in the manner of src/accuracy/measure.ts: the difference between the
+ * Error of each derived quantity, in the manner of src/analysis/measure.ts: the difference between the
  * quantity computed from the fine and from the coarse sums, plus its first-order sensitivity to each raw
  * sum's own estimate (so errors that cancel between the two levels are not lost), plus a round-off floor
  * (64 ε times the size of the terms that were added).

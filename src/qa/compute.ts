@@ -1,7 +1,7 @@
 /**
  * Everything platewise computes for one part, in one place, for `compare` and `batch`: the section
  * quantities of `measureSection`, the fabrication figures of `fabricationFigures`, and the mass properties of
- * `measureMass` (src/accuracy/plate.ts) when a thickness and a density are known. All values are
+ * `measureMass` (src/analysis/plate.ts) when a thickness and a density are known. All values are
  * { value, error } in the part's length unit (masses kg, weight N, mass moments kg·m²).
  *
  * Where thickness and density come from, per part: the part file first (part JSON "thickness", "density",
@@ -12,13 +12,13 @@
  * netMass and blankMass (fabrication) need one constant thickness and density; a layered part or one whose
  * thickness or density varies gets the integrated `mass` and friends only.
  */
-import { type MeasureOptions, type SectionResult, measureSection } from '../accuracy/measure.js';
-import { type ResolvedLayer, measureMass, resolvePlate as resolveLayers } from '../accuracy/plate.js';
+import { type MeasureOptions, type SectionResult, measureSection } from '../analysis/measure.js';
+import { type ResolvedLayer, measureMass, resolvePlate as resolveLayers } from '../analysis/plate.js';
 import type { Part } from '../geometry/part.js';
-import { type PlateModel, singleLayerModel } from '../io/partJson.js';
+import { type PlateModel, singleLayerModel } from '../read/partJson.js';
 import { type FabricationFigures, fabricationFigures } from '../properties/fabrication.js';
 import type { Quantity } from '../properties/quantities.js';
-import type { PlateSpec, ResolvedPlate } from './plate.js';
+import type { PlateSpec, ResolvedPlate } from '../model/plate.js';
 
 export interface PartFigures {
   section: SectionResult;
@@ -36,9 +36,9 @@ export interface PartFigures {
 }
 
 /** A single-layer model for a part read from a drawing (or a part JSON without plate keys). */
-export { singleLayerModel as plainModel } from '../io/partJson.js';
+export { singleLayerModel as plainModel } from '../read/partJson.js';
 
-/** Settings in the part's unit as flag texts for `resolvePlate` (src/accuracy/plate.ts). */
+/** Settings in the part's unit as flag texts for `resolvePlate` (src/analysis/plate.ts). */
 function flagTexts(plate: ResolvedPlate): { thickness?: string; density?: string } {
   return {
     thickness: plate.thickness !== undefined ? String(plate.thickness) : undefined,

@@ -30,12 +30,12 @@
  *   Angles take absolute tolerances only.
  * - Each quantity at most once per file.
  */
-import { InputError, describeValue } from '../errors.js';
+import { InputError, describeValue } from '../base/errors.js';
 import { type Dimension, quantityInfo, SECTION_QUANTITIES } from '../properties/quantities.js';
 import { FABRICATION_QUANTITIES } from '../properties/fabrication.js';
-import { parseCsvRecords, csvWhere } from '../io/csv.js';
+import { parseCsvRecords, csvWhere } from '../base/csv.js';
 import { type ParsedUnit, parseUnit, plainScale, UNIT_EXAMPLES } from './units.js';
-import { editDistance } from '../text.js';
+import { editDistance } from '../base/text.js';
 
 export type StatedTolerance =
   | { kind: 'relative'; fraction: number; text: string }

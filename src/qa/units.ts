@@ -9,7 +9,7 @@
  * doubles nearest the exact values. Exact definitions: NIST SP 811 appendix B (1 in = 0.0254 m,
  * 1 ft = 0.3048 m, 1 lb = 0.45359237 kg, 1 lbf = 0.45359237 kg × 9.80665 m/s²).
  */
-import type { LengthUnit } from '../units.js';
+import type { LengthUnit } from '../base/units.js';
 import type { Dimension } from '../properties/quantities.js';
 
 export interface ParsedUnit {

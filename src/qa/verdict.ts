@@ -24,7 +24,7 @@
  * - ratios (scrap fraction): 0.001 absolute (0.1 percentage point).
  * - masses, mass moments, forces: 0.5 % relative: masses are usually stated to 3 significant figures.
  */
-import type { LengthUnit } from '../units.js';
+import type { LengthUnit } from '../base/units.js';
 import { type Dimension, type Quantity, quantityInfo, unitText } from '../properties/quantities.js';
 import type { Reference, StatedValue } from './reference.js';
 import { factorToReport } from './units.js';

@@ -2,7 +2,7 @@
  * Triangle quadrature rules expanded from Dunavant's orbits into flat arrays.
  * A rule's points are barycentric (l0, l1, l2) with l0 = 1 − l1 − l2; weights sum to 1 (fractions of area).
  */
-import { InputError } from '../errors.js';
+import { InputError } from '../base/errors.js';
 import { DUNAVANT_RULES, NEGATIVE_WEIGHT, POINTS_OUTSIDE } from './dunavant1985.js';
 
 export interface TriangleRule {

@@ -5,7 +5,7 @@
  * report every contour exactly, with where it came from; they never decide roles or nesting.
  */
 import type { Segment } from '../geometry/segments.js';
-import type { LengthUnit } from '../units.js';
+import type { LengthUnit } from '../base/units.js';
 
 /** Where the length unit came from: stated by the file, chosen by the user, or assumed (with a warning). */
 export type UnitSource = 'file' | 'option' | 'assumed';

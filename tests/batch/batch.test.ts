@@ -8,7 +8,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../helpers.js';
-import { parseCsvRecords } from '../../src/io/csv.js';
+import { parseCsvRecords } from '../../src/base/csv.js';
 import { generateParts } from './generate.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'platewise-batch-'));

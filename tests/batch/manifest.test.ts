@@ -8,8 +8,8 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { folderJobs, parseManifest } from '../../src/batch/manifest.js';
 import { runJob } from '../../src/batch/task.js';
-import { batchCsvRow, BATCH_CSV_HEADER } from '../../src/batch/rows.js';
-import { parseCsv } from '../../src/io/csv.js';
+import { batchCsvRow, BATCH_CSV_HEADER } from '../../src/output/batchRows.js';
+import { parseCsv } from '../../src/base/csv.js';
 
 const base = '/jobs';
 

@@ -9,7 +9,7 @@ import { mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { parseCsvRecords } from '../../src/io/csv.js';
+import { parseCsvRecords } from '../../src/base/csv.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const CLI = join(ROOT, 'dist', 'cli', 'main.js');

@@ -2,7 +2,7 @@
  * Benchmark cases (invented parts for timing only). Each case gives a platewise part and the same boundary
  * as the chords platewise triangulates, so the peers triangulate exactly what we do.
  */
-import { partFromObject } from '../../src/io/partJson.js';
+import { partFromObject } from '../../src/read/partJson.js';
 import type { Part } from '../../src/geometry/part.js';
 
 /** A W × H panel with an nx × ny grid of round holes of diameter d. */

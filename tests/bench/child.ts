@@ -3,7 +3,7 @@
  *   node dist/tests/bench/child.js square N      → straight plate of about N vertices
  * Prints JSON { n, ms, greenMs, meshMs?, rssMB }.
  */
-import { measureSection, preparePart } from '../../src/accuracy/measure.js';
+import { measureSection, preparePart } from '../../src/analysis/measure.js';
 import { greenMoments } from './green.js';
 import { squareHoles } from './cases.js';
 

@@ -7,7 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runCli as platewise } from '../helpers.js';
-import { parseCsvRecords } from '../../src/io/csv.js';
+import { parseCsvRecords } from '../../src/base/csv.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'platewise-compare-'));
 
@@ -90,7 +90,7 @@ describe('compare: verdicts and exit statuses', () => {
     expect(inch.status).toBe(0);
   });
 
-  it('mass properties from the part file\'s own thickness and material (src/accuracy/plate.ts)', () => {
+  it('mass properties from the part file\'s own thickness and material (src/analysis/plate.ts)', () => {
     // 1000 × 500 × 10 mm steel (7850 kg/m³, EN 1993-1-1, 3.2.6): m = 39.25 kg; weight m·g with standard gravity
     // 9.80665 m/s² (NIST SP 811); mass moment about the plate normal m(a² + b²)/12 (thin rectangular plate,
     // handbook closed form) = 39.25·(1 + 0.25)/12 kg·m²; centre of mass at half the thickness

@@ -89,8 +89,8 @@ describe('platewise materials and measure with mass', () => {
 
 describe('integrate warns when its own estimate says the number cannot be trusted', () => {
   it('an even-order pole inside the part (no sign change, no point hits it) gives a warning, a smooth load none', async () => {
-    const { integrateExpression } = await import('../../src/accuracy/plate.js');
-    const { partFromObject } = await import('../../src/io/partJson.js');
+    const { integrateExpression } = await import('../../src/analysis/plate.js');
+    const { partFromObject } = await import('../../src/read/partJson.js');
     const plate = partFromObject({ outline: { rectangle: { corner: [0, 0], size: [300, 300] } } });
     // ∫ 1/(x − 151.3)² dA diverges (common practice, no source: ∫ dx/x² near 0)
     const bad = integrateExpression(plate, '1/(x-151.3)^2');

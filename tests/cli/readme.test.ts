@@ -2,8 +2,8 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { measureSection } from '../../src/accuracy/measure.js';
-import { readPartJson } from '../../src/io/partJson.js';
+import { measureSection } from '../../src/analysis/measure.js';
+import { readPartJson } from '../../src/read/partJson.js';
 
 const README = readFileSync(join(import.meta.dirname, '..', '..', 'README.md'), 'utf8');
 

@@ -15,7 +15,7 @@ import { type ClipEngine, POLYGON_CLIPPING, combineShapes } from '../../src/geom
 import { circleLoop, polygonLoop, rectangleLoop } from '../../src/geometry/shapes.js';
 import { type Loop, type Region, loopSignedArea } from '../../src/geometry/part.js';
 import { validatePart } from '../../src/geometry/validate.js';
-import { InputError } from '../../src/errors.js';
+import { InputError } from '../../src/base/errors.js';
 import { rng } from '../helpers.js';
 
 const POLYCLIP_TS: ClipEngine = {

@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { expectSectionClose, measureObj } from '../helpers.js';
-import { partFromObject } from '../../src/io/partJson.js';
-import { InputError } from '../../src/errors.js';
+import { partFromObject } from '../../src/read/partJson.js';
+import { InputError } from '../../src/base/errors.js';
 
 type M = { A: number; Sx: number; Sy: number; Ixx: number; Iyy: number; Ixy: number }; // raw moments about the origin
 const sub = (a: M, b: M): M => ({ A: a.A - b.A, Sx: a.Sx - b.Sx, Sy: a.Sy - b.Sy, Ixx: a.Ixx - b.Ixx, Iyy: a.Iyy - b.Iyy, Ixy: a.Ixy - b.Ixy });

@@ -1,6 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import { expectSectionClose, measureObj } from '../helpers.js';
-import { partFromObject } from '../../src/io/partJson.js';
+import { partFromObject } from '../../src/read/partJson.js';
 
 
 describe('grid of holes', () => {

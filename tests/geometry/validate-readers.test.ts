@@ -3,9 +3,9 @@
  * one InputError naming the element, feature or character offset where the bad ring is.
  */
 import { describe, it, expect } from 'vitest';
-import { readParts } from '../../src/io/read.js';
-import { preparePart } from '../../src/accuracy/measure.js';
-import { InputError } from '../../src/errors.js';
+import { readParts } from '../../src/read/read.js';
+import { preparePart } from '../../src/analysis/measure.js';
+import { InputError } from '../../src/base/errors.js';
 
 function firstError(text: string, label: string): InputError {
   try {

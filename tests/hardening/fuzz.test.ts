@@ -9,13 +9,13 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { measureSection, preparePart } from '../../src/accuracy/measure.js';
-import { InputError } from '../../src/errors.js';
-import { compileExpression } from '../../src/functions/index.js';
+import { measureSection, preparePart } from '../../src/analysis/measure.js';
+import { InputError } from '../../src/base/errors.js';
+import { compileExpression } from '../../src/expr/index.js';
 import { type Part, loopSignedArea } from '../../src/geometry/part.js';
-import { readPlateModel } from '../../src/io/partJson.js';
-import { readParts } from '../../src/io/read.js';
-import { parsePathData, readSvg } from '../../src/io/svg.js';
+import { readPlateModel } from '../../src/read/partJson.js';
+import { readParts } from '../../src/read/read.js';
+import { parsePathData, readSvg } from '../../src/read/svg.js';
 import { rng } from '../helpers.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');

@@ -10,7 +10,7 @@
  */
 import fc from 'fast-check';
 import { afterAll, describe, expect, it } from 'vitest';
-import type { SectionResult } from '../../src/accuracy/measure.js';
+import type { SectionResult } from '../../src/analysis/measure.js';
 import { measureObj } from '../helpers.js';
 import { type P, type PlateObj, buildPlate, mapPlate, plateSpec } from './plates.js';
 

@@ -4,13 +4,13 @@
  * no source; the crossing points are checked against dense sampling of the exact curves (below).
  */
 import { describe, expect, it } from 'vitest';
-import { integrateExpression } from '../../src/accuracy/plate.js';
-import { preparePart } from '../../src/accuracy/measure.js';
-import { InputError } from '../../src/errors.js';
+import { integrateExpression } from '../../src/analysis/plate.js';
+import { preparePart } from '../../src/analysis/measure.js';
+import { InputError } from '../../src/base/errors.js';
 import { segmentPoint } from '../../src/geometry/segments.js';
-import { partFromObject } from '../../src/io/partJson.js';
-import { readParts } from '../../src/io/read.js';
-import { parsePathData, readSvg } from '../../src/io/svg.js';
+import { partFromObject } from '../../src/read/partJson.js';
+import { readParts } from '../../src/read/read.js';
+import { parsePathData, readSvg } from '../../src/read/svg.js';
 
 const svgOf = (d: string) => `<svg xmlns="http://www.w3.org/2000/svg" width="200mm" height="200mm" viewBox="0 0 200 200"><path d="${d}"/></svg>`;
 

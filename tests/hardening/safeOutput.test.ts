@@ -9,8 +9,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import { runCli } from '../helpers.js';
-import { InputError } from '../../src/errors.js';
-import { writeFileAtomic, writeFilesAtomic } from '../../src/io/files.js';
+import { InputError } from '../../src/base/errors.js';
+import { writeFileAtomic, writeFilesAtomic } from '../../src/base/files.js';
 
 const base = mkdtempSync(join(tmpdir(), 'platewise-safe-'));
 let dir = '';

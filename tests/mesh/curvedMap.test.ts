@@ -98,7 +98,7 @@ describe('curved triangle map (blending map with smooth Jacobian)', () => {
 
 describe('regressions', () => {
   it('a loop of one full-turn elliptical arc meshes (the chord that wraps to the start ends at t = 1)', async () => {
-    const { measureSection } = await import('../../src/accuracy/measure.js');
+    const { measureSection } = await import('../../src/analysis/measure.js');
     const part = { name: 'e', units: 'mm' as const, regions: [{ outer: { segments: [{ kind: 'ellipticalArc' as const, cx: 3, cy: -2, rx: 50, ry: 20, phi: 0.3, t0: 0, t1: 2 * Math.PI }] }, holes: [] }] };
     const r = measureSection(part);
     // ellipse area πab (closed form)

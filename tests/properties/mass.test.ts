@@ -4,9 +4,9 @@
  * about its centre ∫x² dA = πr⁴/4; parallel-axis theorem), and against the trade's rule of thumb.
  */
 import { describe, expect, it } from 'vitest';
-import { measureMass, resolvePlate } from '../../src/accuracy/plate.js';
-import { plateModelFromObject } from '../../src/io/partJson.js';
-import { MASS_MOMENT_UNITS, MASS_UNITS } from '../../src/materials/units.js';
+import { measureMass, resolvePlate } from '../../src/analysis/plate.js';
+import { plateModelFromObject } from '../../src/read/partJson.js';
+import { MASS_MOMENT_UNITS, MASS_UNITS } from '../../src/model/massUnits.js';
 import { STANDARD_GRAVITY } from '../../src/properties/mass.js';
 import { rel } from '../helpers.js';
 

@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { parseReferenceJson, parseReferenceCsv, readReference, suggestKey } from '../../src/qa/reference.js';
 import { parseUnit, factorToReport } from '../../src/qa/units.js';
-import { InputError } from '../../src/errors.js';
+import { InputError } from '../../src/base/errors.js';
 
 function errorOf(f: () => unknown): InputError {
   try { f(); } catch (e) { if (e instanceof InputError) return e; throw e; }

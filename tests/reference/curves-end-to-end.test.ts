@@ -5,8 +5,8 @@
  * moments, and the reported estimate is never below the true error.
  */
 import { describe, it, expect } from 'vitest';
-import { readParts } from '../../src/io/read.js';
-import { measureSection } from '../../src/accuracy/measure.js';
+import { readParts } from '../../src/read/read.js';
+import { measureSection } from '../../src/analysis/measure.js';
 import { type SectionRef, expectSectionClose } from '../helpers.js';
 
 type Ref = SectionRef;

@@ -4,7 +4,7 @@
  * Every value is checked to 1e-12 relative, and the tool's own estimate must cover the true error.
  */
 import { describe, expect, it } from 'vitest';
-import type { SectionResult } from '../../src/accuracy/measure.js';
+import type { SectionResult } from '../../src/analysis/measure.js';
 import { measureObj, rel } from '../helpers.js';
 
 function expectClose(r: SectionResult, key: keyof SectionResult['quantities'], exact: number, tol = 1e-12, scale = Math.abs(exact)) {

@@ -1,0 +1,337 @@
+/**
+ * Integrate a vector of functions over a meshed part, with a per-triangle error indicator and, on request,
+ * adaptive refinement to a tolerance.
+ *
+ * Every active ("leaf") triangle T is integrated with the chosen rule, and so are its four children
+ * (edge midpoints; a curved edge is split at its parameter midpoint, on the curve, as refineUniform does).
+ * The reported value is the sum over the children of all leaves (the fine value); the sum over the leaves
+ * themselves is the coarse value; the indicator of T is |Σ children − T| per component, and the estimate of
+ * a component is the sum of its indicators (≥ |fine − coarse|, and for a converging rule an upper bound of
+ * the coarse value's error, hence on the safe side for the fine one). Each triangle is also integrated with a
+ * companion rule (the next lower safe degree), and a leaf's indicator is the larger of |Σ children − T| and
+ * |Σ children − Σ children by the companion rule|: the second check is independent of the first, so a chance
+ * agreement between parent and children (seen on kinks) does not make the estimate understate.
+ *
+ * Without a tolerance the leaves are the base mesh: the same two levels (mesh and its uniform refinement) as
+ * measureSection. With a tolerance, the leaves with the largest indicators are split (each into its four
+ * children, without touching neighbours: hanging nodes do no harm to integration, since the children still
+ * partition the parent exactly) until every driving component's estimate is below its tolerance, or a cap on
+ * triangles or time is reached — the result says which (`stopped`).
+ *
+ * Functions are evaluated only at rule points of the safe Dunavant rules, which lie strictly inside each
+ * triangle, through the exact (curved) map; they are never evaluated outside the part.
+ */
+import { ops } from '../geometry/segments.js';
+import { type Mesh, TriangleMap } from '../mesh/mesh.js';
+import { SAFE_DEGREES, getRule } from '../quadrature/rules.js';
+import { InputError } from '../base/errors.js';
+
+/**
+ * Fill `out` (length K) with the integrands at a point. (x, y) are part coordinates; (lx, ly) the same point
+ * relative to the mesh's local origin (use these for moments, they keep their digits far from the origin).
+ */
+export type PointFunction = (x: number, y: number, lx: number, ly: number, out: Float64Array) => void;
+
+export type StopReason = 'uniform' | 'tolerance' | 'triangle cap' | 'time cap';
+
+export interface AdaptiveOptions {
+  /** Dunavant rule degree (a safe degree: points strictly inside, positive weights). */
+  degree: number;
+  /** Relative tolerance; undefined = no adaptivity (mesh and its uniform refinement). */
+  tolerance?: number;
+  /**
+   * Absolute floor of each component's tolerance as a fraction of Σ|∫ f_k| over the triangles
+   * (default 1e-3): a component whose integral is near zero (a first moment about a central origin,
+   * a load that changes sign) needs a floor to be reachable at all.
+   */
+  floorFraction?: number;
+  /**
+   * Optional absolute tolerance per component (same units as the component), from the current fine values
+   * (e.g. a first moment to within tolerance × integral × part size); the larger one applies.
+   */
+  absTolerance?: (fine: Float64Array, tolerance: number) => readonly (number | undefined)[];
+  /** Components that must meet the tolerance (default: all). */
+  drive?: readonly number[];
+  /** Cap on the triangles of the fine level (default 400 000). */
+  maxTriangles?: number;
+  /** Cap on the time spent, milliseconds (default 30 000). */
+  maxMillis?: number;
+}
+
+export interface AdaptiveResult {
+  /** Σ over children of the leaves: the reported value of each component. */
+  fine: Float64Array;
+  /** Σ over the leaves. */
+  coarse: Float64Array;
+  /** Σ over leaves of |Σ children − leaf|, per component. */
+  estimate: Float64Array;
+  /** Σ over fine triangles of |∫ f_k| (for round-off floors and tolerance floors). */
+  scale: Float64Array;
+  /** Tolerance each component had to meet (absolute), or NaN without adaptivity. */
+  target: Float64Array;
+  stopped: StopReason;
+  /** Triangles of the fine level (4 × leaves). */
+  triangles: number;
+  leaves: number;
+  baseTriangles: number;
+  rounds: number;
+  /** Quadrature points evaluated. */
+  points: number;
+  rulePoints: number;
+  degree: number;
+  minJacobianRatio: number;
+  millis: number;
+}
+
+export const DEFAULT_MAX_TRIANGLES = 400_000;
+export const DEFAULT_MAX_MILLIS = 30_000;
+export const DEFAULT_FLOOR_FRACTION = 1e-3;
+const ROUNDOFF = 64 * Number.EPSILON;
+
+/** A mesh that grows by splitting triangles; plain arrays viewed as a Mesh for TriangleMap. */
+class GrowingMesh {
+  coords: number[];
+  triangles: number[];
+  edgeCurve: number[];
+  curveSeg: number[];
+  curveS0: number[];
+  curveS1: number[];
+  readonly view: Mesh;
+  private readonly p: [number, number] = [0, 0];
+
+  constructor(private readonly base: Mesh) {
+    this.coords = Array.from(base.coords);
+    this.triangles = Array.from(base.triangles);
+    this.edgeCurve = Array.from(base.edgeCurve);
+    this.curveSeg = Array.from(base.curveSeg);
+    this.curveS0 = Array.from(base.curveS0);
+    this.curveS1 = Array.from(base.curveS1);
+    // TriangleMap only indexes these arrays, so number[] serves as well as a typed array.
+    this.view = {
+      origin: base.origin, coords: this.coords, triangles: this.triangles, edgeCurve: this.edgeCurve,
+      curveSeg: this.curveSeg, curveS0: this.curveS0, curveS1: this.curveS1, segments: base.segments, level: base.level,
+    } as unknown as Mesh;
+  }
+
+  private midpoint(a: number, b: number, rec: number): number {
+    const idx = this.coords.length / 2;
+    if (rec >= 0) {
+      const s = this.base.segments[this.curveSeg[rec]];
+      ops(s).point(s, (this.curveS0[rec] + this.curveS1[rec]) / 2, this.p);
+      this.coords.push(this.p[0], this.p[1]);
+    } else {
+      const c = this.coords;
+      this.coords.push((c[2 * a] + c[2 * b]) / 2, (c[2 * a + 1] + c[2 * b + 1]) / 2);
+    }
+    return idx;
+  }
+
+  private half(rec: number, first: boolean): number {
+    if (rec < 0) return -1;
+    const a = this.curveS0[rec], b = this.curveS1[rec], c = (a + b) / 2;
+    const id = this.curveSeg.length;
+    this.curveSeg.push(this.curveSeg[rec]);
+    this.curveS0.push(first ? a : c);
+    this.curveS1.push(first ? c : b);
+    return id;
+  }
+
+  /** Append the four children of triangle t; returns the index of the first (the others follow). */
+  split(t: number): number {
+    const T = this.triangles, E = this.edgeCurve;
+    const v0 = T[3 * t], v1 = T[3 * t + 1], v2 = T[3 * t + 2];
+    const r0 = E[3 * t], r1 = E[3 * t + 1], r2 = E[3 * t + 2];
+    const m01 = this.midpoint(v0, v1, r0), m12 = this.midpoint(v1, v2, r1), m20 = this.midpoint(v2, v0, r2);
+    const first = T.length / 3;
+    T.push(v0, m01, m20, m01, v1, m12, m20, m12, v2, m01, m12, m20);
+    // same edge bookkeeping as refineUniform: corner triangles keep half of each curved edge
+    E.push(this.half(r0, true), -1, this.half(r2, false));
+    E.push(this.half(r0, false), this.half(r1, true), -1);
+    E.push(-1, this.half(r1, false), this.half(r2, true));
+    E.push(-1, -1, -1);
+    return first;
+  }
+}
+
+/**
+ * Integrate K components over the mesh (see the file comment). Throws whatever `f` throws (an InputError
+ * for a non-finite or out-of-range value, located by the caller).
+ */
+export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts: AdaptiveOptions): AdaptiveResult {
+  const start = Date.now();
+  const rule = getRule(opts.degree);
+  // companion rule: the next lower safe degree (degree 1: the next higher), a second, independent check
+  const si = SAFE_DEGREES.indexOf(opts.degree);
+  const rule2 = getRule(SAFE_DEGREES[si > 0 ? si - 1 : 1]);
+  if (rule.negativeWeight || rule.pointsOutside) {
+    throw new InputError('degree', `rule of degree ${opts.degree} has points outside the triangle or negative weights; adaptive integration needs a safe degree`);
+  }
+  const maxTriangles = opts.maxTriangles ?? DEFAULT_MAX_TRIANGLES;
+  const maxMillis = opts.maxMillis ?? DEFAULT_MAX_MILLIS;
+  const floorFraction = opts.floorFraction ?? DEFAULT_FLOOR_FRACTION;
+  const drive = opts.drive ?? [...Array(K).keys()];
+  const g = new GrowingMesh(mesh);
+  const map = new TriangleMap();
+  const [ox, oy] = mesh.origin;
+  const out = new Float64Array(K);
+  let points = 0;
+  let minRatio = Infinity;
+
+  // value of every stored triangle (K per triangle), grown as needed
+  let vals = new Float64Array(Math.max(16, mesh.triangles.length / 3 * 8) * K);
+  let vals2 = new Float64Array(vals.length);
+  const ensure = (nTri: number) => {
+    if (nTri * K <= vals.length) return;
+    const bigger = new Float64Array(Math.max(nTri * K, vals.length * 2));
+    bigger.set(vals);
+    vals = bigger;
+    const bigger2 = new Float64Array(bigger.length);
+    bigger2.set(vals2);
+    vals2 = bigger2;
+  };
+  const evalTriangle = (t: number) => {
+    map.load(g.view, t);
+    const o = t * K;
+    for (let k = 0; k < K; k++) vals[o + k] = 0;
+    const n = rule.n, L1 = rule.l1, L2 = rule.l2, W = rule.w;
+    for (let q = 0; q < n; q++) {
+      map.at(L1[q], L2[q]);
+      const wj = W[q] * map.jac * 0.5;
+      if (map.curved) {
+        const r = map.jac / map.det;
+        if (r < minRatio) minRatio = r;
+      }
+      f(map.x + ox, map.y + oy, map.x, map.y, out);
+      for (let k = 0; k < K; k++) vals[o + k] += wj * out[k];
+    }
+    points += n;
+    for (let k = 0; k < K; k++) vals2[o + k] = 0;
+    for (let q = 0; q < rule2.n; q++) {
+      map.at(rule2.l1[q], rule2.l2[q]);
+      const wj = rule2.w[q] * map.jac * 0.5;
+      f(map.x + ox, map.y + oy, map.x, map.y, out);
+      for (let k = 0; k < K; k++) vals2[o + k] += wj * out[k];
+    }
+    points += rule2.n;
+  };
+  /**
+   * Indicator of leaf t, component k: the larger of |Σ children − t| (refinement) and
+   * |Σ children − Σ children by the companion rule| (rule), so that a chance agreement of one pair
+   * (a kink crossing a triangle can make parent and children err alike) does not hide the error.
+   */
+  const indicatorOf = (t: number, k: number): number => {
+    const c = firstChild[t];
+    let ch = 0, ch2 = 0;
+    for (let j = 0; j < 4; j++) { ch += vals[(c + j) * K + k]; ch2 += vals2[(c + j) * K + k]; }
+    return Math.max(Math.abs(ch - vals[t * K + k]), Math.abs(ch - ch2));
+  };
+
+  // children[t] = index of the first of t's four children, for leaves
+  const firstChild: number[] = [];
+  const expand = (t: number) => {
+    const c = g.split(t);
+    ensure(c + 4);
+    for (let i = 0; i < 4; i++) evalTriangle(c + i);
+    firstChild[t] = c;
+  };
+
+  const nBase = mesh.triangles.length / 3;
+  ensure(nBase);
+  let leaves: number[] = [];
+  for (let t = 0; t < nBase; t++) {
+    evalTriangle(t);
+    expand(t);
+    leaves.push(t);
+  }
+
+  const fine = new Float64Array(K), coarse = new Float64Array(K), estimate = new Float64Array(K), scale = new Float64Array(K);
+  const target = new Float64Array(K).fill(NaN);
+  const indicator = new Float64Array(K); // scratch
+  const totals = () => {
+    const cf = new Float64Array(K), cc = new Float64Array(K);
+    fine.fill(0); coarse.fill(0); estimate.fill(0); scale.fill(0);
+    const add = (sum: Float64Array, comp: Float64Array, k: number, v: number) => {
+      const s = sum[k], t = s + v;
+      comp[k] += Math.abs(s) >= Math.abs(v) ? (s - t) + v : (v - t) + s;
+      sum[k] = t;
+    };
+    for (const t of leaves) {
+      const c = firstChild[t];
+      for (let k = 0; k < K; k++) {
+        const a = vals[c * K + k], b = vals[(c + 1) * K + k], d = vals[(c + 2) * K + k], e = vals[(c + 3) * K + k];
+        const ch = a + b + d + e;
+        add(fine, cf, k, ch);
+        add(coarse, cc, k, vals[t * K + k]);
+        estimate[k] += indicatorOf(t, k);
+        scale[k] += Math.abs(a) + Math.abs(b) + Math.abs(d) + Math.abs(e);
+      }
+    }
+    for (let k = 0; k < K; k++) { fine[k] += cf[k]; coarse[k] += cc[k]; }
+  };
+  totals();
+
+  let stopped: StopReason = 'uniform';
+  let rounds = 0;
+  if (opts.tolerance !== undefined) {
+    const tol = opts.tolerance;
+    const setTargets = () => {
+      const absTol = opts.absTolerance?.(fine, tol);
+      for (let k = 0; k < K; k++) {
+        const abs = absTol?.[k] ?? 0;
+        target[k] = Math.max(tol * Math.abs(fine[k]), tol * floorFraction * scale[k], abs, ROUNDOFF * 4 * scale[k]);
+      }
+    };
+    setTargets();
+    for (;;) {
+      const met = drive.every((k) => estimate[k] <= target[k]);
+      if (met) { stopped = 'tolerance'; break; }
+      if (Date.now() - start > maxMillis) { stopped = 'time cap'; break; }
+      const room = Math.floor((maxTriangles - 4 * leaves.length) / 12); // each split adds 3 leaves = 12 fine triangles
+      if (room < 1) { stopped = 'triangle cap'; break; }
+      // normalised indicator of each leaf: the largest share of any driving component's target
+      const r = new Float64Array(leaves.length);
+      let total = 0;
+      for (let i = 0; i < leaves.length; i++) {
+        const t = leaves[i];
+        let worst = 0;
+        for (const k of drive) {
+          indicator[k] = indicatorOf(t, k);
+          const s = indicator[k] / target[k];
+          if (s > worst) worst = s;
+        }
+        r[i] = worst;
+        total += worst;
+      }
+      // Dörfler-style marking: the largest indicators until they cover half of the total
+      const order = [...r.keys()].sort((a, b) => r[b] - r[a]);
+      const marked = new Set<number>();
+      let covered = 0;
+      for (const i of order) {
+        if (covered >= 0.5 * total || marked.size >= room) break;
+        if (r[i] === 0) break;
+        marked.add(i);
+        covered += r[i];
+      }
+      if (marked.size === 0) { stopped = 'tolerance'; break; }
+      const next: number[] = [];
+      let timedOut = false;
+      for (let i = 0; i < leaves.length; i++) {
+        const t = leaves[i];
+        if (!marked.has(i) || timedOut) { next.push(t); continue; }
+        const c = firstChild[t];
+        for (let j = 0; j < 4; j++) { expand(c + j); next.push(c + j); }
+        if ((i & 63) === 0 && Date.now() - start > maxMillis) timedOut = true;
+      }
+      leaves = next;
+      rounds++;
+      totals();
+      setTargets();
+    }
+  }
+  return {
+    fine, coarse, estimate, scale, target, stopped,
+    triangles: 4 * leaves.length, leaves: leaves.length, baseTriangles: nBase, rounds, points,
+    rulePoints: rule.n, degree: opts.degree, minJacobianRatio: minRatio === Infinity ? 1 : minRatio,
+    millis: Date.now() - start,
+  };
+}

@@ -1,0 +1,220 @@
+/**
+ * CSV reading and writing after RFC 4180 (section 2):
+ * - fields are separated by commas, records by line breaks (CRLF, LF or a lone CR are all accepted);
+ * - the last record may or may not end with a line break;
+ * - a field may be enclosed in double quotes; then it may hold commas, line breaks and quotes,
+ *   a quote being written twice ("");
+ * - spaces are part of a field (they are never trimmed by parseCsv);
+ * - a UTF-8 byte-order mark at the very start is skipped.
+ * Malformed input (a quote inside an unquoted field, text after a closing quote, an unterminated quote)
+ * is an InputError located as `${label}:line L, column C` (1-based; the column counts characters of the
+ * physical line, the BOM not counted).
+ */
+import { InputError } from './errors.js';
+
+/** One parsed record with where it came from. */
+export interface CsvRow {
+  fields: string[];
+  /** Line (1-based) on which the record starts. */
+  line: number;
+  /** For each field, [line, column] (1-based) of its first character (the opening quote if quoted). */
+  starts: [number, number][];
+}
+
+export function csvWhere(label: string, line: number, column: number): string {
+  return `${label}:line ${line}, column ${column}`;
+}
+
+/** Parse CSV text into records with their locations. Empty text gives no records. */
+export function parseCsvRows(text: string, label: string): CsvRow[] {
+  let i = text.charCodeAt(0) === 0xfeff ? 1 : 0;
+  const n = text.length;
+  const rows: CsvRow[] = [];
+  let line = 1;
+  let lineStart = i; // index of the first character of the current physical line
+  const col = (k: number) => k - lineStart + 1;
+  if (i >= n) return rows;
+
+  let fields: string[] = [];
+  let starts: [number, number][] = [];
+  let rowLine = line;
+
+  // i is at the start of a field on each pass
+  for (;;) {
+    const fLine = line, fCol = col(i);
+    let value = '';
+    if (i < n && text[i] === '"') {
+      // quoted field
+      const openLine = line, openCol = col(i);
+      i++;
+      let closed = false;
+      let chunkStart = i;
+      while (i < n) {
+        const c = text[i];
+        if (c === '"') {
+          if (text[i + 1] === '"') {
+            value += text.slice(chunkStart, i + 1);
+            i += 2;
+            chunkStart = i;
+            continue;
+          }
+          value += text.slice(chunkStart, i);
+          i++;
+          closed = true;
+          break;
+        }
+        if (c === '\r' || c === '\n') {
+          if (c === '\r' && text[i + 1] === '\n') i++;
+          i++;
+          line++;
+          lineStart = i;
+          continue;
+        }
+        i++;
+      }
+      if (!closed) {
+        throw new InputError(csvWhere(label, openLine, openCol), 'this quoted field is never closed (expected a closing double quote)');
+      }
+      if (i < n && text[i] !== ',' && text[i] !== '\r' && text[i] !== '\n') {
+        throw new InputError(csvWhere(label, line, col(i)),
+          `expected a comma or the end of the line after a closing quote, got ${JSON.stringify(text[i])} (write a quote inside a quoted field as "")`);
+      }
+    } else {
+      const s = i;
+      while (i < n) {
+        const c = text[i];
+        if (c === ',' || c === '\r' || c === '\n') break;
+        if (c === '"') {
+          throw new InputError(csvWhere(label, line, col(i)),
+            'a double quote inside an unquoted field; expected the whole field in quotes with the quote doubled ("")');
+        }
+        i++;
+      }
+      value = text.slice(s, i);
+    }
+    fields.push(value);
+    starts.push([fLine, fCol]);
+    if (i >= n) {
+      rows.push({ fields, line: rowLine, starts });
+      return rows;
+    }
+    const c = text[i];
+    if (c === ',') {
+      i++;
+      continue; // a comma at the very end makes a last, empty field
+    }
+    // line break ends the record
+    if (c === '\r' && text[i + 1] === '\n') i++;
+    i++;
+    line++;
+    lineStart = i;
+    rows.push({ fields, line: rowLine, starts });
+    if (i >= n) return rows; // optional final line break
+    fields = [];
+    starts = [];
+    rowLine = line;
+  }
+}
+
+/** Parse CSV text into records of fields (see the module comment for the rules). */
+export function parseCsv(text: string, label: string): string[][] {
+  return parseCsvRows(text, label).map((r) => r.fields);
+}
+
+export interface CsvRecords {
+  /** Header names, trimmed of surrounding spaces. */
+  header: string[];
+  /** One object per data record, keyed by header name (null prototype). */
+  records: Record<string, string>[];
+  /** For each record, its starting line and the [line, column] of each field by header name. */
+  locations: { line: number; fields: Record<string, [number, number]> }[];
+}
+
+export interface CsvRecordOptions {
+  /** Header names that must be present. */
+  required?: readonly string[];
+  /** If given, the only header names accepted (required ones are always accepted). */
+  allowed?: readonly string[];
+}
+
+/**
+ * Parse CSV whose first record is a header. Header names are trimmed; an empty or repeated header name,
+ * a missing required column, a column not allowed, or a record with a different number of fields than the
+ * header is an InputError with its location. Blank lines (a record of one empty field) are skipped.
+ */
+export function parseCsvRecords(text: string, label: string, options: CsvRecordOptions = {}): CsvRecords {
+  const rows = parseCsvRows(text, label).filter((r) => !(r.fields.length === 1 && r.fields[0] === ''));
+  if (rows.length === 0) throw new InputError(label, 'expected a header line, got no data');
+  const head = rows[0];
+  const header = head.fields.map((h) => h.trim());
+  const seen = new Map<string, number>();
+  header.forEach((h, k) => {
+    const [l, c] = head.starts[k];
+    if (h === '') throw new InputError(csvWhere(label, l, c), `expected a column name, got an empty header field (column ${k + 1})`);
+    if (seen.has(h)) {
+      throw new InputError(csvWhere(label, l, c), `repeats the column name "${h}" (first in field ${seen.get(h)! + 1}); expected each name once`);
+    }
+    seen.set(h, k);
+  });
+  for (const r of options.required ?? []) {
+    if (!seen.has(r)) {
+      throw new InputError(csvWhere(label, head.line, 1), `expected a column named "${r}"; the header has ${header.map((h) => `"${h}"`).join(', ')}`);
+    }
+  }
+  if (options.allowed) {
+    const ok = new Set([...options.allowed, ...(options.required ?? [])]);
+    header.forEach((h, k) => {
+      if (!ok.has(h)) {
+        const [l, c] = head.starts[k];
+        throw new InputError(csvWhere(label, l, c), `unknown column "${h}"; expected one of ${[...ok].map((x) => `"${x}"`).join(', ')}`);
+      }
+    });
+  }
+  const records: Record<string, string>[] = [];
+  const locations: CsvRecords['locations'] = [];
+  for (const r of rows.slice(1)) {
+    if (r.fields.length !== header.length) {
+      const k = Math.min(r.fields.length, header.length) - 1;
+      const [l, c] = r.starts[Math.max(0, r.fields.length > header.length ? header.length : k)];
+      throw new InputError(csvWhere(label, l, c),
+        `expected ${header.length} fields as in the header, got ${r.fields.length}`);
+    }
+    const rec: Record<string, string> = Object.create(null);
+    const loc: Record<string, [number, number]> = Object.create(null);
+    header.forEach((h, k) => {
+      rec[h] = r.fields[k];
+      loc[h] = r.starts[k];
+    });
+    records.push(rec);
+    locations.push({ line: r.line, fields: loc });
+  }
+  return { header, records, locations };
+}
+
+/** Text for a number that reads back to the same double: JS's shortest round-trip form, and -0 kept. */
+export function formatCsvNumber(x: number): string {
+  if (Object.is(x, -0)) return '-0';
+  return String(x);
+}
+
+/** One CSV field: quoted when it holds a comma, a double quote, CR or LF. null/undefined give an empty field. */
+export function formatCsvField(f: string | number | null | undefined): string {
+  if (f === null || f === undefined) return '';
+  const s = typeof f === 'number' ? formatCsvNumber(f) : f;
+  if (/[",\r\n]/.test(s)) return `"${s.replace(/"/g, '""')}"`;
+  return s;
+}
+
+/**
+ * One CSV record without a line break. A record of a single empty field is written as `""` so that it
+ * cannot be mistaken for a blank line or for no record at all.
+ */
+export function formatCsvRow(fields: readonly (string | number | null | undefined)[]): string {
+  const s = fields.map(formatCsvField).join(',');
+  return s === '' && fields.length === 1 ? '""' : s;
+}
+
+/** Whole CSV text: records joined and ended with CRLF, as RFC 4180 writes them. */
+export function formatCsv(rows: readonly (readonly (string | number | null | undefined)[])[]): string {
+  return rows.map((r) => formatCsvRow(r) + '\r\n').join('');
+}

@@ -1,0 +1,115 @@
+/**
+ * Writers for mass properties (measure with thickness and density) and for user integrals (integrate):
+ * a plain-text table for people and a stable JSON shape for programs. Kept apart from output.ts, which
+ * owns the area-property writers.
+ *
+ * JSON keys (stable): mass, weight, massCentreX, massCentreY, massCentreZ, massMomentX, massMomentY,
+ * massMomentZ, massProductXY, massProductXZ, massProductYZ — each { value, error } in the units named in
+ * "units" (mass: kg | g | lb; weight: N; centres: the part's length unit; moments: kg·m² | lb·in² | …).
+ */
+import type { ExpressionResult, MassResult } from '../analysis/plate.js';
+import { stopText } from '../analysis/plate.js';
+import { GEOMETRY_CAUTION, MASS_CAUTION } from './cautions.js';
+import { type MassMomentUnit, type MassUnit, massFromKg, massMomentFromSI } from '../model/massUnits.js';
+import { MASS_QUANTITIES, type MassKey } from '../properties/mass.js';
+import type { Quantity } from '../properties/quantities.js';
+import { type QuantityRow, formatError, formatNumber, renderRows } from './text.js';
+
+export interface MassUnits {
+  mass: MassUnit;
+  inertia: MassMomentUnit;
+}
+
+function convert(key: MassKey, q: Quantity, u: MassUnits): Quantity {
+  const info = MASS_QUANTITIES.find((i) => i.key === key)!;
+  switch (info.dimension) {
+    case 'mass': return { value: massFromKg(q.value, u.mass), error: massFromKg(q.error, u.mass) };
+    case 'massMoment': return { value: massMomentFromSI(q.value, u.inertia), error: massMomentFromSI(q.error, u.inertia) };
+    default: return { value: q.value, error: q.error };
+  }
+}
+
+function unitOf(key: MassKey, length: string, u: MassUnits): string {
+  const d = MASS_QUANTITIES.find((i) => i.key === key)!.dimension;
+  return d === 'mass' ? u.mass : d === 'massMoment' ? u.inertia : d === 'force' ? 'N' : length;
+}
+
+function convertAll(q: Record<MassKey, Quantity>, u: MassUnits): Record<string, Quantity> {
+  const out: Record<string, Quantity> = {};
+  for (const i of MASS_QUANTITIES) out[i.key] = convert(i.key as MassKey, q[i.key as MassKey], u);
+  return out;
+}
+
+function rows(q: Record<MassKey, Quantity>, length: string, u: MassUnits): QuantityRow[] {
+  return MASS_QUANTITIES.map((i) => {
+    const c = convert(i.key as MassKey, q[i.key as MassKey], u);
+    return { key: i.key, value: formatNumber(c.value), error: formatError(c.error), unit: unitOf(i.key as MassKey, length, u) };
+  });
+}
+
+/** Plain-text mass report: whole part, then each layer when there are several, method, caution. */
+export function massText(r: MassResult, u: MassUnits): string {
+  const out: string[] = [];
+  out.push(`${r.part} — mass properties (lengths in ${r.units}, density in kg/m³, z up from the first layer's underside)`);
+  for (const l of r.layers) out.push(`  ${r.layers.length > 1 ? `layer "${l.name}": ` : ''}thickness ${l.thickness} ${r.units}${r.layers.length > 1 ? `, underside at z = ${formatNumber(l.z0)} ${r.units}` : ''}; density ${l.densitySource}`);
+  out.push('', renderRows(rows(r.quantities, r.units, u)));
+  if (r.layers.length > 1) {
+    for (const l of r.layers) {
+      const keys: MassKey[] = ['mass', 'massCentreX', 'massCentreY', 'massCentreZ'];
+      out.push('', `layer "${l.name}"`, renderRows(rows(l.quantities, r.units, u).filter((row) => keys.includes(row.key as MassKey))));
+    }
+  }
+  const m = r.method;
+  out.push('', `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on ${m.triangles} triangles (from ${m.baseTriangles}); ${stopText(m)}; estimate = refinement and companion-rule differences, propagated through each quantity, + round-off allowance`);
+  out.push('', MASS_CAUTION);
+  return out.join('\n') + '\n';
+}
+
+/** JSON for mass properties (the "massProperties" member of measure --json). */
+export function massJson(r: MassResult, u: MassUnits): Record<string, unknown> {
+  return {
+    units: { mass: u.mass, weight: 'N', length: r.units, massMoment: u.inertia, density: 'kg/m3' },
+    quantities: convertAll(r.quantities, u),
+    layers: r.layers.map((l) => ({ name: l.name, z: l.z0, thickness: l.thickness, density: l.densitySource, material: l.material ?? null, quantities: convertAll(l.quantities, u) })),
+    method: { ...r.method },
+    caution: MASS_CAUTION,
+  };
+}
+
+/** Plain-text result of `integrate`. `fUnit` names the unit of f when the user gave one. */
+export function integralText(r: ExpressionResult, fUnit?: string): string {
+  const f = fUnit ? fUnit : '(unit of f)';
+  const L = r.units;
+  const rowsOut: QuantityRow[] = [
+    { key: '∫ f dA', value: formatNumber(r.integral.value), error: formatError(r.integral.error), unit: `${f}·${L}²` },
+    { key: '∫ f·x dA', value: formatNumber(r.momentX.value), error: formatError(r.momentX.error), unit: `${f}·${L}³` },
+    { key: '∫ f·y dA', value: formatNumber(r.momentY.value), error: formatError(r.momentY.error), unit: `${f}·${L}³` },
+  ];
+  if (r.pointX && r.pointY) {
+    rowsOut.push({ key: 'point of action x', value: formatNumber(r.pointX.value), error: formatError(r.pointX.error), unit: L });
+    rowsOut.push({ key: 'point of action y', value: formatNumber(r.pointY.value), error: formatError(r.pointY.error), unit: L });
+  }
+  const m = r.method;
+  const out = [
+    `${r.part} — f(x, y) = ${r.expression}; x, y in ${L}`, '', renderRows(rowsOut), '',
+    `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on ${m.triangles} triangles (from ${m.baseTriangles}); ${stopText(m)}`,
+  ];
+  for (const w of r.warnings) out.push(`warning: ${w}`);
+  out.push('', GEOMETRY_CAUTION);
+  return out.join('\n') + '\n';
+}
+
+export function integralJson(r: ExpressionResult, fUnit?: string): Record<string, unknown> {
+  return {
+    part: r.part,
+    expression: r.expression,
+    units: { length: r.units, f: fUnit ?? null, integral: `${fUnit ?? '(unit of f)'}·${r.units}²`, firstMoment: `${fUnit ?? '(unit of f)'}·${r.units}³` },
+    quantities: {
+      integral: r.integral, firstMomentX: r.momentX, firstMomentY: r.momentY,
+      pointOfActionX: r.pointX, pointOfActionY: r.pointY,
+    },
+    method: { ...r.method },
+    warnings: r.warnings,
+    caution: GEOMETRY_CAUTION,
+  };
+}

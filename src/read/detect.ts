@@ -1,0 +1,36 @@
+/**
+ * Input format detection: by file extension first, then by content.
+ * `.json` (including `.platewise.json`) is the project's part format unless its top-level "type" is a
+ * GeoJSON type (RFC 7946, section 1.4); `.geojson` is GeoJSON; `.svg` is SVG; `.wkt` is well-known text.
+ */
+import { InputError } from '../base/errors.js';
+import { GEOJSON_TYPES } from './geojson.js';
+
+export type InputFormat = 'part-json' | 'svg' | 'geojson' | 'wkt';
+
+function jsonKind(text: string): 'part-json' | 'geojson' {
+  // look only at the top-level "type"; a parse failure is left to the reader, which reports it properly
+  try {
+    const v: unknown = JSON.parse(text);
+    if (typeof v === 'object' && v !== null && !Array.isArray(v)) {
+      const t = (v as Record<string, unknown>).type;
+      if (typeof t === 'string' && GEOJSON_TYPES.has(t)) return 'geojson';
+    }
+  } catch {
+    /* not valid JSON: the part reader will say where */
+  }
+  return 'part-json';
+}
+
+export function detectFormat(fileName: string | undefined, text: string): InputFormat {
+  const name = (fileName ?? '').toLowerCase();
+  if (name.endsWith('.geojson')) return 'geojson';
+  if (name.endsWith('.svg')) return 'svg';
+  if (name.endsWith('.wkt')) return 'wkt';
+  if (name.endsWith('.json')) return jsonKind(text);
+  const head = text.replace(/^\uFEFF/, '').trimStart();
+  if (head.startsWith('<')) return 'svg';
+  if (head.startsWith('{')) return jsonKind(text);
+  if (/^(SRID\s*=\s*\d+\s*;\s*)?(MULTI)?POLYGON\b/i.test(head)) return 'wkt';
+  throw new InputError(fileName ?? 'input', 'cannot tell the format; expected part JSON or GeoJSON ({...}), SVG (<svg ...>) or WKT (POLYGON / MULTIPOLYGON), or a file name ending in .json, .geojson, .svg or .wkt');
+}

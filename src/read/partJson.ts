@@ -1,0 +1,395 @@
+/**
+ * Reader for the project's own part description (JSON). See README "Part description format" and
+ * schema/part.schema.json. Every problem is an InputError naming the JSON path.
+ */
+import { InputError, describeValue } from '../base/errors.js';
+import type { Loop, Part, Region } from '../geometry/part.js';
+import { type PathStep, type Pt, circleLoop, pathLoop, polygonLoop, rectangleLoop, slotLoop } from '../geometry/shapes.js';
+import { combineShapes } from '../geometry/booleans.js';
+import { MAX_PATTERN_COPIES, expandPattern, gridPoints, ringPoints } from '../geometry/patterns.js';
+import { LENGTH_UNITS, type LengthUnit, isLengthUnit } from '../base/units.js';
+
+/** Coordinates beyond this magnitude are refused: no real plate needs them and squares would overflow. */
+export const MAX_COORDINATE = 1e12;
+
+type Json = null | boolean | number | string | Json[] | { [k: string]: Json };
+type Obj = { [k: string]: Json };
+
+/** Top-level keys for thickness, density and layers (read by plateModelFromObject, at the end of this file). */
+const PLATE_KEYS = ['thickness', 'density', 'material', 'layers'];
+
+const SHAPE_KINDS = ['rectangle', 'circle', 'slot', 'polygon', 'path'] as const;
+/** Items of "cutouts" and "add" lists that stand for several shapes (src/geometry/patterns.ts). */
+const PATTERN_KINDS = ['grid', 'ring'] as const;
+const TOP_KEYS = ['$schema', 'part', 'units', 'outline', 'cutouts', 'regions', 'note', 'description', 'add', ...PLATE_KEYS];
+
+/** Parse JSON text, turning a syntax error into an InputError with line and column. */
+export function parseJsonText(text: string, label: string): unknown {
+  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
+  try {
+    return JSON.parse(text);
+  } catch (e) {
+    const msg = (e as Error).message;
+    const m = /position (\d+)/.exec(msg);
+    let where = label;
+    if (m) {
+      const pos = Number(m[1]);
+      const before = text.slice(0, pos);
+      const line = before.split('\n').length;
+      const col = pos - before.lastIndexOf('\n');
+      where = `${label}:${line}:${col}`;
+    } else if (/end of JSON/i.test(msg)) {
+      const lines = text.split('\n');
+      where = `${label}:${lines.length}:${lines[lines.length - 1].length + 1}`;
+    }
+    const detail = msg.replace(/ in JSON at position \d+.*$/, '').replace(/^Unexpected end of JSON input$/, 'the file ends too early (truncated?)');
+    throw new InputError(where, `not valid JSON: ${detail}`);
+  }
+}
+
+function isObj(v: unknown): v is Obj {
+  return typeof v === 'object' && v !== null && !Array.isArray(v);
+}
+
+export function expectObject(v: unknown, where: string): Obj {
+  if (!isObj(v)) throw new InputError(where, `expected an object, got ${describeValue(v)}`);
+  return v;
+}
+
+export function checkKeys(o: Obj, allowed: readonly string[], where: string): void {
+  for (const k of Object.keys(o)) {
+    if (!allowed.includes(k)) {
+      throw new InputError(where ? `${where}.${k}` : k, `unknown key; expected one of ${allowed.filter((a) => !a.startsWith('$')).join(', ')}`);
+    }
+  }
+}
+
+export function expectNumber(v: unknown, where: string): number {
+  if (typeof v !== 'number' || !Number.isFinite(v)) throw new InputError(where, `expected a number, got ${describeValue(v)}`);
+  return v;
+}
+
+export function expectPositive(v: unknown, where: string): number {
+  if (typeof v !== 'number' || !Number.isFinite(v) || !(v > 0)) throw new InputError(where, `expected a positive number, got ${describeValue(v)}`);
+  return v;
+}
+
+export function expectCoordinate(v: unknown, where: string): number {
+  const n = expectNumber(v, where);
+  if (Math.abs(n) > MAX_COORDINATE) throw new InputError(where, `coordinate ${n} is out of range (magnitude at most ${MAX_COORDINATE})`);
+  return n;
+}
+
+export function expectPoint(v: unknown, where: string): Pt {
+  if (!Array.isArray(v) || v.length !== 2) throw new InputError(where, `expected a point [x, y], got ${describeValue(v)}`);
+  return [expectCoordinate(v[0], `${where}[0]`), expectCoordinate(v[1], `${where}[1]`)];
+}
+
+function expectArray(v: unknown, where: string): unknown[] {
+  if (!Array.isArray(v)) throw new InputError(where, `expected an array, got ${describeValue(v)}`);
+  return v;
+}
+
+/** Read one SHAPE object into an exact loop. */
+export function readShape(v: unknown, where: string): Loop {
+  const o = expectObject(v, where);
+  const keys = Object.keys(o);
+  if (keys.length !== 1 || !(SHAPE_KINDS as readonly string[]).includes(keys[0])) {
+    throw new InputError(where, `expected exactly one of ${SHAPE_KINDS.join(', ')}, got ${keys.length ? keys.map((k) => `"${k}"`).join(', ') : 'an empty object'}`);
+  }
+  const kind = keys[0];
+  const w = `${where}.${kind}`;
+  const body = o[kind];
+  switch (kind) {
+    case 'rectangle': {
+      const b = expectObject(body, w);
+      checkKeys(b, ['corner', 'size', 'cornerRadius'], w);
+      const corner = expectPoint(b.corner, `${w}.corner`);
+      const size = expectPoint(b.size, `${w}.size`);
+      if (!(size[0] > 0)) throw new InputError(`${w}.size[0]`, `expected a positive width, got ${size[0]}`);
+      if (!(size[1] > 0)) throw new InputError(`${w}.size[1]`, `expected a positive height, got ${size[1]}`);
+      const r = b.cornerRadius === undefined ? 0 : expectNumber(b.cornerRadius, `${w}.cornerRadius`);
+      return rectangleLoop(corner, size, r, w);
+    }
+    case 'circle': {
+      const b = expectObject(body, w);
+      checkKeys(b, ['center', 'diameter'], w);
+      const c = expectPoint(b.center, `${w}.center`);
+      const d = expectPositive(b.diameter, `${w}.diameter`);
+      return circleLoop(c, d, w);
+    }
+    case 'slot': {
+      const b = expectObject(body, w);
+      checkKeys(b, ['from', 'to', 'width'], w);
+      return slotLoop(expectPoint(b.from, `${w}.from`), expectPoint(b.to, `${w}.to`), expectPositive(b.width, `${w}.width`), w);
+    }
+    case 'polygon': {
+      const pts = expectArray(body, w).map((p, i) => expectPoint(p, `${w}[${i}]`));
+      return polygonLoop(pts, w);
+    }
+    case 'path': {
+      const b = expectObject(body, w);
+      checkKeys(b, ['start', 'segments'], w);
+      const start = expectPoint(b.start, `${w}.start`);
+      const steps: PathStep[] = expectArray(b.segments, `${w}.segments`).map((sv, i) => {
+        const sw = `${w}.segments[${i}]`;
+        const s = expectObject(sv, sw);
+        checkKeys(s, ['to', 'center', 'turn'], sw);
+        const to = expectPoint(s.to, `${sw}.to`);
+        if (s.center === undefined) {
+          if (s.turn !== undefined) throw new InputError(`${sw}.turn`, 'given without "center"; an arc needs both');
+          return { to };
+        }
+        const center = expectPoint(s.center, `${sw}.center`);
+        if (s.turn !== 'ccw' && s.turn !== 'cw') throw new InputError(`${sw}.turn`, `expected "ccw" or "cw", got ${describeValue(s.turn)}`);
+        return { to, center, turn: s.turn };
+      });
+      return pathLoop(start, steps, w);
+    }
+  }
+  throw new InputError(where, 'unreachable');
+}
+
+function expectCount(v: unknown, where: string): number {
+  if (typeof v !== 'number' || !Number.isInteger(v) || v < 1) throw new InputError(where, `expected a whole number of at least 1, got ${describeValue(v)}`);
+  return v;
+}
+
+/** Read a grid or ring pattern ({"grid": {...}} or {"ring": {...}}) into its copies. */
+function readPattern(kind: string, body: unknown, w: string): Loop[] {
+  const b = expectObject(body, w);
+  if (kind === 'grid') {
+    checkKeys(b, ['start', 'pitch', 'count', 'shape'], w);
+    const start = expectPoint(b.start, `${w}.start`);
+    const pitch = expectPoint(b.pitch, `${w}.pitch`);
+    const count = expectArray(b.count, `${w}.count`);
+    if (count.length !== 2) throw new InputError(`${w}.count`, `expected [columns, rows], got ${describeValue(count)}`);
+    const nx = expectCount(count[0], `${w}.count[0]`), ny = expectCount(count[1], `${w}.count[1]`);
+    if (nx * ny > MAX_PATTERN_COPIES) throw new InputError(`${w}.count`, `expected at most ${MAX_PATTERN_COPIES} copies, got ${nx} × ${ny}`);
+    if (nx > 1 && pitch[0] === 0) throw new InputError(`${w}.pitch[0]`, 'expected a non-zero pitch with more than one column');
+    if (ny > 1 && pitch[1] === 0) throw new InputError(`${w}.pitch[1]`, 'expected a non-zero pitch with more than one row');
+    if (b.shape === undefined) throw new InputError(`${w}.shape`, 'expected the shape to repeat (missing)');
+    const shape = readShape(b.shape, `${w}.shape`);
+    return expandPattern(shape, gridPoints({ start: [start[0], start[1]], pitch: [pitch[0], pitch[1]], count: [nx, ny] }), false, w);
+  }
+  checkKeys(b, ['center', 'diameter', 'count', 'startAngle', 'step', 'rotate', 'shape'], w);
+  const center = expectPoint(b.center, `${w}.center`);
+  const diameter = expectPositive(b.diameter, `${w}.diameter`);
+  const n = expectCount(b.count, `${w}.count`);
+  if (n > MAX_PATTERN_COPIES) throw new InputError(`${w}.count`, `expected at most ${MAX_PATTERN_COPIES} copies, got ${n}`);
+  const startAngle = b.startAngle === undefined ? 0 : expectNumber(b.startAngle, `${w}.startAngle`);
+  const step = b.step === undefined ? undefined : expectNumber(b.step, `${w}.step`);
+  if (step !== undefined && n > 1 && (step === 0 || Math.abs(step) * (n - 1) >= 360)) {
+    throw new InputError(`${w}.step`, `expected a non-zero angle with ${n} − 1 steps short of a full turn (|step| < ${360 / (n - 1)}°), got ${step}`);
+  }
+  if (b.rotate !== undefined && typeof b.rotate !== 'boolean') throw new InputError(`${w}.rotate`, `expected true or false, got ${describeValue(b.rotate)}`);
+  if (b.shape === undefined) throw new InputError(`${w}.shape`, 'expected the shape to repeat (missing)');
+  const shape = readShape(b.shape, `${w}.shape`);
+  const points = ringPoints({ center: [center[0], center[1]], diameter, count: n, startAngle, step });
+  return expandPattern(shape, points, b.rotate === true, w);
+}
+
+/** Read a list of SHAPEs and patterns ("cutouts", "add") into loops. */
+export function readShapeList(v: unknown, where: string): Loop[] {
+  const out: Loop[] = [];
+  expectArray(v, where).forEach((item, i) => {
+    const w = `${where}[${i}]`;
+    const o = expectObject(item, w);
+    const keys = Object.keys(o);
+    if (keys.length === 1 && (PATTERN_KINDS as readonly string[]).includes(keys[0])) {
+      out.push(...readPattern(keys[0], o[keys[0]], `${w}.${keys[0]}`));
+    } else if (keys.length !== 1 || !(SHAPE_KINDS as readonly string[]).includes(keys[0])) {
+      throw new InputError(w, `expected exactly one of ${[...SHAPE_KINDS, ...PATTERN_KINDS].join(', ')}, got ${keys.length ? keys.map((k) => `"${k}"`).join(', ') : 'an empty object'}`);
+    } else {
+      out.push(readShape(o, w));
+    }
+  });
+  return out;
+}
+
+function readRegion(o: Obj, where: string): Region {
+  if (o.outline === undefined) throw new InputError(where ? `${where}.outline` : 'outline', 'expected the outline shape (missing)');
+  const p = where ? `${where}.` : '';
+  const outer = readShape(o.outline, `${p}outline`);
+  const add: Loop[] = o.add === undefined ? [] : readShapeList(o.add, `${p}add`);
+  const holes: Loop[] = o.cutouts === undefined ? [] : readShapeList(o.cutouts, `${p}cutouts`);
+  return combineShapes({ outline: outer, add, cutouts: holes });
+}
+
+/**
+ * Read a part description. `label` names the file in messages about JSON syntax.
+ * The result is not yet validated (see geometry/validate.ts) nor normalised in orientation.
+ */
+export function readPartJson(text: string, label = 'input'): Part {
+  return partFromObject(parseJsonText(text, label), label);
+}
+
+/** Read a part from an already-parsed JSON value. */
+export function partFromObject(value: unknown, label = 'input'): Part {
+  const root = expectObject(value, label);
+  checkKeys(root, TOP_KEYS, '');
+  // A layered part: readers that take one Part see the first layer (the base plate); see readPlateModel.
+  if (root.layers !== undefined) return plateModelFromObject(root, label).layers[0].part;
+  const name = root.part === undefined ? 'part' : root.part;
+  if (typeof name !== 'string' || name.length === 0) throw new InputError('part', `expected a non-empty name, got ${describeValue(name)}`);
+  const units = root.units === undefined ? 'mm' : root.units;
+  if (!isLengthUnit(units)) throw new InputError('units', `expected one of ${Object.keys(LENGTH_UNITS).join(', ')}, got ${describeValue(units)}`);
+  for (const k of ['note', 'description'] as const) {
+    if (root[k] !== undefined && typeof root[k] !== 'string') throw new InputError(k, `expected text, got ${describeValue(root[k])}`);
+  }
+  let regions: Region[];
+  if (root.regions !== undefined) {
+    if (root.outline !== undefined || root.cutouts !== undefined) {
+      throw new InputError('regions', 'given together with "outline"/"cutouts"; use one or the other');
+    }
+    if (root.add !== undefined) {
+      throw new InputError('add', 'given together with "regions"; give "add" inside each region instead');
+    }
+    const list = expectArray(root.regions, 'regions');
+    if (list.length === 0) throw new InputError('regions', 'expected at least one region');
+    regions = list.map((r, i) => {
+      const w = `regions[${i}]`;
+      const o = expectObject(r, w);
+      checkKeys(o, ['outline', 'cutouts', 'add'], w);
+      return readRegion(o, w);
+    });
+  } else {
+    regions = [readRegion(root, '')];
+  }
+  return { name, units: units as LengthUnit, regions };
+}
+
+
+// ---------------------------------------------------------------------------------------------------------
+// Thickness, density, material and layers (the plate model for mass properties).
+//
+// A part file may add, at the top level:
+//   "thickness": 20 | "20 - 0.025*x"     (part length unit; a number or an expression in x and y)
+//   "density":   7850 | "7850 + 0.1*y"   (kg/m³; number or expression) — or —
+//   "material":  "steel"                  (a material id or alias; see `platewise materials`)
+// or, instead of outline/cutouts/regions, a stack of layers:
+//   "layers": [ { "name": "base", "outline": ..., "cutouts": [...], "thickness": 20, "material": "steel", "z": 0 },
+//               { "name": "doubler", "outline": ..., "thickness": 12, "density": 7850 } ]
+// Each layer has its own shape (outline + cutouts, or regions), thickness, density or material, and z: the
+// height of its underside in the part's length unit (default: the first layer at 0, each next one on top
+// of the previous, which then needs a constant thickness). Top-level thickness/density/material are the
+// default for every layer that states none. Expressions are compiled (and their values checked) later,
+// where they are integrated (src/accuracy/plate.ts); here only their type is checked.
+// ---------------------------------------------------------------------------------------------------------
+
+/** A thickness or density as written: a number or the text of an expression, with its JSON path. */
+export interface FieldSpec {
+  value: number | string;
+  where: string;
+}
+
+export interface LayerSpec {
+  name: string;
+  /** JSON path of the layer ('' for a part without "layers"). */
+  where: string;
+  /** The layer's shape as a Part (name "<part> / <layer>"), not yet validated. */
+  part: Part;
+  thickness?: FieldSpec;
+  density?: FieldSpec;
+  material?: { name: string; where: string };
+  /** Underside height, part length unit; undefined = stacked on the previous layer (first: 0). */
+  z?: number;
+  zWhere?: string;
+}
+
+export interface PlateModel {
+  name: string;
+  units: LengthUnit;
+  /** True when the file used "layers". */
+  layered: boolean;
+  layers: LayerSpec[];
+}
+
+/** A part read from a drawing (or a plain part file) as a plate of one layer with no stated thickness. */
+export function singleLayerModel(part: Part): PlateModel {
+  return { name: part.name, units: part.units, layered: false, layers: [{ name: part.name, where: '', part }] };
+}
+
+const LAYER_KEYS = ['name', 'outline', 'cutouts', 'regions', 'thickness', 'density', 'material', 'z', 'note'];
+
+function readField(v: unknown, where: string, what: string): FieldSpec | undefined {
+  if (v === undefined) return undefined;
+  if (typeof v === 'number') {
+    if (!Number.isFinite(v) || !(v > 0)) throw new InputError(where, `expected a positive ${what} (a number or an expression in x and y), got ${describeValue(v)}`);
+    return { value: v, where };
+  }
+  if (typeof v === 'string' && v.trim().length > 0) return { value: v, where };
+  throw new InputError(where, `expected a positive ${what}: a number or an expression in x and y as text, got ${describeValue(v)}`);
+}
+
+function readMaterialName(v: unknown, where: string): { name: string; where: string } | undefined {
+  if (v === undefined) return undefined;
+  if (typeof v !== 'string' || v.trim().length === 0) throw new InputError(where, `expected a material name (see "platewise materials"), got ${describeValue(v)}`);
+  return { name: v, where };
+}
+
+/** Prefix the JSON path of an InputError raised while reading a layer's shape. */
+function withPrefix<T>(prefix: string, body: () => T): T {
+  try {
+    return body();
+  } catch (e) {
+    if (e instanceof InputError) throw new InputError(e.where ? `${prefix}.${e.where}` : prefix, e.detail);
+    throw e;
+  }
+}
+
+/** Read a part file with its thickness, density, material and layers. */
+export function readPlateModel(text: string, label = 'input'): PlateModel {
+  return plateModelFromObject(parseJsonText(text, label), label);
+}
+
+/** Read the plate model from an already-parsed JSON value. */
+export function plateModelFromObject(value: unknown, label = 'input'): PlateModel {
+  const root = expectObject(value, label);
+  checkKeys(root, TOP_KEYS, '');
+  const defThickness = readField(root.thickness, 'thickness', 'thickness');
+  const defDensity = readField(root.density, 'density', 'density in kg/m³');
+  const defMaterial = readMaterialName(root.material, 'material');
+  if (defDensity && defMaterial) throw new InputError('material', 'given together with "density"; give one or the other');
+  if (root.layers === undefined) {
+    const { layers: _l, thickness: _t, density: _d, material: _m, ...shape } = root;
+    const part = partFromObject(shape, label);
+    return {
+      name: part.name, units: part.units, layered: false,
+      layers: [{ name: part.name, where: '', part, thickness: defThickness, density: defDensity, material: defMaterial }],
+    };
+  }
+  for (const k of ['outline', 'cutouts', 'regions'] as const) {
+    if (root[k] !== undefined) throw new InputError(k, 'given together with "layers"; each layer has its own shape');
+  }
+  const name = root.part === undefined ? 'part' : root.part;
+  if (typeof name !== 'string' || name.length === 0) throw new InputError('part', `expected a non-empty name, got ${describeValue(name)}`);
+  const units = root.units === undefined ? 'mm' : root.units;
+  if (!isLengthUnit(units)) throw new InputError('units', `expected one of ${Object.keys(LENGTH_UNITS).join(', ')}, got ${describeValue(units)}`);
+  const list = expectArray(root.layers, 'layers');
+  if (list.length === 0) throw new InputError('layers', 'expected at least one layer');
+  const seen = new Set<string>();
+  const layers = list.map((lv, i): LayerSpec => {
+    const w = `layers[${i}]`;
+    const o = expectObject(lv, w);
+    checkKeys(o, LAYER_KEYS, w);
+    const lname = o.name === undefined ? `layer ${i + 1}` : o.name;
+    if (typeof lname !== 'string' || lname.trim().length === 0) throw new InputError(`${w}.name`, `expected a non-empty layer name, got ${describeValue(lname)}`);
+    if (seen.has(lname)) throw new InputError(`${w}.name`, `layer name "${lname}" is used twice; expected unique names`);
+    seen.add(lname);
+    if (o.note !== undefined && typeof o.note !== 'string') throw new InputError(`${w}.note`, `expected text, got ${describeValue(o.note)}`);
+    const part = withPrefix(w, () => partFromObject({ part: `${name} / ${lname}`, units, outline: o.outline, cutouts: o.cutouts, regions: o.regions }, label));
+    const thickness = readField(o.thickness, `${w}.thickness`, 'thickness') ?? defThickness;
+    const density = readField(o.density, `${w}.density`, 'density in kg/m³');
+    const material = readMaterialName(o.material, `${w}.material`);
+    if (density && material) throw new InputError(`${w}.material`, 'given together with "density"; give one or the other');
+    const z = o.z === undefined ? undefined : expectNumber(o.z, `${w}.z`);
+    return {
+      name: lname, where: w, part, thickness,
+      density: density ?? (material ? undefined : defDensity),
+      material: material ?? (density ? undefined : defMaterial),
+      z, zWhere: o.z === undefined ? undefined : `${w}.z`,
+    };
+  });
+  return { name, units: units as LengthUnit, layered: true, layers };
+}

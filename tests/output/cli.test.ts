@@ -1,0 +1,173 @@
+/**
+ * `platewise draw` and `platewise report` through the built CLI (dist/, made by tsc): files written,
+ * several parts, inputs never overwritten, one-line errors, the report's trace, numbers and self-containment.
+ */
+import { createHash } from 'node:crypto';
+import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { afterAll, describe, expect, it } from 'vitest';
+import { ROOT, runCli as platewise } from '../helpers.js';
+import { parseXml } from '../../src/read/xml.js';
+import { splitDigits } from '../../src/output/html.js';
+
+const dir = mkdtempSync(join(tmpdir(), 'platewise-report-'));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+
+// Invented test data: two separate plates in one SVG drawing (user units taken as mm).
+const TWO_PARTS = `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 300 100">
+  <rect x="0" y="0" width="100" height="60"/><circle cx="50" cy="30" r="10"/>
+  <rect x="150" y="0" width="120" height="80"/><circle cx="180" cy="40" r="8"/><circle cx="240" cy="40" r="8"/>
+</svg>`;
+
+describe('platewise draw', () => {
+  it('prints one SVG to standard output without -o', () => {
+    const r = platewise(['draw', 'samples/base-plate-bp1.json']);
+    expect(r.status, r.stderr).toBe(0);
+    const root = parseXml(r.stdout, {}, 'stdout');
+    expect(root.name).toBe('svg');
+  });
+
+  it('writes name-1.svg, name-2.svg for a file with two parts, and one sheet with --sheet', () => {
+    const src = join(dir, 'two.svg');
+    writeFileSync(src, TWO_PARTS);
+    const out = join(dir, 'drawing.svg');
+    const r = platewise(['draw', src, '--units', 'mm', '-o', out]);
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.stdout).toBe('');
+    const cut = (f: string) => (readFileSync(f, 'utf8').match(/data-loop="cutout"/g) ?? []).length;
+    expect(cut(join(dir, 'drawing-1.svg')) + cut(join(dir, 'drawing-2.svg'))).toBe(3);
+    expect(existsSync(out)).toBe(false);
+    const sheet = join(dir, 'sheet.svg');
+    expect(platewise(['draw', src, '--units', 'mm', '--sheet', '-o', sheet]).status).toBe(0);
+    expect((readFileSync(sheet, 'utf8').match(/data-role="part-drawing"/g) ?? []).length).toBe(2);
+  });
+
+  it('never writes over its input (exit 2, one line, input unchanged)', () => {
+    const src = join(dir, 'keep.svg');
+    writeFileSync(src, TWO_PARTS.replace(/<rect x="150"[\s\S]*?\/>\s*<circle cx="180"[^>]*\/>\s*<circle cx="240"[^>]*\/>/, ''));
+    const before = readFileSync(src, 'utf8');
+    const r = platewise(['draw', src, '--units', 'mm', '-o', src]);
+    expect(r.status).toBe(2);
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+    expect(r.stderr).toMatch(/^platewise: .*input/);
+    expect(readFileSync(src, 'utf8')).toBe(before);
+  });
+
+  it('a bad --shade expression is a located one-line error and nothing is written', () => {
+    const out = join(dir, 'bad.svg');
+    const r = platewise(['draw', 'samples/base-plate-bp1.json', '--shade', '2*', '-o', out]);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toMatch(/^platewise: --shade/);
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+    expect(existsSync(out)).toBe(false);
+  });
+});
+
+describe('platewise draw --shade thickness', () => {
+  it('shades by the part file\'s own thickness field; values lie in its range over the part', () => {
+    // invented test plate: 200 × 100 mm, thickness 20 − 0.05·x mm, so 10 ≤ t ≤ 20 on the plate
+    const src = join(dir, 'tapered.json');
+    writeFileSync(src, JSON.stringify({ part: 'tapered', units: 'mm', thickness: '20 - 0.05*x', density: 7850, outline: { rectangle: { corner: [0, 0], size: [200, 100] } } }));
+    const r = platewise(['draw', src, '--shade', 'thickness']);
+    expect(r.status, r.stderr).toBe(0);
+    const values = [...r.stdout.matchAll(/<path d="[^"]*"[^>]*data-value="([^"]+)"/g)].map((m) => Number(m[1]));
+    expect(values.length).toBeGreaterThan(0);
+    for (const v of values) { expect(v).toBeGreaterThan(10); expect(v).toBeLessThan(20); }
+    expect(r.stdout).toContain('thickness = 20 - 0.05*x mm');
+    const bad = platewise(['draw', 'samples/bracket.svg', '--shade', 'thickness']);
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toMatch(/^platewise: --shade: .*part JSON/);
+  });
+});
+
+describe('platewise report', () => {
+  const out = join(dir, 'bp1.html');
+  const run = platewise(['report', 'samples/base-plate-bp1.json', '-o', out]);
+  const html = run.status === 0 ? readFileSync(out, 'utf8') : '';
+
+  it('writes one HTML file', () => {
+    expect(run.status, run.stderr).toBe(0);
+    expect(html.startsWith('<!doctype html>')).toBe(true);
+  });
+
+  it('each table value and estimate is the very number measure --json prints', () => {
+    const json = JSON.parse(platewise(['measure', 'samples/base-plate-bp1.json', '--json']).stdout);
+    const rows = [...html.matchAll(/<tr data-key="([^"]+)">.*?data-value="([^"]+)".*?data-error="([^"]+)"/g)];
+    const keys = Object.keys(json.quantities);
+    expect(rows.map((m) => m[1])).toEqual(keys);
+    for (const [, key, v, e] of rows) {
+      expect(Number(v), key).toBe(json.quantities[key].value);
+      expect(Number(e), key).toBe(json.quantities[key].error);
+    }
+  });
+
+  it('traces its input: SHA-256 of the bytes (node:crypto as reference), version, ISO date', () => {
+    const sha = createHash('sha256').update(readFileSync(join(ROOT, 'samples/base-plate-bp1.json'))).digest('hex');
+    expect(html).toContain(`<code data-role="sha256">${sha}</code>`);
+    expect(html).toContain('samples/base-plate-bp1.json');
+    const version = JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8')).version;
+    expect(html).toContain(`<span data-role="version">${version}</span>`);
+    const date = /datetime="([^"]+)"/.exec(html)![1];
+    expect(new Date(date).toISOString()).toBe(date);
+  });
+
+  it('is self-contained: no scripts, links, imports or remote URLs', () => {
+    expect(html).not.toMatch(/<script|<link|<img|@import|url\(|<iframe|<object/i);
+    const urls = [...html.matchAll(/https?:\/\/[^\s"')<]+/g)].map((m) => m[0]);
+    // only XML namespace names, which are identifiers and never fetched
+    for (const u of urls) expect(['http://www.w3.org/2000/svg', 'http://www.w3.org/1999/xlink']).toContain(u);
+  });
+
+  it('has the parts a reader needs: drawing, method, convergence plots for area and Ix, cautions, print rules', () => {
+    expect(html).toContain('data-role="drawing"');
+    expect(html).toContain('data-role="method"');
+    expect(html).toMatch(/data-role="convergence" data-key="area"/);
+    expect(html).toMatch(/data-role="convergence" data-key="Ix"/);
+    expect(html).toContain('Caution: these are geometric properties');
+    expect(html).toMatch(/@page \{ size: auto; margin:/);
+    expect(html).toContain('data-role="mass-missing"');
+  });
+
+  it('shows mass when the part gives thickness and density: m = ρ·t·A (common practice, no source)', () => {
+    // invented test plate: 1000 × 500 mm, 10 mm thick, 7850 kg/m³ → 7850 × 1 × 0.5 × 0.01 = 39.25 kg
+    const src = join(dir, 'heavy.json');
+    writeFileSync(src, JSON.stringify({ part: 'test plate', units: 'mm', thickness: 10, density: 7850, outline: { rectangle: { corner: [0, 0], size: [1000, 500] } } }));
+    const o = join(dir, 'heavy.html');
+    const r = platewise(['report', src, '-o', o]);
+    expect(r.status, r.stderr).toBe(0);
+    const h = readFileSync(o, 'utf8');
+    const m = /<tr data-key="mass">.*?data-value="([^"]+)"/.exec(h);
+    expect(m).not.toBeNull();
+    expect(Math.abs(Number(m![1]) - 39.25) / 39.25).toBeLessThan(1e-12);
+    expect(h).toContain('Caution: masses and centres of gravity');
+  });
+});
+
+describe('markup in names', () => {
+  it('a part name with markup is shown as text, never run (HTML and SVG escaping)', () => {
+    const src = join(dir, 'markup.json');
+    writeFileSync(src, JSON.stringify({ part: 'x"><script>alert(1)</script> & co', units: 'mm', outline: { rectangle: { corner: [0, 0], size: [20, 10] } } }));
+    const o = join(dir, 'markup.html');
+    expect(platewise(['report', src, '-o', o]).status).toBe(0);
+    const h = readFileSync(o, 'utf8');
+    expect(h).not.toMatch(/<script/i);
+    expect(h).toContain('x&quot;&gt;&lt;script&gt;alert(1)&lt;/script&gt; &amp; co');
+    const svg = platewise(['draw', src]).stdout;
+    expect(parseXml(svg, {}, 'drawing').name).toBe('svg');
+    expect(svg).not.toMatch(/<script/i);
+  });
+});
+
+describe('digits beyond the estimate', () => {
+  it('keeps every digit and marks the ones finer than the estimate', () => {
+    // the estimate's leading digit sets the last supported place: 0.05 → hundredths, 50 → tens
+    expect(splitDigits(12345.678, 0.05)).toEqual(['12345.67', '8']);
+    expect(splitDigits(12345.678, 50)).toEqual(['1234', '5.678']);
+    expect(splitDigits(85826.94722303865, 1.2e-9)).toEqual(['85826.947223038', '65']);
+    expect(splitDigits(85826.94722303865, 1e-12)).toEqual(['85826.94722303865', '']);
+    expect(splitDigits(1e-20, 1e-25)).toEqual(['1e-20', '']);
+    expect(splitDigits(3, 0)).toEqual(['3', '']);
+  });
+});

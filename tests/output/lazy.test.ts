@@ -1,0 +1,58 @@
+/**
+ * `measure` must not load the drawing stack (svg.js, svgdom). Method: run the built CLI under a Node
+ * module-resolution hook (node:module register(), stable in Node 20.6+) that appends every resolved URL
+ * to a log file. ESM has no require.cache and NODE_DEBUG=module only traces CommonJS, whereas a resolve
+ * hook sees every import, static or dynamic, ESM or CommonJS-from-ESM. The same run of `draw` is the
+ * positive control: it must show svgdom and svg.js in the log, so the check cannot pass by seeing nothing.
+ * Needs the dist build (tsc), like the other CLI tests.
+ */
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { afterAll, describe, expect, it } from 'vitest';
+
+const ROOT = join(import.meta.dirname, '..', '..');
+const CLI = join(ROOT, 'dist', 'cli', 'main.js');
+const dir = mkdtempSync(join(tmpdir(), 'platewise-lazy-'));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+writeFileSync(join(dir, 'hooks.mjs'), `import { appendFileSync } from 'node:fs';
+export async function resolve(specifier, context, next) {
+  const r = await next(specifier, context);
+  if (process.env.PLATEWISE_RESOLVE_LOG) appendFileSync(process.env.PLATEWISE_RESOLVE_LOG, r.url + '\\n');
+  return r;
+}
+`);
+writeFileSync(join(dir, 'register.mjs'), `import { register } from 'node:module';
+register(${JSON.stringify(pathToFileURL(join(dir, 'hooks.mjs')).href)});
+`);
+
+function resolvedBy(args: string[], log: string): { status: number | null; urls: string[]; stderr: string } {
+  const r = spawnSync(process.execPath, ['--import', pathToFileURL(join(dir, 'register.mjs')).href, CLI, ...args], {
+    cwd: ROOT, encoding: 'utf8', env: { ...process.env, PLATEWISE_RESOLVE_LOG: log },
+  });
+  let urls: string[] = [];
+  try { urls = readFileSync(log, 'utf8').split('\n').filter(Boolean); } catch { /* nothing resolved */ }
+  return { status: r.status, urls, stderr: r.stderr };
+}
+
+const drawingStack = (u: string) => /\/node_modules\/(svgdom|@svgdotjs)\//.test(u);
+
+describe('lazy loading of the drawing stack', () => {
+  it('measure resolves its own modules but never svgdom or svg.js', () => {
+    const r = resolvedBy(['measure', 'samples/base-plate-bp1.json', '--json'], join(dir, 'measure.log'));
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.urls.some((u) => u.endsWith('/dist/cli/commands/measure.js'))).toBe(true);
+    expect(r.urls.filter(drawingStack)).toEqual([]);
+    expect(r.urls.some((u) => /\/dist\/src\/output\/(draw|html|convergence|shade|pathData)\.js$/.test(u))).toBe(false);
+  });
+
+  it('positive control: draw does resolve svgdom and svg.js through the same hook', () => {
+    const r = resolvedBy(['draw', 'samples/base-plate-bp1.json', '-o', join(dir, 'bp1.svg')], join(dir, 'draw.log'));
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.urls.some((u) => u.includes('/node_modules/svgdom/'))).toBe(true);
+    expect(r.urls.some((u) => u.includes('/node_modules/@svgdotjs/svg.js/'))).toBe(true);
+  });
+});
