@@ -1,16 +1,35 @@
-/** Run a command body and map failures to exit status: 2 for bad input, 1 for anything unexpected. */
+/**
+ * Run a command body and map failures to exit statuses (src/base/errors.ts EXIT, README "Exit status"):
+ * 2 bad input (one line naming where), 3 a method gave up on valid input (what was tried, what to do),
+ * 4 an internal fault (one line and a hint to report it; the stack only with PLATEWISE_DEBUG=1).
+ * A check that found a difference (exit 1) is decided by the command itself, not here.
+ */
+
+/** A library option name as its flag: "massUnit" → "--mass-unit". */
+export function flagOf(option: string): string {
+  return '--' + option.replace(/[A-Z]/g, (c) => '-' + c.toLowerCase());
+}
+
 export async function run(body: () => Promise<string | void>): Promise<void> {
   try {
     const out = await body();
     if (out) process.stdout.write(out);
   } catch (e) {
-    const { isInputError } = await import('../src/base/errors.js');
-    if (isInputError(e)) {
+    const { isInputError, isMethodError, OptionError, oneLine, EXIT } = await import('../src/base/errors.js');
+    if (e instanceof OptionError) {
+      process.stderr.write(`platewise: ${flagOf(e.option)}: ${e.detail}\n`);
+      process.exitCode = EXIT.badInput;
+    } else if (isInputError(e)) {
       process.stderr.write(`platewise: ${e.message}\n`);
-      process.exitCode = 2;
+      process.exitCode = EXIT.badInput;
+    } else if (isMethodError(e)) {
+      process.stderr.write(`platewise: ${e.method} gave up: ${e.tried}; ${e.advice}\n`);
+      process.exitCode = EXIT.methodGaveUp;
     } else {
-      process.stderr.write(`platewise: internal error: ${(e as Error)?.stack ?? String(e)}\n`);
-      process.exitCode = 1;
+      const msg = oneLine(e instanceof Error ? e.message : String(e));
+      process.stderr.write(`platewise: internal error: ${msg} (this is a fault in platewise, not in your input: please report it with the command and the file; PLATEWISE_DEBUG=1 shows the stack)\n`);
+      if (process.env.PLATEWISE_DEBUG) process.stderr.write(`${(e as Error)?.stack ?? String(e)}\n`);
+      process.exitCode = EXIT.internal;
     }
   }
 }

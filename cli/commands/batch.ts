@@ -8,7 +8,8 @@ import { type Job, folderJobs, manifestBase, parseManifest } from '../../src/bat
 import { runPool } from '../../src/batch/pool.js';
 import { type BatchSummary, SummaryBuilder, batchCsvHeader, batchCsvRow, batchJsonLine, summaryText } from '../../src/output/batchRows.js';
 import type { BatchRow } from '../../src/batch/task.js';
-import { plateFromFlags } from '../../src/model/plate.js';
+import { checkSettings } from '../../src/model/plate.js';
+import { plateSettings } from './settings.js';
 
 export interface BatchFlags {
   output?: string; force?: boolean; jsonl?: boolean; csv?: boolean; jobs?: number;
@@ -37,7 +38,8 @@ export async function batch(source: string, flags: BatchFlags): Promise<string> 
   if (flags.jobs !== undefined && (flags.jobs < 1 || flags.jobs > 256)) throw new InputError('--jobs', `expected 1 to 256 worker threads, got ${flags.jobs}`);
   if (flags.levels !== undefined && (flags.levels < 1 || flags.levels > 6)) throw new InputError('--levels', `expected 1 to 6, got ${flags.levels}`);
   if (flags.degree !== undefined && (flags.degree < 1 || flags.degree > 20)) throw new InputError('--degree', `expected 1 to 20, got ${flags.degree}`);
-  const plate = plateFromFlags(flags);
+  const defaults = plateSettings(flags);
+  checkSettings(defaults);
 
   // the jobs: everything about the manifest is checked before any work starts
   let jobs: Job[];
@@ -95,7 +97,7 @@ export async function batch(source: string, flags: BatchFlags): Promise<string> 
     write(jsonl ? '' : batchCsvHeader());
     await runPool(jobs, {
       size,
-      settings: { plate, degree: flags.degree, levels: flags.levels },
+      settings: { defaults, degree: flags.degree, levels: flags.levels },
       onRows: (rows: BatchRow[]) => {
         let text = '';
         for (const r of rows) {

@@ -1,14 +1,16 @@
+import { analyzePart } from '../../src/analysis/analyze.js';
+import { checkSectionOptions } from '../../src/analysis/options.js';
 import { InputError } from '../../src/base/errors.js';
 import { readInputText } from '../../src/base/files.js';
-import { checkReadOptions, readParts } from '../../src/read/read.js';
-import type { Part } from '../../src/geometry/part.js';
+import type { PlateModel } from '../../src/model/plate.js';
 import { MASS_CAUTION } from '../../src/output/cautions.js';
-import { explainMissing, measurePart } from '../../src/qa/compute.js';
-import { modelFor } from '../../src/batch/task.js';
-import { plateFromFlags, resolvePlate } from '../../src/model/plate.js';
-import { readReference } from '../../src/qa/reference.js';
 import { comparisonCsv, comparisonJson, comparisonText } from '../../src/output/compareText.js';
+import { densityText } from '../../src/output/words.js';
+import { explainMissing, partSize } from '../../src/qa/compute.js';
+import { readReference } from '../../src/qa/reference.js';
 import { compareAll } from '../../src/qa/verdict.js';
+import { readModels } from '../../src/read/models.js';
+import { plateSettings, readOptions } from './settings.js';
 
 export interface CompareFlags {
   reference: string; json?: boolean; csv?: boolean;
@@ -17,7 +19,7 @@ export interface CompareFlags {
 }
 
 /** Pick the one part to compare: the only one, or the one named by --part or by the reference's "part". */
-export function pickPart(parts: Part[], label: string, wanted: string | undefined, where: string): Part {
+export function pickPart<P extends { name: string }>(parts: P[], label: string, wanted: string | undefined, where: string): P {
   if (wanted !== undefined) {
     const hit = parts.filter((p) => p.name === wanted);
     if (hit.length === 1) return hit[0];
@@ -30,26 +32,25 @@ export function pickPart(parts: Part[], label: string, wanted: string | undefine
 
 export function compare(file: string, flags: CompareFlags): string {
   if (flags.json && flags.csv) throw new InputError('--csv', 'choose one of --json and --csv');
-  if (flags.levels !== undefined && (flags.levels < 1 || flags.levels > 6)) throw new InputError('--levels', `expected 1 to 6, got ${flags.levels}`);
+  const section = checkSectionOptions({ degree: flags.degree, levels: flags.levels });
   if (file === '-' && flags.reference === '-') throw new InputError('--reference', 'the part already comes from standard input; expected a reference file');
-  const readOpts = checkReadOptions(flags.format, flags.units);
-  const plateSpec = plateFromFlags(flags);
+  const readOpts = readOptions(flags);
+  const given = plateSettings(flags);
   const refText = readInputText(flags.reference);
   const reference = readReference(refText.text, refText.label);
   const input = readInputText(file);
-  const parts = readParts(input.text, input.label, readOpts);
-  const part = flags.part !== undefined
-    ? pickPart(parts, input.label, flags.part, '--part')
-    : pickPart(parts, input.label, reference.part, `${refText.label}:part`);
-  const plate = resolvePlate(plateSpec, part.units);
-  const model = modelFor(input.text, input.label, readOpts.format, part, parts.length);
-  const figures = measurePart(part, plate, { degree: flags.degree, levels: flags.levels, model });
-  const comparison = compareAll(reference, figures.quantities, { lengthUnit: part.units, partSize: figures.size });
-  explainMissing(comparison.rows, figures.known);
+  const models = readModels(input.text, input.label, readOpts);
+  const model: PlateModel = flags.part !== undefined
+    ? pickPart(models, input.label, flags.part, '--part')
+    : pickPart(models, input.label, reference.part, `${refText.label}:part`);
+  const report = analyzePart(model, { section, given, mass: 'optional', fabrication: 'always' });
+  const comparison = compareAll(reference, report.quantities, { lengthUnit: report.units, partSize: partSize(report) });
+  explainMissing(comparison.rows, report);
   const massStated = reference.values.some((v) => v.dimension === 'mass' || v.dimension === 'massMoment' || v.dimension === 'force');
+  const p = report.plate;
   const meta = {
-    file: input.label, part: part.name, reference: refText.label, lengthUnit: part.units,
-    plate: figures.plate.thickness !== undefined ? figures.plate : undefined,
+    file: input.label, part: report.part, reference: refText.label, lengthUnit: report.units,
+    plate: p ? { thickness: p.thickness, density: p.density, material: p.material, densitySource: densityText(p.densityFrom) } : undefined,
     cautions: massStated ? [MASS_CAUTION] : [],
   };
   // a fail or inconclusive verdict is a result, not an error: print it and say so in the exit status

@@ -1,10 +1,10 @@
-import { measureSection } from '../../src/analysis/measure.js';
+import { analyzePart } from '../../src/analysis/analyze.js';
+import { checkSectionOptions } from '../../src/analysis/options.js';
 import { InputError } from '../../src/base/errors.js';
-import { TRIANGULATORS, type Triangulator } from '../../src/mesh/triangulate.js';
 import { readInputText, writeFileAtomic, writeFilesAtomic } from '../../src/base/files.js';
-import { checkReadOptions, readParts } from '../../src/read/read.js';
 import { detectFormat } from '../../src/read/detect.js';
-import { readPlateModel } from '../../src/read/partJson.js';
+import { readModels } from '../../src/read/models.js';
+import { readOptions } from './settings.js';
 
 export interface DrawFlags {
   output?: string; mesh?: boolean; shade?: string; sheet?: boolean;
@@ -25,27 +25,25 @@ export function shadeText(shade: string | undefined, text: string, label: string
   const what = shade?.trim();
   if (what !== 'thickness' && what !== 'density') return shade;
   if (format !== 'part-json') throw new InputError('--shade', `"${what}" comes from a part JSON file; this input is ${format}: give an expression instead, e.g. --shade "7850"`);
-  const model = readPlateModel(text, label);
+  const model = readModels(text, label, { format: 'part-json' })[0];
   if (model.layers.length !== 1) throw new InputError('--shade', `the part has ${model.layers.length} layers, each with its own ${what}; give an expression instead`);
   const field = model.layers[0][what];
   if (!field) throw new InputError('--shade', `the part file gives no "${what}"; give an expression instead`);
-  return String(field.value);
+  return String(field.text);
 }
 
 export async function draw(file: string, flags: DrawFlags): Promise<string> {
-  if (flags.triangulation !== undefined && !TRIANGULATORS.includes(flags.triangulation as Triangulator)) {
-    throw new InputError('--triangulation', `expected one of ${TRIANGULATORS.join(', ')}, got "${flags.triangulation}"`);
-  }
+  const section = checkSectionOptions({ degree: flags.degree, triangulation: flags.triangulation });
   if (flags.output !== undefined && flags.output.trim() === '') throw new InputError('--output', 'expected a file name, got an empty text');
-  const readOpts = checkReadOptions(flags.format, flags.units);
+  const readOpts = readOptions(flags);
   const input = readInputText(file);
-  const parts = readParts(input.text, input.label, readOpts);
-  const results = parts.map((p) => measureSection(p, { degree: flags.degree, triangulation: flags.triangulation as Triangulator | undefined }));
+  const models = readModels(input.text, input.label, readOpts);
+  const results = models.map((m) => analyzePart(m, { section, mass: 'never', fabrication: 'never' }).section);
   // the drawing stack is loaded only here, never by measure
   const { drawPart, drawSheet } = await import('../../src/output/draw.js');
   const shade = shadeText(flags.shade, input.text, input.label, readOpts.format ?? detectFormat(input.label === 'stdin' ? undefined : input.label, input.text));
   const named = flags.shade?.trim() === 'thickness' || flags.shade?.trim() === 'density';
-  const unit = flags.shade?.trim() === 'density' ? 'kg/m³' : parts[0]?.units ?? '';
+  const unit = flags.shade?.trim() === 'density' ? 'kg/m³' : models[0]?.units ?? '';
   const opts = { mesh: flags.mesh, shade, degree: flags.degree, shadeTitle: named ? `${flags.shade!.trim()} = ${shade} ${unit}` : undefined };
   if (flags.sheet || (results.length > 1 && flags.output === undefined)) {
     const svg = await drawSheet(results, opts);

@@ -55,12 +55,17 @@ export interface MethodInfo {
   localOrigin: [number, number];
 }
 
+/** Section warnings as facts; src/output words them. */
+export type SectionWarning =
+  | { code: 'principal-axes-undefined' }
+  | { code: 'distorted-curved-triangle'; minJacobianRatio: number };
+
 export interface SectionResult {
   part: string;
   units: Part['units'];
   quantities: SectionQuantities;
   method: MethodInfo;
-  warnings: string[];
+  warnings: SectionWarning[];
   /** Every level's values, coarse to fine (for convergence plots). */
   levels: LevelResult[];
   /** The validated, normalised part and its base mesh (for drawings and further integration). */
@@ -80,10 +85,10 @@ export function exactFigures(part: Part): ExactFigures {
 }
 
 /** principalAngle is undefined when I1 and I2 are equal within their estimates. */
-function checkPrincipalAngle(q: SectionQuantities, warnings: string[]): void {
+function checkPrincipalAngle(q: SectionQuantities, warnings: SectionWarning[]): void {
   if (!(q.I1.value - q.I2.value > q.I1.error + q.I2.error)) {
     q.principalAngle = { value: 0, error: 90 };
-    warnings.push('I1 and I2 are equal within their estimates: every centroidal axis is a principal axis, so principalAngle is not defined (reported as 0 ± 90°).');
+    warnings.push({ code: 'principal-axes-undefined' });
   } else if (q.principalAngle.error > 90) {
     q.principalAngle.error = 90;
   }
@@ -101,7 +106,7 @@ function boundaryResult(input: Part, moments: Float64Array, origin: [number, num
     const k = info.key as SectionKey;
     quantities[k] = { value: values[k], error: floor[k] };
   }
-  const warnings: string[] = [];
+  const warnings: SectionWarning[] = [];
   checkPrincipalAngle(quantities, warnings);
   let vertices = 0;
   for (const r of input.regions) for (const l of [r.outer, ...r.holes]) vertices += l.segments.length;
@@ -196,9 +201,9 @@ export function measureSection(input: Part, options: MeasureOptions = {}): Secti
     const diff = k === 'principalAngle' ? angleDiff(fine[k], coarse[k]) : Math.abs(fine[k] - coarse[k]);
     quantities[k] = { value: fine[k], error: diff + floor[k] } satisfies Quantity;
   }
-  const warnings: string[] = [];
+  const warnings: SectionWarning[] = [];
   checkPrincipalAngle(quantities, warnings);
-  if (!(minJac > 0.01)) warnings.push(`a curved triangle is strongly distorted (smallest Jacobian ratio ${minJac.toPrecision(2)}); treat the estimate with care.`);
+  if (!(minJac > 0.01)) warnings.push({ code: 'distorted-curved-triangle', minJacobianRatio: minJac });
 
   return {
     part: part.name,

@@ -8,10 +8,10 @@
  * coordinates of the first such point.
  */
 import { InputError } from '../base/errors.js';
+import type { Mesh } from '../mesh/mesh.js';
 import { compileExpression } from '../expr/index.js';
 import type { Part } from '../geometry/part.js';
-import type { LayerSpec, PlateModel } from '../read/partJson.js';
-import { findMaterial, type MaterialTable } from '../model/index.js';
+import { type DensityOrigin, type ResolvedLayer, fieldError } from '../model/plate.js';
 import { type MeshOptions, buildMesh } from '../mesh/build.js';
 import { MASS_KEYS, MASS_SUMS, type MassKey, type MassValues, massFromSums, propagateErrors, shiftMassSums } from '../properties/mass.js';
 import type { Quantity } from '../properties/quantities.js';
@@ -21,127 +21,12 @@ import { type AdaptiveResult, type StopReason, integrateAdaptive } from './adapt
 import { preparePart } from './measure.js';
 import { checkPoles } from './singular.js';
 
-/** A thickness or density ready to evaluate. */
-export interface Field {
-  /** Where it was given: a JSON path ("layers[1].thickness") or a flag ("--thickness"). */
-  where: string;
-  what: 'thickness' | 'density';
-  text: string;
-  evaluate: (x: number, y: number) => number;
-  /** Value when the field does not depend on x, y. */
-  constant?: number;
-}
-
-export interface ResolvedLayer {
-  name: string;
-  where: string;
-  part: Part;
-  thickness: Field;
-  density: Field;
-  /** Where the density comes from: "steel (EN 1993-1-1 …)", "7850 kg/m³ given at layers[0].density". */
-  densitySource: string;
-  material?: string;
-  /** Underside height, part length unit. */
-  z0: number;
-}
-
-export interface PlateFlags {
-  thickness?: string;
-  density?: string;
-  material?: string;
-  materials?: MaterialTable;
-}
-
-function fmt(v: number): string {
-  return Number.isFinite(v) ? String(Number(v.toPrecision(6))) : String(v);
-}
-
-/** Compile a thickness or density given as a number or expression text. */
-export function makeField(value: number | string, where: string, what: 'thickness' | 'density'): Field {
-  const unit = what === 'density' ? ' kg/m³' : '';
-  if (typeof value === 'number') {
-    if (!(value > 0) || !Number.isFinite(value)) throw new InputError(where, `expected a positive ${what}${unit}, got ${value}`);
-    return { where, what, text: String(value), evaluate: () => value, constant: value };
-  }
-  const trimmed = value.trim();
-  const asNumber = trimmed !== '' ? Number(trimmed) : NaN;
-  if (Number.isFinite(asNumber)) return makeField(asNumber, where, what);
-  const c = compileExpression(value, where);
-  if (c.isConstant) {
-    const v = c.constant!;
-    if (!(v > 0) || !Number.isFinite(v)) throw new InputError(where, `is ${fmt(v)}; expected a positive ${what}${unit}`);
-    return { where, what, text: value, evaluate: () => v, constant: v };
-  }
-  return { where, what, text: value, evaluate: c.evaluate };
-}
-
-/** The error for a thickness or density that is not positive and finite at a point. */
-export function fieldError(field: Field, v: number, x: number, y: number): InputError {
-  return new InputError(field.where, `is ${fmt(v)} at (${x.toFixed(1)}, ${y.toFixed(1)}); expected a positive ${field.what} everywhere on the part`);
-}
-
-/** Does the model or the flags say anything about thickness, density or material? */
-export function hasMassInput(model: PlateModel, flags: PlateFlags): boolean {
-  return flags.thickness !== undefined || flags.density !== undefined || flags.material !== undefined ||
-    model.layers.some((l) => l.thickness !== undefined || l.density !== undefined || l.material !== undefined);
-}
-
-/**
- * Resolve thickness, density and height of every layer. Command-line flags fill in what the file leaves
- * unset; a flag for something the file already states is refused (one place for each figure).
- */
-export function resolvePlate(model: PlateModel, flags: PlateFlags): ResolvedLayer[] {
-  if (flags.density !== undefined && flags.material !== undefined) throw new InputError('--material', 'given together with --density; give one or the other');
-  const out: ResolvedLayer[] = [];
-  model.layers.forEach((l: LayerSpec, i) => {
-    const place = l.where || 'part';
-    if (flags.thickness !== undefined && l.thickness) throw new InputError('--thickness', `the part file already gives a thickness at ${l.thickness.where}; give it in one place`);
-    if ((flags.density !== undefined || flags.material !== undefined) && (l.density || l.material)) {
-      throw new InputError(flags.density !== undefined ? '--density' : '--material', `the part file already gives ${l.density ? `a density at ${l.density.where}` : `a material at ${l.material!.where}`}; give it in one place`);
-    }
-    const thickness = l.thickness ? makeField(l.thickness.value, l.thickness.where, 'thickness')
-      : flags.thickness !== undefined ? makeField(flags.thickness, '--thickness', 'thickness') : undefined;
-    if (!thickness) throw new InputError(place, `no thickness for ${model.layered ? `layer "${l.name}"` : 'the part'}; expected "thickness" in the file or --thickness`);
-    let density: Field | undefined;
-    let densitySource = '';
-    let material: string | undefined;
-    const matName = l.material ? l.material : flags.material !== undefined ? { name: flags.material, where: '--material' } : undefined;
-    if (l.density) {
-      density = makeField(l.density.value, l.density.where, 'density');
-      densitySource = `${density.text} kg/m³ given at ${l.density.where}`;
-    } else if (flags.density !== undefined) {
-      density = makeField(flags.density, '--density', 'density');
-      densitySource = `${density.text} kg/m³ given by --density`;
-    } else if (matName) {
-      let m;
-      try {
-        m = findMaterial(matName.name, flags.materials);
-      } catch (e) {
-        if (e instanceof InputError) throw new InputError(matName.where, e.detail);
-        throw e;
-      }
-      density = makeField(m.density, matName.where, 'density');
-      material = m.id;
-      densitySource = `${m.id}, ${m.density} kg/m³ (${m.source}${m.origin === 'built-in' ? '' : `; from ${m.origin}`})`;
-    }
-    if (!density) throw new InputError(place, `no density for ${model.layered ? `layer "${l.name}"` : 'the part'}; expected "density" or "material" in the file, or --density or --material`);
-    let z0: number;
-    if (l.z !== undefined) z0 = l.z;
-    else if (i === 0) z0 = 0;
-    else {
-      const prev = out[i - 1];
-      if (prev.thickness.constant === undefined) {
-        throw new InputError(l.where, `expected "z" (height of the layer's underside): the layer below, "${prev.name}", has a variable thickness, so there is no single top to stack on`);
-      }
-      z0 = prev.z0 + prev.thickness.constant;
-    }
-    out.push({ name: l.name, where: l.where, part: l.part, thickness, density, densitySource, material, z0 });
-  });
-  return out;
-}
-
 export interface IntegrationOptions extends MeshOptions {
   degree?: number;
+  /** The layers' parts are validated and oriented already (the analysis entry point does it once). */
+  prepared?: boolean;
+  /** The mesh to use for layer i, when the caller has one (built at most once per run). */
+  meshOf?: (layer: number) => Mesh;
   tolerance?: number;
   maxTriangles?: number;
   maxMillis?: number;
@@ -192,7 +77,7 @@ export function stopText(m: IntegrationMethod): string {
 export interface LayerMass {
   name: string;
   z0: number;
-  densitySource: string;
+  densityFrom: DensityOrigin;
   material?: string;
   thickness: string;
   quantities: Record<MassKey, Quantity>;
@@ -224,9 +109,8 @@ function boxSize(mesh: { coords: ArrayLike<number> }): [number, number] {
 }
 
 /** Integrate one layer's raw mass sums (about its mesh origin). */
-function layerSums(layer: ResolvedLayer, opts: IntegrationOptions): { result: AdaptiveResult; origin: [number, number] } {
-  const part = preparePart(layer.part);
-  const { mesh } = buildMesh(part, opts);
+function layerSums(layer: ResolvedLayer, index: number, opts: IntegrationOptions): { result: AdaptiveResult; origin: [number, number] } {
+  const mesh = opts.meshOf ? opts.meshOf(index) : buildMesh(opts.prepared ? layer.part : preparePart(layer.part), opts).mesh;
   const T = layer.thickness, R = layer.density, z0 = layer.z0;
   const f = (x: number, y: number, lx: number, ly: number, out: Float64Array) => {
     const t = T.evaluate(x, y);
@@ -258,7 +142,7 @@ function layerSums(layer: ResolvedLayer, opts: IntegrationOptions): { result: Ad
 /** Mass properties of every layer and of the whole stack, each value with an error estimate. */
 export function measureMass(name: string, units: LengthUnit, layers: ResolvedLayer[], opts: IntegrationOptions = {}): MassResult {
   if (layers.length === 0) throw new InputError('layers', 'expected at least one layer');
-  const runs = layers.map((l) => layerSums(l, opts));
+  const runs = layers.map((l, i) => layerSums(l, i, opts));
   const ref = runs[0].origin;
   const total = { fine: new Float64Array(MASS_SUMS), coarse: new Float64Array(MASS_SUMS), estimate: new Float64Array(MASS_SUMS), scale: new Float64Array(MASS_SUMS) };
   const out: LayerMass[] = [];
@@ -266,7 +150,7 @@ export function measureMass(name: string, units: LengthUnit, layers: ResolvedLay
     const derive = (s: Float64Array) => massFromSums(s, origin, units);
     const { values, errors } = propagateErrors(derive, result.fine, result.coarse, result.estimate, result.scale);
     const l = layers[i];
-    out.push({ name: l.name, z0: l.z0, densitySource: l.densitySource, material: l.material, thickness: l.thickness.text, quantities: toQuantities(values, errors) });
+    out.push({ name: l.name, z0: l.z0, densityFrom: l.densityFrom, material: l.material, thickness: l.thickness.text, quantities: toQuantities(values, errors) });
     const dx = origin[0] - ref[0], dy = origin[1] - ref[1];
     const f = shiftMassSums(result.fine, dx, dy), c = shiftMassSums(result.coarse, dx, dy);
     // estimates and scales shift with absolute values (bounds, not signed sums)

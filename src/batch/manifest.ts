@@ -34,10 +34,9 @@ import { InputError } from '../base/errors.js';
 import { csvWhere, parseCsvRecords, parseCsvRows } from '../base/csv.js';
 import { type InputFormat, INPUT_FORMATS } from '../read/read.js';
 import type { MaterialTable } from '../model/index.js';
-import { type PlateSpec, lookupMaterial, parseDensity, parseThickness } from '../model/plate.js';
+import { type PlateSettings, checkSettings } from '../model/plate.js';
 import { type StatedValue, checkQuantity, splitValueText, suggestKey, unitFor } from '../qa/reference.js';
-import { SECTION_QUANTITIES } from '../properties/quantities.js';
-import { FABRICATION_QUANTITIES } from '../properties/fabrication.js';
+import { QUANTITIES } from '../properties/quantities.js';
 import { type LengthUnit, isLengthUnit } from '../base/units.js';
 
 export interface Job {
@@ -53,7 +52,8 @@ export interface Job {
   format?: InputFormat;
   units?: LengthUnit;
   /** Settings from the row (merged with the command line's later). */
-  plate: PlateSpec;
+  /** The row's plate settings (texts, each with its cell); checked by the one settings grammar while parsing. */
+  plate: PlateSettings;
   /** Absolute path of the reference file, and the label it is shown under. */
   reference?: { path: string; label: string };
   /** Stated values from the row's own columns. */
@@ -94,7 +94,7 @@ export function parseManifest(text: string, label: string, baseDir: string, opti
     try {
       dim = checkQuantity(c.name, at, {});
     } catch {
-      const keys = [...FIXED, ...SECTION_QUANTITIES.map((q) => q.key), ...FABRICATION_QUANTITIES.map((q) => q.key)];
+      const keys = [...FIXED, ...QUANTITIES.map((q) => q.key)];
       const s = suggestKey(c.name, keys);
       throw new InputError(at, `unknown column "${c.header}"${s ? `; did you mean "${s}"?` : ''}; expected file, quantity, material, thickness, density, reference, format, units, note, or a quantity key with its unit such as "area [mm²]"`);
     }
@@ -131,17 +131,18 @@ export function parseManifest(text: string, label: string, baseDir: string, opti
       job.quantity = Number(q);
     }
     const m = cell('material');
-    if (m !== undefined) job.plate.material = lookupMaterial(m, at(hdr('material')), options.materials);
+    if (m !== undefined) job.plate.material = { text: m, where: at(hdr('material')) };
     const th = cell('thickness');
     if (th !== undefined) {
       const text = thicknessUnit && /^[\d.+\-eE]+$/.test(th) ? `${th} ${thicknessUnit}` : th;
-      job.plate.thickness = parseThickness(text, at(hdr('thickness')));
+      job.plate.thickness = { text, where: at(hdr('thickness')) };
     }
     const de = cell('density');
     if (de !== undefined) {
       const text = densityUnit && /^[\d.+\-eE]+$/.test(de) ? `${de} ${densityUnit}` : de;
-      job.plate.density = parseDensity(text, at(hdr('density')));
+      job.plate.density = { text, where: at(hdr('density')) };
     }
+    checkSettings(job.plate, options.materials);
     const ref = cell('reference');
     if (ref !== undefined) job.reference = { path: isAbsolute(ref) ? ref : resolve(baseDir, ref), label: ref };
     const f = cell('format');

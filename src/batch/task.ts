@@ -3,23 +3,22 @@
  * fabrication figures, judge the stated values. Runs inside a worker thread (src/batch/worker.ts) and may
  * be called directly (tests, a single-threaded run). Never throws: a failure becomes the row's `error`.
  */
-import { isInputError } from '../base/errors.js';
+import { analyzePart } from '../analysis/analyze.js';
+import { isInputError, isMethodError } from '../base/errors.js';
 import { readInputText } from '../base/files.js';
-import { readParts } from '../read/read.js';
+import type { MaterialTable } from '../model/materials.js';
+import type { PlateModel, PlateSettings } from '../model/plate.js';
 import type { Quantity } from '../properties/quantities.js';
-import { explainMissing, gapsOnly, measurePart, needsPlate, plainModel } from '../qa/compute.js';
-import { type PlateSpec, mergePlate, resolvePlate } from '../model/plate.js';
-import { detectFormat } from '../read/detect.js';
-import { type InputFormat } from '../read/read.js';
-import { type PlateModel, readPlateModel } from '../read/partJson.js';
-import type { Part } from '../geometry/part.js';
+import { explainMissing, needsPlate, partSize } from '../qa/compute.js';
 import { type Reference, readReference } from '../qa/reference.js';
 import { type ComparisonRow, type Verdict, compareAll } from '../qa/verdict.js';
+import { readModels } from '../read/models.js';
 import type { Job } from './manifest.js';
 
 export interface JobSettings {
-  /** Command-line plate settings; the row's own win. */
-  plate: PlateSpec;
+  /** Command-line plate settings: they fill only what neither the part file nor the row states. */
+  defaults: PlateSettings;
+  materials?: MaterialTable;
   degree?: number;
   levels?: number;
 }
@@ -44,7 +43,8 @@ export interface BatchRow {
   verdict: Verdict | null;
   counts: Record<Verdict, number> | null;
   comparison: ComparisonRow[] | null;
-  warnings: string[];
+  /** Warnings as codes with parameters (src/analysis/analyze.ts); the writers word them. */
+  warnings: import('../analysis/analyze.js').AnalysisWarning[];
   error: string | null;
 }
 
@@ -58,27 +58,16 @@ function failed(job: Job, error: string): BatchRow {
 
 function message(e: unknown): string {
   if (isInputError(e)) return e.message;
+  if (isMethodError(e)) return `${e.method} gave up: ${e.tried}; ${e.advice}`;
   return `internal error: ${e instanceof Error ? e.message : String(e)}`;
-}
-
-/**
- * The plate model of a part: a part JSON file's own (thickness, density, material, layers), else the part
- * alone. `count` is how many parts the file gave (part JSON gives one).
- */
-export function modelFor(text: string, label: string, format: InputFormat | undefined, part: Part, count: number): PlateModel {
-  const f = format ?? detectFormat(label === 'stdin' ? undefined : label, text);
-  if (f === 'part-json' && count === 1) return readPlateModel(text, label);
-  return plainModel(part);
 }
 
 export function runJob(job: Job, settings: JobSettings): BatchRow[] {
   let reference: Reference | null = null;
-  let parts: Part[];
-  let text: string;
+  let parts: PlateModel[];
   try {
     const input = readInputText(job.path);
-    text = input.text;
-    parts = readParts(input.text, job.file, { format: job.format, units: job.units });
+    parts = readModels(input.text, job.file, { format: job.format, units: job.units });
     if (job.reference) {
       const rt = readInputText(job.reference.path);
       reference = readReference(rt.text, job.reference.label);
@@ -99,21 +88,24 @@ export function runJob(job: Job, settings: JobSettings): BatchRow[] {
     row.part = part.name;
     row.units = part.units;
     try {
-      const model = modelFor(text, job.file, job.format, part, parts.length);
-      // command-line settings fill what the file leaves unset; the row's own cells must not double the file's
-      const plate = resolvePlate(mergePlate(gapsOnly(model, settings.plate), job.plate), part.units);
+      // the row's cells must not double the file's; command-line settings fill only what both leave unset
       const needMass = stated.some((s) => needsPlate(s.quantity) && s.quantity !== 'netMass' && s.quantity !== 'blankMass');
-      const f = measurePart(part, plate, { degree: settings.degree, levels: settings.levels, model, massProperties: needMass });
-      row.material = f.plate.material ?? null;
-      row.thickness = f.plate.thickness ?? null;
-      row.density = f.plate.density ?? null;
-      row.densitySource = f.plate.densitySource ?? null;
+      const f = analyzePart(part, {
+        section: { degree: settings.degree, levels: settings.levels },
+        given: job.plate, defaults: settings.defaults, materials: settings.materials,
+        mass: needMass ? 'optional' : 'unless-constant', fabrication: 'always',
+      });
+      const p = f.plate;
+      row.material = p?.material ?? null;
+      row.thickness = p?.thickness ?? null;
+      row.density = p?.density ?? null;
+      row.densitySource = p ? (p.densityFrom.kind === 'material' ? `${p.densityFrom.id}: ${p.densityFrom.source}` : 'given density') : null;
       row.quantities = f.quantities;
-      row.warnings = f.section.warnings;
+      row.warnings = f.warnings;
       const named = reference?.part;
       if (stated.length > 0 && (parts.length === 1 || named === undefined || named === part.name)) {
-        const c = compareAll({ source: reference?.source ?? 'manifest', values: stated }, f.quantities, { lengthUnit: part.units, partSize: f.size });
-        explainMissing(c.rows, f.known);
+        const c = compareAll({ source: reference?.source ?? 'manifest', values: stated }, f.quantities, { lengthUnit: part.units, partSize: partSize(f) });
+        explainMissing(c.rows, f);
         row.verdict = c.verdict;
         row.counts = c.counts;
         row.comparison = c.rows;

@@ -28,7 +28,7 @@ let clipperModule: PolygonClipping | undefined;
 function polygonClipping(): PolygonClipping {
   return (clipperModule ??= createRequire(import.meta.url)('polygon-clipping') as PolygonClipping);
 }
-import { InputError } from '../base/errors.js';
+import { InputError, MethodError } from '../base/errors.js';
 import { bezierSubCurve } from './curves.js';
 import { pointInLoop } from './nesting.js';
 import { type Loop, type Region, loopBox, loopLength, loopSignedArea } from './part.js';
@@ -259,7 +259,7 @@ function runClip<T>(what: string, names: string[], body: () => T): T {
   } catch (e) {
     if (e instanceof InputError) throw e;
     const msg = e instanceof Error ? e.message : String(e);
-    throw new InputError(names[0], `the ${what} with ${names.slice(1).join(', ') || 'itself'} failed in the polygon clipper (${msg}); shapes probably touch or nearly coincide there: move or resize one of them slightly`);
+    throw new MethodError('polygon clipper', `the ${what} of ${names[0]} with ${names.slice(1).join(', ') || 'itself'} failed (${msg})`, 'shapes that touch or nearly coincide can cause this: move or resize one of them slightly');
   }
 }
 
@@ -406,7 +406,7 @@ function rebuildRing(ring: ClipRing, src: Sources, grid: ChordGrid, eps: number,
     if (base === 1) e2.ta = clamp01(projectOn(B, p[0], p[1], e2.ta)); else e1.tb = clamp01(projectOn(A, p[0], p[1], e1.tb));
     const q = base === 1 ? segmentPoint(B, e2.ta) : segmentPoint(A, e1.tb);
     if (!(Math.hypot(p[0] - q[0], p[1] - q[1]) <= eps)) {
-      throw new InputError(src.names[src.segs[e2.src].loop], `meets ${src.names[src.segs[e1.src].loop]} at a grazing angle near ${at(x, y)} where the exact crossing could not be located; make them cross clearly or keep them apart`);
+      throw new MethodError('boolean operation', `${src.names[src.segs[e2.src].loop]} meets ${src.names[src.segs[e1.src].loop]} at a grazing angle near ${at(x, y)} where the exact crossing could not be located`, 'make the shapes cross clearly or keep them apart');
     }
   }
   // merge runs on the same source segment
@@ -483,7 +483,7 @@ function matchEdge(px: number, py: number, qx: number, qy: number, src: Sources,
     if (d < bestD) { bestD = d; best = ci; bestU = u; bestV = v; }
   }
   if (best < 0 || !(bestD <= eps)) {
-    throw new InputError('booleans', `internal: an edge of the clipped result near ${at(mx, my)} lies on no source shape`);
+    throw new Error(`booleans: an edge of the clipped result near ${at(mx, my)} lies on no source shape`);
   }
   const c = src.chords[best];
   const lerp = (u: number) => c.ta + (c.tb - c.ta) * Math.min(1, Math.max(0, u));

@@ -3,7 +3,7 @@
  * constrained to the chords, tag every triangle edge that lies on a curve, and split chords until every
  * curved triangle's map is safely valid.
  */
-import { InputError } from '../base/errors.js';
+import { InputError, MethodError } from '../base/errors.js';
 import { type Part, partBox, translatePart } from '../geometry/part.js';
 import { type Segment, ops, piecesForTurning, segmentStart } from '../geometry/segments.js';
 import { type Mesh, TriangleMap, curvedEdgeRatio } from './mesh.js';
@@ -95,7 +95,7 @@ export function buildMesh(part: Part, options: MeshOptions = {}): MeshReport {
     }
     splits += separateChords(loops, segments);
   }
-  throw new InputError('mesh', 'could not make valid curved triangles after 12 passes of chord splitting (a feature is too thin for its curvature?)');
+  throw new MethodError('mesher', 'no valid curved triangles after 12 passes of chord splitting', 'try another triangulation (cdt2d), or a lower rule degree; a feature much thinner than its curvature radius can cause this');
 }
 
 function chordKey(verts: BVert[], i: number): string {
@@ -110,7 +110,7 @@ function separateChords(loops: BVert[][], segments: Segment[]): number {
   for (const v of loops) start += v.length;
   for (let round = 0; round < 30; round++) {
     if (total > 20 * start + 10000) {
-      throw new InputError('mesh', `curved edges lie too close to other edges to be meshed (${total} chord splits); are two loops almost touching?`);
+      throw new MethodError('mesher', `curved edges lie too close to other edges to be separated (${total} chord splits)`, 'try another triangulation (cdt2d); loops that almost touch need a finer drawing tolerance');
     }
     const crowded = crowdedChords(collectChords(loops, segments));
     if (crowded.length === 0) return total;

@@ -11,7 +11,7 @@
 import { createRequire } from 'node:module';
 import type Cdt2d from 'cdt2d';
 import Delaunator from 'delaunator';
-import { InputError } from '../base/errors.js';
+import { MethodError } from '../base/errors.js';
 
 /** The package ships TypeScript source as its types, read as CommonJS under NodeNext; its ESM build has a default export. */
 interface ConstrainautorLike { constrainOne(a: number, b: number): unknown; isConstrained(edge: number): boolean }
@@ -60,7 +60,7 @@ function viaDelaunator(coords: Float64Array, edges: Uint32Array): Uint32Array {
   try {
     for (let i = 0; i < edges.length; i += 2) con.constrainOne(edges[i], edges[i + 1]);
   } catch (e) {
-    throw new InputError('mesh', `the boundary could not be triangulated (${(e as Error).message}); are two loops touching?`);
+    throw new MethodError('triangulation', `Delaunator with Constrainautor could not restore a boundary edge (${(e as Error).message})`, 'try another triangulation (cdt2d)');
   }
   const T = del.triangles, H = del.halfedges;
   const nT = T.length / 3;

@@ -1,118 +1,235 @@
 /**
- * Plate settings for fabrication and mass figures: thickness, material and density as given on the command
- * line (`--thickness`, `--material`, `--density`) or in a batch manifest, resolved against one part's
- * length unit.
+ * The plate model: a part's shape (one or more layers), the plate data its file states (thickness,
+ * density, material, layer heights) and where its length unit came from; and the one resolution of
+ * thickness and density per layer from the file and from settings given elsewhere (flags, manifest cells),
+ * through the one settings grammar (./settings.ts).
  *
- * - thickness: "10 mm", "0.375 in", "1 cm"; a bare number ("10") is in the part's own length unit.
- * - density: "7850 kg/m3", "7.85 g/cm3", "0.2836 lb/in3"; a bare number is kg/m³. Given, it overrides the
- *   material's density.
- * - material: a name from the material table (src/model), which supplies a nominal density.
- *
- * Until the part format carries its own thickness and material, these settings are the only source; the
- * mass-bearing quantities (netMass, blankMass) exist only when both a thickness and a density are known.
+ * Precedence, the same for every command:
+ *   - the file's own figures;
+ *   - `given` settings (measure/compare flags, a batch manifest row): a figure the file already states is
+ *     refused (one place for each figure);
+ *   - `defaults` (batch command-line defaults): fill only what neither the file nor the row states.
+ * A density and a material for the same layer from the same place are refused; a density given in a more
+ * specific place wins over a material from a less specific one.
  */
-import { InputError, describeValue } from '../base/errors.js';
-import { type Material, type MaterialTable, densityToSI, findMaterial, parseDensityUnit } from './index.js';
-import { type LengthUnit, isLengthUnit, lengthFactor } from '../base/units.js';
+import { InputError } from '../base/errors.js';
+import type { LengthUnit } from '../base/units.js';
+import { compileExpression } from '../expr/index.js';
+import type { Part } from '../geometry/part.js';
+import { type Material, type MaterialTable, findMaterial } from './materials.js';
+import {
+  type DensitySetting, type GivenSetting, type SettingWarning, type ThicknessSetting,
+  parseDensity, parseThickness, plausibility, thicknessInPartUnit,
+} from './settings.js';
 
-export interface ThicknessSpec {
-  value: number;
-  /** null: the part's own length unit. */
-  unit: LengthUnit | null;
-  text: string;
+/** Where the length unit came from: stated by the file, chosen by the user, or assumed (warned). */
+export type UnitSource = 'file' | 'option' | 'assumed';
+
+export interface LayerSpec {
+  name: string;
+  /** JSON path of the layer ('' for a part without "layers"). */
+  where: string;
+  /** The layer's shape as a Part (name "<part> / <layer>"), not yet validated. */
+  part: Part;
+  thickness?: GivenSetting;
+  density?: GivenSetting;
+  material?: GivenSetting;
+  /** Underside height, part length unit; undefined = stacked on the previous layer (first: 0). */
+  z?: number;
+  zWhere?: string;
 }
 
-/** Plate settings as given, before a part's unit is known. Plain data (can cross to a worker thread). */
-export interface PlateSpec {
-  thickness?: ThicknessSpec;
-  /** Material id and name as found in the table. */
-  material?: { id: string; name: string; density: number; source: string };
-  /** Explicit density in kg/m³ (overrides the material's). */
-  density?: number;
+export interface PlateModel {
+  name: string;
+  units: LengthUnit;
+  unitSource: UnitSource;
+  /** True when the file used "layers". */
+  layered: boolean;
+  layers: LayerSpec[];
 }
 
-/** Plate settings for one part, in its length unit. */
-export interface ResolvedPlate {
-  /** Thickness in the part's length unit. */
-  thickness?: number;
-  /** Density in kg/m³. */
-  density?: number;
-  material?: string;
-  /** Where the density comes from: "--density", the material's source, or a manifest cell. */
-  densitySource?: string;
+/** A part read from a drawing (or a plain part file) as a plate of one layer with no stated thickness. */
+export function singleLayerModel(part: Part, unitSource: UnitSource = 'file'): PlateModel {
+  return { name: part.name, units: part.units, unitSource, layered: false, layers: [{ name: part.name, where: '', part }] };
 }
 
-const NUMBER_UNIT = /^\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*(.*?)\s*$/;
-
-/** "10 mm" → { value: 10, unit: 'mm' }; "10" → unit null (the part's unit). */
-export function parseThickness(text: string, where: string): ThicknessSpec {
-  const m = NUMBER_UNIT.exec(text);
-  if (!m) throw new InputError(where, `expected a thickness such as "10 mm" or "0.375 in", got ${describeValue(text)}`);
-  const value = Number(m[1]);
-  if (!(value > 0) || !Number.isFinite(value)) throw new InputError(where, `expected a positive thickness, got ${describeValue(text)}`);
-  const u = m[2];
-  if (u !== '' && !isLengthUnit(u)) throw new InputError(where, `unknown length unit "${u}"; expected mm, cm, m, in or ft`);
-  return { value, unit: u === '' ? null : (u as LengthUnit), text: text.trim() };
+/** Settings from outside the file. Plain data (crosses to worker threads). */
+export interface PlateSettings {
+  thickness?: GivenSetting;
+  density?: GivenSetting;
+  material?: GivenSetting;
 }
 
-/** "7850", "7850 kg/m3", "7.85 g/cm3" → kg/m³. */
-export function parseDensity(text: string, where: string): number {
-  const m = NUMBER_UNIT.exec(text);
-  if (!m) throw new InputError(where, `expected a density such as "7850 kg/m3" or "7.85 g/cm3", got ${describeValue(text)}`);
-  const value = Number(m[1]);
-  if (!(value > 0) || !Number.isFinite(value)) throw new InputError(where, `expected a positive density, got ${describeValue(text)}`);
-  const kgm3 = m[2] === '' ? value : densityToSI(value, parseDensityUnit(m[2], where));
-  if (!(kgm3 >= 1 && kgm3 <= 30000)) {
-    throw new InputError(where, `${text.trim()} is ${kgm3} kg/m³, outside 1 to 30 000 kg/m³; expected a density of a plate material (is the unit right?)`);
+/** Check settings early (before any part is read) so that a bad flag or cell is reported at once. */
+export function checkSettings(s: PlateSettings, materials?: MaterialTable): void {
+  if (s.density !== undefined && s.material !== undefined) {
+    throw new InputError(s.material.where, `given together with a density (${s.density.where}); give one or the other`);
   }
-  return kgm3;
+  if (s.thickness) settingThickness(s.thickness);
+  if (s.density) settingDensity(s.density);
+  if (s.material) lookupMaterial(s.material, materials);
 }
 
-/** Look a material up; the InputError names `where` instead of the bare word "material". */
-export function lookupMaterial(name: string, where: string, table?: MaterialTable): PlateSpec['material'] {
-  let m: Material;
+/** A thickness or density ready to evaluate. */
+export interface Field {
+  /** Where it was given: a JSON path ("layers[1].thickness"), a flag ("--thickness" → "thickness"), a cell. */
+  where: string;
+  what: 'thickness' | 'density';
+  /** As given. */
+  text: string;
+  evaluate: (x: number, y: number) => number;
+  /** Value when the field does not depend on x, y (thickness in the part's unit, density in kg/m³). */
+  constant?: number;
+}
+
+/** Where a layer's density comes from: a material of the table, or a figure given at a place. */
+export type DensityOrigin =
+  | { kind: 'material'; id: string; name: string; density: number; source: string; origin: string; where: string }
+  | { kind: 'given'; where: string; text: string };
+
+export interface ResolvedLayer {
+  name: string;
+  where: string;
+  part: Part;
+  thickness: Field;
+  density: Field;
+  densityFrom: DensityOrigin;
+  material?: string;
+  /** Underside height, part length unit. */
+  z0: number;
+}
+
+const settingThickness = (g: GivenSetting): ThicknessSetting => parseThickness(g);
+const settingDensity = (g: GivenSetting): DensitySetting => parseDensity(g);
+
+export function lookupMaterial(g: GivenSetting, table?: MaterialTable): Material {
   try {
-    m = findMaterial(name, table);
+    return findMaterial(String(g.text), table);
   } catch (e) {
-    if (e instanceof InputError) throw new InputError(where, e.detail);
+    if (e instanceof InputError) throw new InputError(g.where, e.detail);
     throw e;
   }
-  return { id: m.id, name: m.name, density: m.density, source: m.source };
 }
 
-/** Settings from command-line texts (each optional). */
-export function plateFromFlags(
-  flags: { thickness?: string; material?: string; density?: string }, table?: MaterialTable,
-): PlateSpec {
-  const spec: PlateSpec = {};
-  if (flags.density !== undefined && flags.material !== undefined) throw new InputError('--material', 'given together with --density; give one or the other');
-  if (flags.thickness !== undefined) spec.thickness = parseThickness(flags.thickness, '--thickness');
-  if (flags.material !== undefined) spec.material = lookupMaterial(flags.material, '--material', table);
-  if (flags.density !== undefined) spec.density = parseDensity(flags.density, '--density');
-  return spec;
+function fmt(v: number): string {
+  return Number.isFinite(v) ? String(Number(v.toPrecision(6))) : String(v);
 }
 
-/** `over` wins field by field. */
-export function mergePlate(base: PlateSpec, over: PlateSpec): PlateSpec {
-  return {
-    thickness: over.thickness ?? base.thickness,
-    material: over.material ?? base.material,
-    // an explicit density in the row wins; a material in the row wins over a density on the command line
-    density: over.density ?? (over.material ? undefined : base.density),
-  };
-}
-
-/** Settings in a part's length unit. */
-export function resolvePlate(spec: PlateSpec, partUnit: LengthUnit): ResolvedPlate {
-  const out: ResolvedPlate = {};
-  if (spec.thickness) out.thickness = spec.thickness.value * (spec.thickness.unit ? lengthFactor(spec.thickness.unit, partUnit) : 1);
-  if (spec.material) out.material = spec.material.id;
-  if (spec.density !== undefined) {
-    out.density = spec.density;
-    out.densitySource = 'given density';
-  } else if (spec.material) {
-    out.density = spec.material.density;
-    out.densitySource = `${spec.material.id}: ${spec.material.source}`;
+function expressionField(text: string, where: string, what: 'thickness' | 'density'): Field {
+  const c = compileExpression(text, where);
+  if (c.isConstant) {
+    const v = c.constant!;
+    if (!(v > 0) || !Number.isFinite(v)) throw new InputError(where, `is ${fmt(v)}; expected a positive ${what}${what === 'density' ? ' in kg/m³' : ''}`);
+    return { where, what, text, evaluate: () => v, constant: v };
   }
-  return out;
+  return { where, what, text, evaluate: c.evaluate };
+}
+
+export function thicknessField(g: GivenSetting, partUnit: LengthUnit): Field {
+  const t = settingThickness(g);
+  if (t.kind === 'expression') return expressionField(t.text, t.where, 'thickness');
+  const v = thicknessInPartUnit(t, partUnit);
+  return { where: t.where, what: 'thickness', text: t.text, evaluate: () => v, constant: v };
+}
+
+export function densityField(g: GivenSetting): Field {
+  const d = settingDensity(g);
+  if (d.kind === 'expression') return expressionField(d.text, d.where, 'density');
+  const v = d.kgm3;
+  return { where: d.where, what: 'density', text: d.text, evaluate: () => v, constant: v };
+}
+
+/** The error for a thickness or density that is not positive and finite at a point. */
+export function fieldError(field: Field, v: number, x: number, y: number): InputError {
+  return new InputError(field.where, `is ${fmt(v)} at (${x.toFixed(1)}, ${y.toFixed(1)}); expected a positive ${field.what} everywhere on the part`);
+}
+
+export interface Resolution {
+  /** Every layer resolved, or null when a thickness or a density is missing somewhere. */
+  layers: ResolvedLayer[] | null;
+  /** What is missing (for messages and for stated mass values that cannot be computed). */
+  missing: ('thickness' | 'density')[];
+  warnings: SettingWarning[];
+}
+
+/** Does the model or the settings say anything about thickness, density or material? */
+export function hasPlateData(model: PlateModel, given: PlateSettings = {}, defaults: PlateSettings = {}): boolean {
+  const any = (s: PlateSettings) => s.thickness !== undefined || s.density !== undefined || s.material !== undefined;
+  return any(given) || any(defaults) || model.layers.some((l) => l.thickness !== undefined || l.density !== undefined || l.material !== undefined);
+}
+
+/**
+ * Resolve thickness, density and height of every layer (see the precedence at the top of this file).
+ * `partSize` (largest extent, part unit) feeds the plausibility warnings.
+ */
+export function resolveLayers(
+  model: PlateModel, given: PlateSettings = {}, defaults: PlateSettings = {}, materials?: MaterialTable, partSize = NaN,
+): Resolution {
+  checkSettings(given, materials);
+  checkSettings(defaults, materials);
+  const out: ResolvedLayer[] = [];
+  const missing = new Set<'thickness' | 'density'>();
+  const warnings: SettingWarning[] = [];
+  for (let i = 0; i < model.layers.length; i++) {
+    const l = model.layers[i];
+    if (given.thickness !== undefined && l.thickness) {
+      throw new InputError(given.thickness.where, `the part file already gives a thickness at ${l.thickness.where}; give it in one place`);
+    }
+    const givenD = given.density ?? given.material;
+    const fileD = l.density ?? l.material;
+    if (givenD !== undefined && fileD !== undefined) {
+      throw new InputError(givenD.where, `the part file already gives ${l.density ? 'a density' : 'a material'} at ${fileD.where}; give it in one place`);
+    }
+    const tSet = l.thickness ?? given.thickness ?? defaults.thickness;
+    let dSet: { density?: GivenSetting; material?: GivenSetting };
+    if (fileD) dSet = { density: l.density, material: l.material };
+    else if (givenD) dSet = { density: given.density, material: given.material };
+    else dSet = { density: defaults.density, material: defaults.material };
+    if (!tSet) missing.add('thickness');
+    if (!dSet.density && !dSet.material) missing.add('density');
+    if (!tSet || (!dSet.density && !dSet.material)) continue;
+    const thickness = thicknessField(tSet, model.units);
+    let density: Field;
+    let densityFrom: DensityOrigin;
+    let material: string | undefined;
+    if (dSet.density) {
+      density = densityField(dSet.density);
+      densityFrom = { kind: 'given', where: dSet.density.where, text: density.text };
+    } else {
+      const m = lookupMaterial(dSet.material!, materials);
+      density = { where: dSet.material!.where, what: 'density', text: String(m.density), evaluate: () => m.density, constant: m.density };
+      densityFrom = { kind: 'material', id: m.id, name: m.name, density: m.density, source: m.source, origin: m.origin, where: dSet.material!.where };
+      material = m.id;
+    }
+    let z0: number;
+    if (l.z !== undefined) z0 = l.z;
+    else if (i === 0) z0 = 0;
+    else {
+      const prev = out[i - 1];
+      if (prev === undefined || prev.thickness.constant === undefined) {
+        throw new InputError(l.where, `expected "z" (height of the layer's underside): the layer below${prev ? `, "${prev.name}",` : ''} has ${prev ? 'a variable thickness' : 'no thickness'}, so there is no single top to stack on`);
+      }
+      z0 = prev.z0 + prev.thickness.constant;
+    }
+    warnings.push(...plausibility({ thickness: thickness.constant, thicknessWhere: thickness.where, density: density.constant, densityWhere: density.where }, model.units, partSize));
+    out.push({ name: l.name, where: l.where, part: l.part, thickness, density, densityFrom, material, z0 });
+  }
+  return { layers: missing.size === 0 ? out : null, missing: [...missing], warnings };
+}
+
+/** One constant thickness and density for the whole plate (fabrication masses), when there is one. */
+export interface ConstantPlate {
+  /** Thickness in the part's length unit. */
+  thickness: number;
+  /** Density in kg/m³. */
+  density: number;
+  material?: string;
+  densityFrom: DensityOrigin;
+}
+
+export function constantPlate(layers: ResolvedLayer[] | null): ConstantPlate | undefined {
+  if (!layers || layers.length !== 1) return undefined;
+  const l = layers[0];
+  if (l.thickness.constant === undefined || l.density.constant === undefined) return undefined;
+  return { thickness: l.thickness.constant, density: l.density.constant, material: l.material, densityFrom: l.densityFrom };
 }

@@ -17,6 +17,7 @@
  * JSON Lines: one object per part with every quantity as { value, error }, the comparison rows, warnings;
  * the last line is { "summary": { ... } }.
  */
+import { warningJson } from './words.js';
 import { formatCsvRow } from '../base/csv.js';
 import { formatError, formatNumber } from './text.js';
 import { LENGTH_UNITS, type LengthUnit } from '../base/units.js';
@@ -70,7 +71,7 @@ export function batchJsonLine(r: BatchRow): string {
       computed: c.computed, error: c.error, difference: c.difference, tolerance: c.tolerance,
       toleranceSource: c.toleranceSource, verdict: c.verdict, ...(c.note ? { note: c.note } : {}),
     })) ?? null,
-    warnings: r.warnings, error: r.error,
+    warnings: r.warnings.map(warningJson), error: r.error,
   };
   return JSON.stringify(o) + '\n';
 }

@@ -14,7 +14,7 @@
  */
 import type { Container, Svg } from '@svgdotjs/svg.js';
 import type { SectionResult } from '../analysis/measure.js';
-import { InputError } from '../base/errors.js';
+import { InputError, OptionError } from '../base/errors.js';
 import { type Mesh, triangleCount } from '../mesh/mesh.js';
 import { formatError, formatNumber } from './text.js';
 import { type DrawingMap, loopPathData, mapX, mapY, num, segmentCommands } from './pathData.js';
@@ -102,7 +102,7 @@ function legendNumber(v: number): string {
 /** Values shown by the shading option, or undefined. */
 export function shadeValues(r: SectionResult, shade: string | undefined, degree?: number, title?: string): TriangleValues | undefined {
   if (shade === undefined) return undefined;
-  if (shade.trim() === '') throw new InputError('--shade', 'expected "error" or an expression in x and y, got an empty text');
+  if (shade.trim() === '') throw new OptionError('shade', 'expected "error" or an expression in x and y, got an empty text');
   const mesh = r.geometry.mesh;
   if (shade.trim() === 'error') return errorIndicator(mesh, degree ?? r.method.degree);
   const tv = functionValues(mesh, shade);

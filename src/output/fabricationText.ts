@@ -4,7 +4,8 @@
  */
 import type { FabricationFigures } from '../properties/fabrication.js';
 import type { Quantity } from '../properties/quantities.js';
-import type { ResolvedPlate } from '../model/plate.js';
+import type { ConstantPlate } from '../model/plate.js';
+import { densityText } from './words.js';
 import { MASS_CAUTION } from './cautions.js';
 import { formatNumber, quantityRows, renderRows } from './text.js';
 
@@ -34,7 +35,7 @@ function methodText(f: FabricationFigures): string {
 }
 
 /** The fabrication block for one part, in its length unit; `plate` when masses were computed. */
-export function fabricationText(f: FabricationFigures, units: string, plate?: ResolvedPlate): string {
+export function fabricationText(f: FabricationFigures, units: string, plate?: ConstantPlate, withCaution = true): string {
   const x = f.box;
   const lines = [
     `fabrication figures — lengths in ${units}`,
@@ -49,15 +50,15 @@ export function fabricationText(f: FabricationFigures, units: string, plate?: Re
   ];
   if (f.quantities.netMass && plate) {
     lines.push(`masses: thickness ${formatNumber(plate.thickness ?? NaN)} ${units}, density ${formatNumber(plate.density ?? NaN)} kg/m³` +
-      `${plate.densitySource ? ` (${plate.densitySource})` : ''}; blank mass = blank area × thickness × density`);
+      ` (${densityText(plate.densityFrom)}); blank mass = blank area × thickness × density`);
   } else {
     lines.push('masses: not computed (give a thickness and a material or density)');
   }
-  if (f.caution) lines.push('', MASS_CAUTION);
+  if (f.caution && withCaution) lines.push('', MASS_CAUTION);
   return lines.join('\n') + '\n';
 }
 
-export function fabricationJson(f: FabricationFigures, units: string, plate?: ResolvedPlate): Record<string, unknown> {
+export function fabricationJson(f: FabricationFigures, units: string, plate?: ConstantPlate): Record<string, unknown> {
   const q: Record<string, Quantity> = {};
   for (const [k, v] of Object.entries(ordered(f))) q[k] = { value: v.value, error: v.error };
   return {
@@ -68,7 +69,7 @@ export function fabricationJson(f: FabricationFigures, units: string, plate?: Re
       width: f.blank.width, height: f.blank.height, angle: f.blank.angle, area: f.blank.area, corners: f.blank.corners,
       method: f.blank.method, lowerBound: f.blank.lowerBound, angleSpread: f.blank.angleSpread,
     },
-    plate: plate && (plate.thickness !== undefined || plate.density !== undefined) ? { ...plate } : null,
+    plate: plate ? { thickness: plate.thickness, density: plate.density, ...(plate.material ? { material: plate.material } : {}), densitySource: densityText(plate.densityFrom) } : null,
     ...(f.caution ? { caution: MASS_CAUTION } : {}),
   };
 }

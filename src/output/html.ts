@@ -11,6 +11,7 @@
  */
 import type { LevelResult, SectionResult } from '../analysis/measure.js';
 import type { MassResult } from '../analysis/plate.js';
+import { densityText, warningText } from './words.js';
 import { GEOMETRY_CAUTION, MASS_CAUTION } from './cautions.js';
 import { formatError, formatNumber } from './text.js';
 import { type Quantity, SECTION_QUANTITIES, quantityInfo, unitText } from '../properties/quantities.js';
@@ -151,7 +152,7 @@ function massBlock(p: ReportPart): string {
   }
   const m = p.mass;
   const keys = Object.keys(m.quantities);
-  const layers = m.layers.map((l) => `<li>${escapeHtml(l.name)}: thickness ${escapeHtml(l.thickness)} ${escapeHtml(m.units)}, density ${escapeHtml(l.densitySource)}, underside at z = ${formatNumber(l.z0)} ${escapeHtml(m.units)}</li>`).join('');
+  const layers = m.layers.map((l) => `<li>${escapeHtml(l.name)}: thickness ${escapeHtml(l.thickness)} ${escapeHtml(m.units)}, density ${escapeHtml(densityText(l.densityFrom))}, underside at z = ${formatNumber(l.z0)} ${escapeHtml(m.units)}</li>`).join('');
   return `<ul data-role="materials">${layers}</ul>\n${quantityTable(m.quantities as Record<string, Quantity>, keys, m.units, 'mass')}` +
     `<p>Mass method: Dunavant degree ${m.method.degree}, ${m.method.triangles} triangles, ${escapeHtml(m.method.estimator)}; ` +
     `${m.method.tolerance === null ? 'no tolerance requested' : `tolerance ${m.method.tolerance}`}, stop: ${escapeHtml(m.method.stopped)}.</p>`;
@@ -169,7 +170,7 @@ async function partSection(p: ReportPart, index: number): Promise<string> {
   ]);
   const anyZero = (['area', 'Ix'] as const).some((k) => convergencePoints(levels, k).some((c) => c.change === 0));
   const holes = r.geometry.part.regions.reduce((n, g) => n + g.holes.length, 0);
-  const warn = r.warnings.map((w) => `<p class="warning">Warning: ${escapeHtml(w)}</p>`).join('\n');
+  const warn = r.warnings.map((w) => `<p class="warning">Warning: ${escapeHtml(warningText(w))}</p>`).join('\n');
   return `<section class="part" data-part="${escapeHtml(r.part)}" data-index="${index}">
 <h2>${escapeHtml(r.part)}</h2>
 <p>Lengths in ${escapeHtml(r.units)}; ${r.geometry.part.regions.length} region${r.geometry.part.regions.length === 1 ? '' : 's'}, ${holes} cut-out${holes === 1 ? '' : 's'}.</p>

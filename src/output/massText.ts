@@ -13,6 +13,7 @@ import { GEOMETRY_CAUTION, MASS_CAUTION } from './cautions.js';
 import { type MassMomentUnit, type MassUnit, massFromKg, massMomentFromSI } from '../model/massUnits.js';
 import { MASS_QUANTITIES, type MassKey } from '../properties/mass.js';
 import type { Quantity } from '../properties/quantities.js';
+import { densityText } from './words.js';
 import { type QuantityRow, formatError, formatNumber, renderRows } from './text.js';
 
 export interface MassUnits {
@@ -51,7 +52,7 @@ function rows(q: Record<MassKey, Quantity>, length: string, u: MassUnits): Quant
 export function massText(r: MassResult, u: MassUnits): string {
   const out: string[] = [];
   out.push(`${r.part} — mass properties (lengths in ${r.units}, density in kg/m³, z up from the first layer's underside)`);
-  for (const l of r.layers) out.push(`  ${r.layers.length > 1 ? `layer "${l.name}": ` : ''}thickness ${l.thickness} ${r.units}${r.layers.length > 1 ? `, underside at z = ${formatNumber(l.z0)} ${r.units}` : ''}; density ${l.densitySource}`);
+  for (const l of r.layers) out.push(`  ${r.layers.length > 1 ? `layer "${l.name}": ` : ''}thickness ${l.thickness} ${r.units}${r.layers.length > 1 ? `, underside at z = ${formatNumber(l.z0)} ${r.units}` : ''}; density ${densityText(l.densityFrom)}`);
   out.push('', renderRows(rows(r.quantities, r.units, u)));
   if (r.layers.length > 1) {
     for (const l of r.layers) {
@@ -70,7 +71,7 @@ export function massJson(r: MassResult, u: MassUnits): Record<string, unknown> {
   return {
     units: { mass: u.mass, weight: 'N', length: r.units, massMoment: u.inertia, density: 'kg/m3' },
     quantities: convertAll(r.quantities, u),
-    layers: r.layers.map((l) => ({ name: l.name, z: l.z0, thickness: l.thickness, density: l.densitySource, material: l.material ?? null, quantities: convertAll(l.quantities, u) })),
+    layers: r.layers.map((l) => ({ name: l.name, z: l.z0, thickness: l.thickness, density: densityText(l.densityFrom), material: l.material ?? null, quantities: convertAll(l.quantities, u) })),
     method: { ...r.method },
     caution: MASS_CAUTION,
   };

@@ -3,6 +3,7 @@
  */
 import type { SectionResult } from '../analysis/measure.js';
 import { GEOMETRY_CAUTION } from './cautions.js';
+import { warningJson, warningText } from './words.js';
 import { type Quantity, SECTION_QUANTITIES, quantityInfo, unitText } from '../properties/quantities.js';
 
 /** A number with up to `digits` significant digits, no trailing zeros. */
@@ -42,7 +43,7 @@ export function renderRows(rows: QuantityRow[]): string {
   return lines.join('\n');
 }
 
-export function sectionText(r: SectionResult): string {
+export function sectionText(r: SectionResult, withCaution = true): string {
   const regions = r.geometry.part.regions;
   const holes = regions.reduce((n, g) => n + g.holes.length, 0);
   const head = `${r.part} — lengths in ${r.units}; ${regions.length} region${regions.length === 1 ? '' : 's'}, ${holes} cut-out${holes === 1 ? '' : 's'}`;
@@ -54,8 +55,8 @@ export function sectionText(r: SectionResult): string {
     : `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on curved triangles; ${m.baseTriangles} triangles ` +
       `(${m.curvedTriangles} curved) refined ${m.refinementLevels}× to ${m.triangles}; estimate = |refined − coarse| + round-off allowance`;
   const parts = [head, '', renderRows(quantityRows(ordered, r.units)), '', method];
-  for (const w of r.warnings) parts.push(`warning: ${w}`);
-  parts.push('', GEOMETRY_CAUTION);
+  for (const w of r.warnings) parts.push(`warning: ${warningText(w)}`);
+  if (withCaution) parts.push('', GEOMETRY_CAUTION);
   return parts.join('\n') + '\n';
 }
 
@@ -70,7 +71,7 @@ export function sectionJson(r: SectionResult): Record<string, unknown> {
     units: { length: r.units, angle: 'deg' },
     quantities: q,
     method: { ...r.method },
-    warnings: r.warnings,
+    warnings: r.warnings.map(warningJson),
     caution: GEOMETRY_CAUTION,
   };
 }

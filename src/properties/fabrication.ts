@@ -34,32 +34,16 @@ import type { Part } from '../geometry/part.js';
 import { partBox, loopLength } from '../geometry/part.js';
 import { type Segment, type Out2, ops } from '../geometry/segments.js';
 import { LENGTH_UNITS } from '../base/units.js';
-import { type Quantity, type QuantityInfo, registerQuantities } from './quantities.js';
+import { FABRICATION_QUANTITIES, type FabricationKey, type Quantity } from './quantities.js';
 
 const EPS = Number.EPSILON;
 const TWO_PI = 2 * Math.PI;
 
 // ---------------------------------------------------------------- quantity keys
 
-export const FABRICATION_QUANTITIES: readonly QuantityInfo[] = [
-  { key: 'cutLength', dimension: 'length', description: 'total cut length, all contours' },
-  { key: 'cutLengthOuter', dimension: 'length', description: 'cut length of the outer contours' },
-  { key: 'cutLengthInner', dimension: 'length', description: 'cut length of the inner contours (holes)' },
-  { key: 'pierces', dimension: 'count', description: 'pierce count, one per closed contour' },
-  { key: 'blankWidth', dimension: 'length', description: 'minimum-area enclosing rectangle, longer side' },
-  { key: 'blankHeight', dimension: 'length', description: 'minimum-area enclosing rectangle, shorter side' },
-  { key: 'blankAngle', dimension: 'angle', description: 'direction of the blank\'s longer side from +x, degrees, in [0, 180)' },
-  { key: 'blankArea', dimension: 'area', description: 'area of the minimum-area enclosing rectangle' },
-  { key: 'scrapFraction', dimension: 'ratio', description: '1 − net area / blank area' },
-  { key: 'netMass', dimension: 'mass', description: 'mass of the part: net area × thickness × density' },
-  { key: 'blankMass', dimension: 'mass', description: 'mass of the blank: blank area × thickness × density' },
-];
-registerQuantities(FABRICATION_QUANTITIES);
+export { FABRICATION_QUANTITIES };
 
-export type FabricationKey =
-  | 'cutLength' | 'cutLengthOuter' | 'cutLengthInner' | 'pierces'
-  | 'blankWidth' | 'blankHeight' | 'blankAngle' | 'blankArea'
-  | 'scrapFraction' | 'netMass' | 'blankMass';
+export type { FabricationKey };
 
 // ---------------------------------------------------------------- support function
 

@@ -14,7 +14,7 @@
  */
 import { STANDARD_GRAVITY } from '../model/massUnits.js';
 import { LENGTH_UNITS, type LengthUnit } from '../base/units.js';
-import { type QuantityInfo, registerQuantities } from './quantities.js';
+import { MASS_QUANTITIES, type MassKey } from './quantities.js';
 
 /** Number of raw mass sums per integrand vector. */
 export const MASS_SUMS = 10;
@@ -22,29 +22,14 @@ export const MASS_SUMS = 10;
 export { STANDARD_GRAVITY };
 
 /** Mass quantities in print order: key, dimension, description (registered in the catalogue). */
-export const MASS_QUANTITIES: readonly QuantityInfo[] = [
-  { key: 'mass', dimension: 'mass', description: 'mass, ∫ρ·t dA' },
-  { key: 'weight', dimension: 'force', description: 'weight under standard gravity 9.80665 m/s², newtons' },
-  { key: 'massCentreX', dimension: 'length', description: 'centre of mass, x' },
-  { key: 'massCentreY', dimension: 'length', description: 'centre of mass, y' },
-  { key: 'massCentreZ', dimension: 'length', description: 'centre of mass, z (height above z = 0, the first layer’s underside by default)' },
-  { key: 'massMomentX', dimension: 'massMoment', description: 'mass moment of inertia about the axis through the centre of mass parallel to x, ∫(y′² + z′²) dm' },
-  { key: 'massMomentY', dimension: 'massMoment', description: 'mass moment of inertia about the axis through the centre of mass parallel to y, ∫(x′² + z′²) dm' },
-  { key: 'massMomentZ', dimension: 'massMoment', description: 'mass moment of inertia about the axis through the centre of mass normal to the plate, ∫(x′² + y′²) dm' },
-  { key: 'massProductXY', dimension: 'massMoment', description: 'mass product of inertia about the centre of mass, ∫x′y′ dm' },
-  { key: 'massProductXZ', dimension: 'massMoment', description: 'mass product of inertia about the centre of mass, ∫x′z′ dm' },
-  { key: 'massProductYZ', dimension: 'massMoment', description: 'mass product of inertia about the centre of mass, ∫y′z′ dm' },
-];
-registerQuantities(MASS_QUANTITIES);
+export { MASS_QUANTITIES };
 
-export type MassKey =
-  | 'mass' | 'weight' | 'massCentreX' | 'massCentreY' | 'massCentreZ'
-  | 'massMomentX' | 'massMomentY' | 'massMomentZ' | 'massProductXY' | 'massProductXZ' | 'massProductYZ';
+export type { MassKey };
 
 /** Mass values in SI (kg, N, kg·m²) except centres, in the part's length unit. */
 export type MassValues = Record<MassKey, number>;
 
-export const MASS_KEYS: readonly MassKey[] = MASS_QUANTITIES.map((q) => q.key as MassKey);
+export const MASS_KEYS: readonly MassKey[] = MASS_QUANTITIES.map((q) => q.key);
 
 /**
  * Move raw sums from one reference point to another: x_new = x_old + dx, where (dx, dy) = old reference − new

@@ -1,8 +1,8 @@
 /**
  * The catalogue of reported quantities: stable JSON key, what it is, and its physical dimension.
  * Every reported quantity is a `Quantity` = { value, error } in the part's units.
- * Adding a quantity: add it here, compute it in src/properties/section.ts (or the module that owns it),
- * and the table/JSON/CSV writers pick it up from this list.
+ * Adding a quantity: add it to QUANTITIES here, compute it in the module that owns it (section.ts, mass.ts,
+ * fabrication.ts), and the table/JSON/CSV writers, reference files and manifests pick it up from the catalogue.
  */
 
 export interface Quantity {
@@ -25,63 +25,95 @@ export const LENGTH_POWER: Partial<Record<Dimension, number>> = {
   length: 1, area: 2, length3: 3, length4: 4,
 };
 
+export type QuantityGroup = 'section' | 'mass' | 'fabrication';
+
 export interface QuantityInfo {
-  key: string;
-  dimension: Dimension;
-  description: string;
+  readonly key: string;
+  readonly group: QuantityGroup;
+  readonly dimension: Dimension;
+  readonly description: string;
 }
 
-const q = (key: string, dimension: Dimension, description: string): QuantityInfo => ({ key, dimension, description });
+/**
+ * The one static catalogue of reported quantities, in print order. Key types are derived from it, and the
+ * writers, stated-value files, manifests and the report read it; nothing registers quantities at import time.
+ * Mass quantities are in SI (kg, N, kg·m²) except centres (the part's length unit).
+ */
+export const QUANTITIES = [
+  { key: 'area', group: 'section', dimension: 'area', description: 'net area' },
+  { key: 'perimeter', group: 'section', dimension: 'length', description: 'length of all boundary loops (cut length)' },
+  { key: 'centroidX', group: 'section', dimension: 'length', description: 'centroid, x' },
+  { key: 'centroidY', group: 'section', dimension: 'length', description: 'centroid, y' },
+  { key: 'Ix', group: 'section', dimension: 'length4', description: 'second moment about the centroidal axis parallel to x, ∫(y−ȳ)² dA' },
+  { key: 'Iy', group: 'section', dimension: 'length4', description: 'second moment about the centroidal axis parallel to y, ∫(x−x̄)² dA' },
+  { key: 'Ixy', group: 'section', dimension: 'length4', description: 'product moment about centroidal axes, ∫(x−x̄)(y−ȳ) dA' },
+  { key: 'IxOrigin', group: 'section', dimension: 'length4', description: 'second moment about the x axis, ∫y² dA' },
+  { key: 'IyOrigin', group: 'section', dimension: 'length4', description: 'second moment about the y axis, ∫x² dA' },
+  { key: 'IxyOrigin', group: 'section', dimension: 'length4', description: 'product moment about the origin, ∫xy dA' },
+  { key: 'I1', group: 'section', dimension: 'length4', description: 'major principal second moment' },
+  { key: 'I2', group: 'section', dimension: 'length4', description: 'minor principal second moment' },
+  { key: 'principalAngle', group: 'section', dimension: 'angle', description: 'angle of the I1 axis from +x, degrees, in (−90, 90]' },
+  { key: 'Ip', group: 'section', dimension: 'length4', description: 'polar second moment about the centroid, Ix + Iy' },
+  { key: 'rx', group: 'section', dimension: 'length', description: 'radius of gyration about the centroidal x axis, √(Ix/A)' },
+  { key: 'ry', group: 'section', dimension: 'length', description: 'radius of gyration about the centroidal y axis, √(Iy/A)' },
+  { key: 'SxTop', group: 'section', dimension: 'length3', description: 'elastic section modulus about the centroidal x axis to the top fibre, Ix/(yMax−ȳ)' },
+  { key: 'SxBottom', group: 'section', dimension: 'length3', description: 'elastic section modulus about the centroidal x axis to the bottom fibre, Ix/(ȳ−yMin)' },
+  { key: 'SyRight', group: 'section', dimension: 'length3', description: 'elastic section modulus about the centroidal y axis to the right fibre, Iy/(xMax−x̄)' },
+  { key: 'SyLeft', group: 'section', dimension: 'length3', description: 'elastic section modulus about the centroidal y axis to the left fibre, Iy/(x̄−xMin)' },
+  { key: 'xMin', group: 'section', dimension: 'length', description: 'bounding box, smallest x' },
+  { key: 'yMin', group: 'section', dimension: 'length', description: 'bounding box, smallest y' },
+  { key: 'xMax', group: 'section', dimension: 'length', description: 'bounding box, largest x' },
+  { key: 'yMax', group: 'section', dimension: 'length', description: 'bounding box, largest y' },
+  { key: 'width', group: 'section', dimension: 'length', description: 'bounding box width, xMax − xMin' },
+  { key: 'height', group: 'section', dimension: 'length', description: 'bounding box height, yMax − yMin' },
+  { key: 'mass', group: 'mass', dimension: 'mass', description: 'mass, ∫ρ·t dA' },
+  { key: 'weight', group: 'mass', dimension: 'force', description: 'weight under standard gravity 9.80665 m/s², newtons' },
+  { key: 'massCentreX', group: 'mass', dimension: 'length', description: 'centre of mass, x' },
+  { key: 'massCentreY', group: 'mass', dimension: 'length', description: 'centre of mass, y' },
+  { key: 'massCentreZ', group: 'mass', dimension: 'length', description: 'centre of mass, z (height above z = 0, the first layer’s underside by default)' },
+  { key: 'massMomentX', group: 'mass', dimension: 'massMoment', description: 'mass moment of inertia about the axis through the centre of mass parallel to x, ∫(y′² + z′²) dm' },
+  { key: 'massMomentY', group: 'mass', dimension: 'massMoment', description: 'mass moment of inertia about the axis through the centre of mass parallel to y, ∫(x′² + z′²) dm' },
+  { key: 'massMomentZ', group: 'mass', dimension: 'massMoment', description: 'mass moment of inertia about the axis through the centre of mass normal to the plate, ∫(x′² + y′²) dm' },
+  { key: 'massProductXY', group: 'mass', dimension: 'massMoment', description: 'mass product of inertia about the centre of mass, ∫x′y′ dm' },
+  { key: 'massProductXZ', group: 'mass', dimension: 'massMoment', description: 'mass product of inertia about the centre of mass, ∫x′z′ dm' },
+  { key: 'massProductYZ', group: 'mass', dimension: 'massMoment', description: 'mass product of inertia about the centre of mass, ∫y′z′ dm' },
+  { key: 'cutLength', group: 'fabrication', dimension: 'length', description: 'total cut length, all contours' },
+  { key: 'cutLengthOuter', group: 'fabrication', dimension: 'length', description: 'cut length of the outer contours' },
+  { key: 'cutLengthInner', group: 'fabrication', dimension: 'length', description: 'cut length of the inner contours (holes)' },
+  { key: 'pierces', group: 'fabrication', dimension: 'count', description: 'pierce count, one per closed contour' },
+  { key: 'blankWidth', group: 'fabrication', dimension: 'length', description: 'minimum-area enclosing rectangle, longer side' },
+  { key: 'blankHeight', group: 'fabrication', dimension: 'length', description: 'minimum-area enclosing rectangle, shorter side' },
+  { key: 'blankAngle', group: 'fabrication', dimension: 'angle', description: 'direction of the blank\'s longer side from +x, degrees, in [0, 180)' },
+  { key: 'blankArea', group: 'fabrication', dimension: 'area', description: 'area of the minimum-area enclosing rectangle' },
+  { key: 'scrapFraction', group: 'fabrication', dimension: 'ratio', description: '1 − net area / blank area' },
+  { key: 'netMass', group: 'fabrication', dimension: 'mass', description: 'mass of the part: net area × thickness × density' },
+  { key: 'blankMass', group: 'fabrication', dimension: 'mass', description: 'mass of the blank: blank area × thickness × density' },
+] as const satisfies readonly QuantityInfo[];
 
+export type QuantityKey = (typeof QUANTITIES)[number]['key'];
+type KeyOf<G extends QuantityGroup> = Extract<(typeof QUANTITIES)[number], { group: G }>['key'];
+export type SectionKey = KeyOf<'section'>;
+export type MassKey = KeyOf<'mass'>;
+export type FabricationKey = KeyOf<'fabrication'>;
+
+const inGroup = <G extends QuantityGroup>(g: G): readonly (QuantityInfo & { key: KeyOf<G> })[] =>
+  (QUANTITIES as readonly QuantityInfo[]).filter((i): i is QuantityInfo & { key: KeyOf<G> } => i.group === g);
 /** Area properties of a region or part, in the order they are printed. */
-export const SECTION_QUANTITIES: readonly QuantityInfo[] = [
-  q('area', 'area', 'net area'),
-  q('perimeter', 'length', 'length of all boundary loops (cut length)'),
-  q('centroidX', 'length', 'centroid, x'),
-  q('centroidY', 'length', 'centroid, y'),
-  q('Ix', 'length4', 'second moment about the centroidal axis parallel to x, ∫(y−ȳ)² dA'),
-  q('Iy', 'length4', 'second moment about the centroidal axis parallel to y, ∫(x−x̄)² dA'),
-  q('Ixy', 'length4', 'product moment about centroidal axes, ∫(x−x̄)(y−ȳ) dA'),
-  q('IxOrigin', 'length4', 'second moment about the x axis, ∫y² dA'),
-  q('IyOrigin', 'length4', 'second moment about the y axis, ∫x² dA'),
-  q('IxyOrigin', 'length4', 'product moment about the origin, ∫xy dA'),
-  q('I1', 'length4', 'major principal second moment'),
-  q('I2', 'length4', 'minor principal second moment'),
-  q('principalAngle', 'angle', 'angle of the I1 axis from +x, degrees, in (−90, 90]'),
-  q('Ip', 'length4', 'polar second moment about the centroid, Ix + Iy'),
-  q('rx', 'length', 'radius of gyration about the centroidal x axis, √(Ix/A)'),
-  q('ry', 'length', 'radius of gyration about the centroidal y axis, √(Iy/A)'),
-  q('SxTop', 'length3', 'elastic section modulus about the centroidal x axis to the top fibre, Ix/(yMax−ȳ)'),
-  q('SxBottom', 'length3', 'elastic section modulus about the centroidal x axis to the bottom fibre, Ix/(ȳ−yMin)'),
-  q('SyRight', 'length3', 'elastic section modulus about the centroidal y axis to the right fibre, Iy/(xMax−x̄)'),
-  q('SyLeft', 'length3', 'elastic section modulus about the centroidal y axis to the left fibre, Iy/(x̄−xMin)'),
-  q('xMin', 'length', 'bounding box, smallest x'),
-  q('yMin', 'length', 'bounding box, smallest y'),
-  q('xMax', 'length', 'bounding box, largest x'),
-  q('yMax', 'length', 'bounding box, largest y'),
-  q('width', 'length', 'bounding box width, xMax − xMin'),
-  q('height', 'length', 'bounding box height, yMax − yMin'),
-];
-
-export type SectionKey =
-  | 'area' | 'perimeter' | 'centroidX' | 'centroidY'
-  | 'Ix' | 'Iy' | 'Ixy' | 'IxOrigin' | 'IyOrigin' | 'IxyOrigin'
-  | 'I1' | 'I2' | 'principalAngle' | 'Ip' | 'rx' | 'ry'
-  | 'SxTop' | 'SxBottom' | 'SyRight' | 'SyLeft'
-  | 'xMin' | 'yMin' | 'xMax' | 'yMax' | 'width' | 'height';
+export const SECTION_QUANTITIES = inGroup('section');
+export const MASS_QUANTITIES = inGroup('mass');
+export const FABRICATION_QUANTITIES = inGroup('fabrication');
 
 export type SectionValues = Record<SectionKey, number>;
 export type SectionQuantities = Record<SectionKey, Quantity>;
 
-const INFO = new Map<string, QuantityInfo>(SECTION_QUANTITIES.map((i) => [i.key, i]));
-
-/** Register quantities owned by other modules (mass properties, fabrication figures). */
-export function registerQuantities(list: readonly QuantityInfo[]): void {
-  for (const i of list) INFO.set(i.key, i);
-}
+const INFO = new Map<string, QuantityInfo>(QUANTITIES.map((i) => [i.key, i]));
 
 export function quantityInfo(key: string): QuantityInfo | undefined {
   return INFO.get(key);
+}
+
+export function isQuantityKey(key: string): key is QuantityKey {
+  return INFO.has(key);
 }
 
 /** Unit text for a dimension given the part's length unit. */

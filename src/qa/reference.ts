@@ -31,8 +31,7 @@
  * - Each quantity at most once per file.
  */
 import { InputError, describeValue } from '../base/errors.js';
-import { type Dimension, quantityInfo, SECTION_QUANTITIES } from '../properties/quantities.js';
-import { FABRICATION_QUANTITIES } from '../properties/fabrication.js';
+import { type Dimension, QUANTITIES, quantityInfo } from '../properties/quantities.js';
 import { parseCsvRecords, csvWhere } from '../base/csv.js';
 import { type ParsedUnit, parseUnit, plainScale, UNIT_EXAMPLES } from './units.js';
 import { editDistance } from '../base/text.js';
@@ -61,10 +60,8 @@ export interface Reference {
   values: StatedValue[];
 }
 
-export interface ReferenceOptions {
-  /** Keys registered by other modules, offered as suggestions on a typo (all registered keys are accepted). */
-  extraKeys?: readonly string[];
-}
+// eslint-disable-next-line @typescript-eslint/no-empty-object-type
+export interface ReferenceOptions {}
 
 // ---------------------------------------------------------------- helpers
 
@@ -82,8 +79,8 @@ export function suggestKey(name: string, keys: readonly string[]): string | unde
   return bestD <= Math.max(2, Math.floor(name.length / 3)) ? best : undefined;
 }
 
-function knownKeys(options: ReferenceOptions): string[] {
-  return [...SECTION_QUANTITIES, ...FABRICATION_QUANTITIES].map((q) => q.key).concat(options.extraKeys ?? []);
+function knownKeys(_options: ReferenceOptions): string[] {
+  return QUANTITIES.map((q) => q.key);
 }
 
 export function checkQuantity(name: string, where: string, options: ReferenceOptions): Dimension {

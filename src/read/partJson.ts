@@ -8,6 +8,9 @@ import { type PathStep, type Pt, circleLoop, pathLoop, polygonLoop, rectangleLoo
 import { combineShapes } from '../geometry/booleans.js';
 import { MAX_PATTERN_COPIES, expandPattern, gridPoints, ringPoints } from '../geometry/patterns.js';
 import { LENGTH_UNITS, type LengthUnit, isLengthUnit } from '../base/units.js';
+import type { GivenSetting } from '../model/settings.js';
+import { parseDensity, parseThickness } from '../model/settings.js';
+import type { LayerSpec, PlateModel } from '../model/plate.js';
 
 /** Coordinates beyond this magnitude are refused: no real plate needs them and squares would overflow. */
 export const MAX_COORDINATE = 1e12;
@@ -277,55 +280,26 @@ export function partFromObject(value: unknown, label = 'input'): Part {
 // where they are integrated (src/accuracy/plate.ts); here only their type is checked.
 // ---------------------------------------------------------------------------------------------------------
 
-/** A thickness or density as written: a number or the text of an expression, with its JSON path. */
-export interface FieldSpec {
-  value: number | string;
-  where: string;
-}
-
-export interface LayerSpec {
-  name: string;
-  /** JSON path of the layer ('' for a part without "layers"). */
-  where: string;
-  /** The layer's shape as a Part (name "<part> / <layer>"), not yet validated. */
-  part: Part;
-  thickness?: FieldSpec;
-  density?: FieldSpec;
-  material?: { name: string; where: string };
-  /** Underside height, part length unit; undefined = stacked on the previous layer (first: 0). */
-  z?: number;
-  zWhere?: string;
-}
-
-export interface PlateModel {
-  name: string;
-  units: LengthUnit;
-  /** True when the file used "layers". */
-  layered: boolean;
-  layers: LayerSpec[];
-}
-
-/** A part read from a drawing (or a plain part file) as a plate of one layer with no stated thickness. */
-export function singleLayerModel(part: Part): PlateModel {
-  return { name: part.name, units: part.units, layered: false, layers: [{ name: part.name, where: '', part }] };
-}
+export type { LayerSpec, PlateModel } from '../model/plate.js';
+export { singleLayerModel } from '../model/plate.js';
 
 const LAYER_KEYS = ['name', 'outline', 'cutouts', 'regions', 'thickness', 'density', 'material', 'z', 'note'];
 
-function readField(v: unknown, where: string, what: string): FieldSpec | undefined {
+/** A thickness or density as written (a number, a number with a unit, or an expression), checked by the one grammar. */
+function readField(v: unknown, where: string, what: 'thickness' | 'density'): GivenSetting | undefined {
   if (v === undefined) return undefined;
-  if (typeof v === 'number') {
-    if (!Number.isFinite(v) || !(v > 0)) throw new InputError(where, `expected a positive ${what} (a number or an expression in x and y), got ${describeValue(v)}`);
-    return { value: v, where };
+  if (typeof v === 'number' || (typeof v === 'string' && v.trim().length > 0)) {
+    const g: GivenSetting = { text: v, where };
+    if (what === 'thickness') parseThickness(g); else parseDensity(g);
+    return g;
   }
-  if (typeof v === 'string' && v.trim().length > 0) return { value: v, where };
-  throw new InputError(where, `expected a positive ${what}: a number or an expression in x and y as text, got ${describeValue(v)}`);
+  throw new InputError(where, `expected a positive ${what}: a number, a number with a unit, or an expression in x and y as text, got ${describeValue(v)}`);
 }
 
-function readMaterialName(v: unknown, where: string): { name: string; where: string } | undefined {
+function readMaterialName(v: unknown, where: string): GivenSetting | undefined {
   if (v === undefined) return undefined;
   if (typeof v !== 'string' || v.trim().length === 0) throw new InputError(where, `expected a material name (see "platewise materials"), got ${describeValue(v)}`);
-  return { name: v, where };
+  return { text: v, where };
 }
 
 /** Prefix the JSON path of an InputError raised while reading a layer's shape. */
@@ -348,14 +322,14 @@ export function plateModelFromObject(value: unknown, label = 'input'): PlateMode
   const root = expectObject(value, label);
   checkKeys(root, TOP_KEYS, '');
   const defThickness = readField(root.thickness, 'thickness', 'thickness');
-  const defDensity = readField(root.density, 'density', 'density in kg/m³');
+  const defDensity = readField(root.density, 'density', 'density');
   const defMaterial = readMaterialName(root.material, 'material');
   if (defDensity && defMaterial) throw new InputError('material', 'given together with "density"; give one or the other');
   if (root.layers === undefined) {
     const { layers: _l, thickness: _t, density: _d, material: _m, ...shape } = root;
     const part = partFromObject(shape, label);
     return {
-      name: part.name, units: part.units, layered: false,
+      name: part.name, units: part.units, unitSource: 'file', layered: false,
       layers: [{ name: part.name, where: '', part, thickness: defThickness, density: defDensity, material: defMaterial }],
     };
   }
@@ -380,7 +354,7 @@ export function plateModelFromObject(value: unknown, label = 'input'): PlateMode
     if (o.note !== undefined && typeof o.note !== 'string') throw new InputError(`${w}.note`, `expected text, got ${describeValue(o.note)}`);
     const part = withPrefix(w, () => partFromObject({ part: `${name} / ${lname}`, units, outline: o.outline, cutouts: o.cutouts, regions: o.regions }, label));
     const thickness = readField(o.thickness, `${w}.thickness`, 'thickness') ?? defThickness;
-    const density = readField(o.density, `${w}.density`, 'density in kg/m³');
+    const density = readField(o.density, `${w}.density`, 'density');
     const material = readMaterialName(o.material, `${w}.material`);
     if (density && material) throw new InputError(`${w}.material`, 'given together with "density"; give one or the other');
     const z = o.z === undefined ? undefined : expectNumber(o.z, `${w}.z`);
@@ -391,5 +365,5 @@ export function plateModelFromObject(value: unknown, label = 'input'): PlateMode
       z, zWhere: o.z === undefined ? undefined : `${w}.z`,
     };
   });
-  return { name, units: units as LengthUnit, layered: true, layers };
+  return { name, units: units as LengthUnit, unitSource: 'file', layered: true, layers };
 }

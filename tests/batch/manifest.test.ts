@@ -25,13 +25,13 @@ describe('parseManifest', () => {
     expect(a.row).toBe(1);
     expect(a.path).toBe('/jobs/a.json');
     expect(a.quantity).toBe(4);
-    expect(a.plate.material?.id).toBe('steel');
-    expect(a.plate.thickness).toEqual({ value: 0.5, unit: 'in', text: '0.5 in' });
+    expect(a.plate.material?.text).toBe('steel');
+    expect(a.plate.thickness?.text).toBe('0.5 in');
     expect(a.stated.map((s) => [s.quantity, s.value, s.unit.text])).toEqual([['area', 12.5, 'cm²'], ['pierces', 3, '']]);
     expect(b.row).toBe(2); // the blank line is skipped and not counted
     expect(b.line).toBe(4);
     expect(b.quantity).toBe(1);
-    expect(b.plate.density).toBe(7850); // 7.85 g/cm³ = 7850 kg/m³ (1 g/cm³ = 1000 kg/m³, NIST SP 811)
+    expect(b.plate.density?.text).toBe('7.85 g/cm3'); // kept as given; the one settings grammar reads it (tests/model/settings.test.ts)
     expect(b.stated).toEqual([]);
   });
   it('a stated value may carry its own unit under a header without one', () => {
@@ -72,13 +72,13 @@ describe('folderJobs and runJob', () => {
     expect(jobs.map((j) => [j.row, j.file, j.reference?.label ?? null])).toEqual([[1, 'a.json', null], [2, 'b.json', 'b.ref.json']]);
   });
   it('a malformed file is its row\'s error, not an exception', () => {
-    const [row] = runJob(folderJobs(dir)[0], { plate: {} });
+    const [row] = runJob(folderJobs(dir)[0], { defaults: {} });
     expect(row.status).toBe('failed');
     expect(row.error).toMatch(/^a\.json:1:\d+: not valid JSON/);
   });
   it('a measured row: closed-form figures, a deliberate mismatch fails, masses from the plate settings', () => {
     // 6 mm steel, 7850 kg/m³ (EN 1993-1-1, 3.2.6)
-    const [row] = runJob(folderJobs(dir)[1], { plate: { thickness: { value: 6, unit: 'mm', text: '6 mm' }, density: 7850 } });
+    const [row] = runJob(folderJobs(dir)[1], { defaults: { thickness: { text: '6 mm', where: '--thickness' }, density: { text: 7850, where: '--density' } } });
     expect(row.status).toBe('ok');
     const A = 9600 - 100 * Math.PI;
     expect(Math.abs(row.quantities.area.value - A) / A).toBeLessThan(1e-12);

@@ -28,7 +28,7 @@ describe('runPool', () => {
   for (const size of [1, 2, 3]) {
     it(`${size} worker(s): each job answered once; the crashed one failed, the rest measured`, async () => {
       const seen: BatchRow[] = [];
-      await runPool(jobs, { size, settings: { plate: {} }, onRows: (rows) => seen.push(...rows), workerUrl: pathToFileURL(script) });
+      await runPool(jobs, { size, settings: { defaults: {} }, onRows: (rows) => seen.push(...rows), workerUrl: pathToFileURL(script) });
       expect(seen.map((r) => r.row).sort((a, b) => a - b)).toEqual(jobs.map((j) => j.row));
       const failed = seen.filter((r) => r.status !== 'ok');
       expect(failed.map((r) => r.row)).toEqual([7]);

@@ -57,7 +57,7 @@ describe('exit statuses and messages', () => {
   it('bad option value: exit 2', () => {
     const r = platewise(['measure', 'samples/base-plate-bp1.json', '--degree', '25']);
     expect(r.status).toBe(2);
-    expect(r.stderr).toMatch(/degree: expected a whole number from 1 to 20, got 25/);
+    expect(r.stderr).toMatch(/--degree: expected a rule degree from 1 to 20, got 25/);
   });
   it('--help on every command exits 0', () => {
     for (const c of ['measure', 'rules']) expect(platewise([c, '--help']).status).toBe(0);

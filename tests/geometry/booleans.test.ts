@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { expectSectionClose, measureObj } from '../helpers.js';
 import { partFromObject } from '../../src/read/partJson.js';
-import { InputError } from '../../src/base/errors.js';
+import { InputError, MethodError } from '../../src/base/errors.js';
 
 type M = { A: number; Sx: number; Sy: number; Ixx: number; Iyy: number; Ixy: number }; // raw moments about the origin
 const sub = (a: M, b: M): M => ({ A: a.A - b.A, Sx: a.Sx - b.Sx, Sy: a.Sy - b.Sy, Ixx: a.Ixx - b.Ixx, Iyy: a.Iyy - b.Iyy, Ixy: a.Ixy - b.Ixy });
@@ -106,12 +106,12 @@ describe('boolean results that cannot be measured are reported', () => {
   it('a self-crossing operand is refused before clipping', () => {
     expect(bad(plate({ cutouts: [{ polygon: [[190, 90], [210, 110], [210, 90], [190, 110]] }] }))).toThrow(/^cutouts\[0\]\.polygon: crosses or touches itself/);
   });
-  it('a failure inside the clipper becomes an InputError naming the operation and shapes', async () => {
+  it('a failure inside the clipper is the method giving up (MethodError, exit 3), naming the operation and shapes', async () => {
     const { combineShapes } = await import('../../src/geometry/booleans.js');
     const { rectangleLoop, circleLoop } = await import('../../src/geometry/shapes.js');
     const engine = { name: 'failing', union: () => { throw new Error('Unable to complete output ring starting at [1, 2]'); }, difference: () => { throw new Error('Unable to complete output ring starting at [1, 2]'); } };
     const run = () => combineShapes({ outline: rectangleLoop([0, 0], [10, 10], 0, 'outline'), cutouts: [circleLoop([10, 5], 4, 'cutouts[0]')] }, { engine });
-    expect(run).toThrow(InputError);
-    expect(run).toThrow(/^outline: the difference with cutouts\[0\] failed in the polygon clipper \(Unable to complete output ring/);
+    expect(run).toThrow(MethodError);
+    expect(run).toThrow(/^polygon clipper: the difference of outline with cutouts\[0\] failed \(Unable to complete output ring.*\); shapes that touch or nearly coincide/);
   });
 });

@@ -56,7 +56,7 @@ describe('tiny and nearly touching features', () => {
     const c1 = 200, c2 = 200 + D + gap;
     const t0 = performance.now();
     const r = measureObj({ outline: { rectangle: { corner: [0, 0], size: [500, 200] } }, cutouts: [{ circle: { center: [c1, 100], diameter: D } }, { circle: { center: [c2, 100], diameter: D } }] });
-    expect(performance.now() - t0).toBeLessThan(2000);
+    console.log(`took ${(performance.now() - t0).toFixed(0)} ms (printed, not asserted: tests never assert on time)`);
     const Ah = Math.PI * D * D / 4, A = 500 * 200 - 2 * Ah;
     near(r, 'area', A, A, 1e-12);
     const xc = (500 * 200 * 250 - Ah * (c1 + c2)) / A;
@@ -65,12 +65,12 @@ describe('tiny and nearly touching features', () => {
     near(r, 'Iy', Iy, Iy, 1e-11);
   });
 
-  it('a hole 1e-5 mm from another (2e-8 of the plate, above the 1e-9 touching tolerance) is refused by the mesher with one clear line', () => {
+  it('a hole 1e-5 mm from another (2e-8 of the plate, above the 1e-9 touching tolerance) is given up by the mesher (MethodError, exit 3) with one clear line', () => {
     // decision: gaps down to 1e-6 of the size are measured (above); closer ones may be refused, never mis-measured
     const obj = { outline: { rectangle: { corner: [0, 0], size: [500, 200] } }, cutouts: [{ circle: { center: [200, 100], diameter: 100 } }, { polygon: [[250.00001, 60], [300, 60], [300, 140], [250.00001, 140]] }] };
     let msg = '';
-    try { measureObj(obj); } catch (e) { msg = (e as Error).message; expect((e as Error).name).toBe('InputError'); }
-    expect(msg).toMatch(/^mesh: the boundary could not be triangulated \(.*\); are two loops touching\?$/);
+    try { measureObj(obj); } catch (e) { msg = (e as Error).message; expect((e as Error).name).toBe('MethodError'); }
+    expect(msg).toMatch(/^triangulation: Delaunator with Constrainautor could not restore a boundary edge \(.*\); try another triangulation \(cdt2d\)$/);
   });
 
   it('nearly collinear vertices: a vertex 1e-7 mm off a 100 mm edge, and one exactly on it', () => {

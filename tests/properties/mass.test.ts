@@ -4,13 +4,21 @@
  * about its centre ∫x² dA = πr⁴/4; parallel-axis theorem), and against the trade's rule of thumb.
  */
 import { describe, expect, it } from 'vitest';
-import { measureMass, resolvePlate } from '../../src/analysis/plate.js';
+import { measureMass } from '../../src/analysis/plate.js';
+import { type PlateModel, resolveLayers } from '../../src/model/plate.js';
 import { plateModelFromObject } from '../../src/read/partJson.js';
 import { MASS_MOMENT_UNITS, MASS_UNITS } from '../../src/model/massUnits.js';
 import { STANDARD_GRAVITY } from '../../src/properties/mass.js';
 import { rel } from '../helpers.js';
 
-const massOf = (obj: unknown, flags = {}, opts = {}) => {
+/** Command-line style settings ({ thickness: '12' }) as given settings labelled with their flags. */
+const given = (flags: Record<string, string>) => Object.fromEntries(Object.entries(flags).map(([k, v]) => [k, { text: v, where: `--${k}` }]));
+const resolvePlate = (model: PlateModel, flags: Record<string, string>) => {
+  const r = resolveLayers(model, given(flags));
+  if (!r.layers) throw new Error(`part: no ${r.missing.join(' and ')}`);
+  return r.layers;
+};
+const massOf = (obj: unknown, flags: Record<string, string> = {}, opts = {}) => {
   const model = plateModelFromObject(obj);
   return measureMass(model.name, model.units, resolvePlate(model, flags), opts);
 };

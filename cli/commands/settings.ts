@@ -1,0 +1,27 @@
+/** Flags shared by several commands, turned into library settings (the CLI only names where each came from). */
+import type { PlateSettings } from '../../src/model/plate.js';
+import { type MassUnits } from '../../src/output/massText.js';
+import { parseMassMomentUnit, parseMassUnit } from '../../src/model/massUnits.js';
+import { checkReadOptions, type ReadOptions } from '../../src/read/read.js';
+
+export interface PlateFlags { thickness?: string; density?: string; material?: string }
+
+/** --thickness, --density, --material as given settings, each labelled with its flag. */
+export function plateSettings(flags: PlateFlags): PlateSettings {
+  const s: PlateSettings = {};
+  if (flags.thickness !== undefined) s.thickness = { text: flags.thickness, where: '--thickness' };
+  if (flags.density !== undefined) s.density = { text: flags.density, where: '--density' };
+  if (flags.material !== undefined) s.material = { text: flags.material, where: '--material' };
+  return s;
+}
+
+export function massUnits(flags: { massUnit?: string; inertiaUnit?: string }): MassUnits {
+  return {
+    mass: flags.massUnit === undefined ? 'kg' : parseMassUnit(flags.massUnit, '--mass-unit'),
+    inertia: flags.inertiaUnit === undefined ? 'kg·m²' : parseMassMomentUnit(flags.inertiaUnit, '--inertia-unit'),
+  };
+}
+
+export function readOptions(flags: { format?: string; units?: string }): ReadOptions {
+  return checkReadOptions(flags.format, flags.units);
+}

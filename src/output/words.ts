@@ -1,0 +1,48 @@
+/**
+ * Words for the facts the library reports: warnings, density origins, unit sources and stop reasons.
+ * The library reports codes with parameters; this is the one place that turns them into English.
+ */
+import type { AnalysisWarning } from '../analysis/analyze.js';
+import type { DensityOrigin, UnitSource } from '../model/plate.js';
+import { formatNumber } from './text.js';
+
+const n = (v: number) => formatNumber(v, 6);
+
+export function warningText(w: AnalysisWarning): string {
+  switch (w.code) {
+    case 'principal-axes-undefined':
+      return 'I1 and I2 are equal within their estimates: every centroidal axis is a principal axis, so principalAngle is not defined (reported as 0 ± 90°).';
+    case 'distorted-curved-triangle':
+      return `a curved triangle is strongly distorted (smallest Jacobian ratio ${w.minJacobianRatio.toPrecision(2)}); treat the estimate with care.`;
+    case 'density-implausible': {
+      const [lo, hi] = w.limit as [number, number];
+      return `${w.where}: a density of ${n(w.value)} kg/m³ is outside ${n(lo)} to ${n(hi)} kg/m³, unusual for a plate material; check the unit (7.85 g/cm³ is 7850 kg/m³).`;
+    }
+    case 'thickness-exceeds-part':
+      return `${w.where}: the thickness ${n(w.value)} ${w.unit} is larger than the part itself (${n(w.limit as number)} ${w.unit}); check the unit.`;
+    case 'thickness-very-thin':
+      return `${w.where}: the thickness ${n(w.value)} ${w.unit} is under ${n(w.limit as number)} ${w.unit} (0.01 mm); check the unit.`;
+    case 'mass-not-computed':
+      return `mass figures not computed: no ${w.missing.join(' and ')} (give ${w.missing.map((m) => (m === 'thickness' ? 'a thickness' : 'a density or material')).join(' and ')}).`;
+  }
+}
+
+/** Warnings for JSON: the code and parameters as facts, plus the sentence. */
+export function warningJson(w: AnalysisWarning): Record<string, unknown> {
+  return { ...w, message: warningText(w) };
+}
+
+export function densityText(d: DensityOrigin): string {
+  if (d.kind === 'material') {
+    return `${d.id}, ${d.density} kg/m³ (${d.source}${d.origin === 'built-in' ? '' : `; from ${d.origin}`})`;
+  }
+  return `${d.text} kg/m³ given ${d.where.startsWith('--') ? 'by' : 'at'} ${d.where}`;
+}
+
+export function unitSourceText(s: UnitSource): string {
+  switch (s) {
+    case 'file': return 'stated by the file';
+    case 'option': return 'chosen with --units';
+    case 'assumed': return 'ASSUMED (the file states none)';
+  }
+}
