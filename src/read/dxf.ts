@@ -12,11 +12,11 @@
  * Limits: the tokenizer caps group codes; block nesting depth MAX_DEPTH; segments after block expansion
  * MAX_SEGMENTS; entity instances visited MAX_INSTANCES. Block expansion uses an explicit stack.
  */
-import { InputError } from '../errors.js';
+import { InputError } from '../base/errors.js';
 import { type JoinIssue, type JoinPiece, joinPieces } from '../geometry/join.js';
 import type { Segment } from '../geometry/segments.js';
 import { type Affine, IDENTITY, composeAffine, transformSegment } from '../geometry/transform.js';
-import type { LengthUnit } from '../units.js';
+import type { LengthUnit } from '../base/units.js';
 import type { Drawing, DrawingUnits, DrawnContour, HiddenReason, JoinGap } from './drawing.js';
 import { type DxfEntity, type DxfFile, type DxfLayer, findValue, parseDxfStructure } from './dxfStructure.js';
 import { splineToSegments } from './dxfSpline.js';

@@ -6,7 +6,7 @@
  * An entity is a range of group codes [start, end) after its "0 TYPE" pair. A POLYLINE keeps its VERTEX
  * records as children; ATTRIB records after an INSERT become entities of their own (ignored later).
  */
-import { InputError } from '../errors.js';
+import { InputError } from '../base/errors.js';
 import type { DxfTags } from './dxfTags.js';
 
 export interface DxfEntity {

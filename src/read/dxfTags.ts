@@ -7,7 +7,7 @@
  * upper bound on the pair count. Iterative, no recursion. Binary DXF and text that is not DXF are refused
  * with one line naming the line number.
  */
-import { InputError } from '../errors.js';
+import { InputError } from '../base/errors.js';
 
 export interface DxfTags {
   /** Group codes. */

@@ -4,7 +4,7 @@
  * computed with ezdxf (its own entity/path/block expansion) and shapely (polygon area and centroid).
  */
 import { describe, expect, it } from 'vitest';
-import { InputError } from '../../src/errors.js';
+import { InputError } from '../../src/base/errors.js';
 import { readDxf, readDxfFull } from '../../src/read/dxf.js';
 import type { Drawing, DrawnContour } from '../../src/read/drawing.js';
 import { centroid, extents, findContour, fixture, moments, reference, signedArea } from './dxfHelpers.js';

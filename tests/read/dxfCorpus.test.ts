@@ -6,7 +6,7 @@
 import { existsSync, readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { InputError } from '../../src/errors.js';
+import { InputError } from '../../src/base/errors.js';
 import { readDxf } from '../../src/read/dxf.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');
