@@ -3,7 +3,8 @@
  * platewise command line. Thin: parse arguments, call src/, print. Each command is declared in
  * cli/commands/<name>.def.ts (options only, cheap to load); its body in cli/commands/<name>.ts is imported
  * only when that command runs, so start-up stays cheap.
- * Exit status: 0 success, 2 bad input (one line, no stack trace), 1 unexpected failure.
+ * Exit status (src/base/errors.ts EXIT): 0 success; 1 a check found a difference (compare, batch); 2 bad input;
+ * 3 a method gave up on valid input; 4 an internal fault.
  */
 import { Command, CommanderError } from 'commander';
 import { COMMANDS } from './commands/index.js';
@@ -16,6 +17,13 @@ program
   .version(VERSION)
   // one line on standard error, like every other bad-input message: "platewise: <what> (run with --help for usage)"
   .configureOutput({ outputError: (str, write) => write(`platewise: ${str.replace(/^error: /, '').trim().split('\n')[0]} (run with --help for usage)\n`) })
+  .addHelpText('after', `
+Exit status:
+  0  success
+  1  a check found a difference (compare or batch: a stated value fails or is inconclusive)
+  2  bad input: the file or an option (one line on standard error naming where; nothing written)
+  3  a method gave up on valid input (mesher, clipper): the line says what was tried and what to do
+  4  an internal fault: one line and a request to report it (PLATEWISE_DEBUG=1 shows the stack)`)
   .exitOverride();
 
 for (const define of COMMANDS) define(program);
