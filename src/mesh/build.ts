@@ -1,6 +1,6 @@
 /**
- * From an exact part to a typed-array mesh: chord the boundary (curve-tagged), triangulate with cdt2d
- * constrained to the chords, tag every triangle edge that lies on a curve, and split chords until every
+ * From an exact part to a typed-array mesh: chord the boundary (curve-tagged), triangulate constrained to
+ * the chords (Delaunator + Constrainautor by default, cdt2d on request), tag every triangle edge that lies on a curve, and split chords until every
  * curved triangle's map is safely valid.
  */
 import { InputError, MethodError } from '../base/errors.js';
@@ -180,13 +180,14 @@ function triangulate(loops: BVert[][], segments: Segment[], origin: [number, num
  * Keys (`seg:t` of the chord's first vertex) of chords whose curved triangle is not safely valid:
  *  - a curved edge bulges more than `maxBulge` × the triangle's height over it, or
  *  - at a vertex, curves turning into the triangle eat more than half of the corner angle, or
- *  - the map's Jacobian is not positive on a grid of 10 probe points (step 1/6) and near the corners and edges
+ *  - the map's Jacobian is not positive on a barycentric grid of 10 interior points (step 1/6) and at 6 points
+ *    near the corners and edges
  *    (integrate() also reports the smallest Jacobian met at the quadrature points actually used).
  */
 function badCurvedEdges(m: Mesh, maxBulge: number): Set<string> {
   const bad = new Set<string>();
   const map = new TriangleMap();
-  // probe points: a barycentric grid (step 1/16, strictly inside) and points near the corners and edges
+  // probe points: a barycentric grid (step 1/6, strictly inside) and points near the corners and edges
   const probe: [number, number][] = [[0.01, 0.01], [0.98, 0.01], [0.01, 0.98], [0.495, 0.495], [0.495, 0.01], [0.01, 0.495]];
   for (let i = 1; i < 6; i++) for (let j = 1; i + j < 6; j++) probe.push([i / 6, j / 6]);
   const d: [number, number] = [0, 0];
