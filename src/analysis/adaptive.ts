@@ -3,7 +3,8 @@
  * adaptive refinement to a tolerance.
  *
  * Every active ("leaf") triangle T is integrated with the chosen rule, and so are its four children
- * (edge midpoints; a curved edge is split at its parameter midpoint, on the curve, as refineUniform does).
+ * (splitTriangle in src/mesh/refine.ts, the routine refineUniform uses: edge midpoints, a curved edge split at
+ * its parameter midpoint on the curve). Every triangle goes through the one kernel, integrateTriangle.
  * The reported value is the sum over the children of all leaves (the fine value); the sum over the leaves
  * themselves is the coarse value; the indicator of T is |Σ children − T| per component, and the estimate of
  * a component is the sum of its indicators (≥ |fine − coarse|, and for a converging rule an upper bound of
@@ -21,18 +22,14 @@
  * Functions are evaluated only at rule points of the safe Dunavant rules, which lie strictly inside each
  * triangle, through the exact (curved) map; they are never evaluated outside the part.
  */
-import { ops } from '../geometry/segments.js';
 import { type Mesh, TriangleMap } from '../mesh/mesh.js';
+import { GrowingMesh, splitTriangle } from '../mesh/refine.js';
+import { type PointFunction, integrateTriangle, makeKernel } from '../quadrature/integrate.js';
 import { SAFE_DEGREES, getRule } from '../quadrature/rules.js';
+import type { StopReason } from '../quadrature/stop.js';
 import { InputError } from '../base/errors.js';
 
-/**
- * Fill `out` (length K) with the integrands at a point. (x, y) are part coordinates; (lx, ly) the same point
- * relative to the mesh's local origin (use these for moments, they keep their digits far from the origin).
- */
-export type PointFunction = (x: number, y: number, lx: number, ly: number, out: Float64Array) => void;
-
-export type StopReason = 'uniform' | 'tolerance' | 'triangle cap' | 'time cap';
+export type { PointFunction } from '../quadrature/integrate.js';
 
 export interface AdaptiveOptions {
   /** Dunavant rule degree (a safe degree: points strictly inside, positive weights). */
@@ -69,6 +66,7 @@ export interface AdaptiveResult {
   scale: Float64Array;
   /** Tolerance each component had to meet (absolute), or NaN without adaptivity. */
   target: Float64Array;
+  /** Why it stopped: 'levels' without a tolerance (the two levels above), else 'tolerance', 'triangle-cap' or 'time-cap'. */
   stopped: StopReason;
   /** Triangles of the fine level (4 × leaves). */
   triangles: number;
@@ -79,6 +77,7 @@ export interface AdaptiveResult {
   points: number;
   rulePoints: number;
   degree: number;
+  /** Smallest curved-map Jacobian over the straight triangle's, at every point of both rules. */
   minJacobianRatio: number;
   millis: number;
 }
@@ -87,71 +86,6 @@ export const DEFAULT_MAX_TRIANGLES = 400_000;
 export const DEFAULT_MAX_MILLIS = 30_000;
 export const DEFAULT_FLOOR_FRACTION = 1e-3;
 const ROUNDOFF = 64 * Number.EPSILON;
-
-/** A mesh that grows by splitting triangles; plain arrays viewed as a Mesh for TriangleMap. */
-class GrowingMesh {
-  coords: number[];
-  triangles: number[];
-  edgeCurve: number[];
-  curveSeg: number[];
-  curveS0: number[];
-  curveS1: number[];
-  readonly view: Mesh;
-  private readonly p: [number, number] = [0, 0];
-
-  constructor(private readonly base: Mesh) {
-    this.coords = Array.from(base.coords);
-    this.triangles = Array.from(base.triangles);
-    this.edgeCurve = Array.from(base.edgeCurve);
-    this.curveSeg = Array.from(base.curveSeg);
-    this.curveS0 = Array.from(base.curveS0);
-    this.curveS1 = Array.from(base.curveS1);
-    // TriangleMap only indexes these arrays, so number[] serves as well as a typed array.
-    this.view = {
-      origin: base.origin, coords: this.coords, triangles: this.triangles, edgeCurve: this.edgeCurve,
-      curveSeg: this.curveSeg, curveS0: this.curveS0, curveS1: this.curveS1, segments: base.segments, level: base.level,
-    } as unknown as Mesh;
-  }
-
-  private midpoint(a: number, b: number, rec: number): number {
-    const idx = this.coords.length / 2;
-    if (rec >= 0) {
-      const s = this.base.segments[this.curveSeg[rec]];
-      ops(s).point(s, (this.curveS0[rec] + this.curveS1[rec]) / 2, this.p);
-      this.coords.push(this.p[0], this.p[1]);
-    } else {
-      const c = this.coords;
-      this.coords.push((c[2 * a] + c[2 * b]) / 2, (c[2 * a + 1] + c[2 * b + 1]) / 2);
-    }
-    return idx;
-  }
-
-  private half(rec: number, first: boolean): number {
-    if (rec < 0) return -1;
-    const a = this.curveS0[rec], b = this.curveS1[rec], c = (a + b) / 2;
-    const id = this.curveSeg.length;
-    this.curveSeg.push(this.curveSeg[rec]);
-    this.curveS0.push(first ? a : c);
-    this.curveS1.push(first ? c : b);
-    return id;
-  }
-
-  /** Append the four children of triangle t; returns the index of the first (the others follow). */
-  split(t: number): number {
-    const T = this.triangles, E = this.edgeCurve;
-    const v0 = T[3 * t], v1 = T[3 * t + 1], v2 = T[3 * t + 2];
-    const r0 = E[3 * t], r1 = E[3 * t + 1], r2 = E[3 * t + 2];
-    const m01 = this.midpoint(v0, v1, r0), m12 = this.midpoint(v1, v2, r1), m20 = this.midpoint(v2, v0, r2);
-    const first = T.length / 3;
-    T.push(v0, m01, m20, m01, v1, m12, m20, m12, v2, m01, m12, m20);
-    // same edge bookkeeping as refineUniform: corner triangles keep half of each curved edge
-    E.push(this.half(r0, true), -1, this.half(r2, false));
-    E.push(this.half(r0, false), this.half(r1, true), -1);
-    E.push(-1, this.half(r1, false), this.half(r2, true));
-    E.push(-1, -1, -1);
-    return first;
-  }
-}
 
 /**
  * Integrate K components over the mesh (see the file comment). Throws whatever `f` throws (an InputError
@@ -170,15 +104,14 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
   const maxMillis = opts.maxMillis ?? DEFAULT_MAX_MILLIS;
   const floorFraction = opts.floorFraction ?? DEFAULT_FLOOR_FRACTION;
   const drive = opts.drive ?? [...Array(K).keys()];
-  const g = new GrowingMesh(mesh);
+  // the base mesh and every child made so far, in one growing mesh (children of a split are appended)
+  const g = GrowingMesh.copyOf(mesh, 8);
   const map = new TriangleMap();
-  const [ox, oy] = mesh.origin;
-  const out = new Float64Array(K);
+  const kernel = makeKernel(K, false, f, mesh.origin);
   let points = 0;
-  let minRatio = Infinity;
 
-  // value of every stored triangle (K per triangle), grown as needed
-  let vals = new Float64Array(Math.max(16, mesh.triangles.length / 3 * 8) * K);
+  // value of every stored triangle (K per triangle) by the rule and by the companion rule, grown as needed
+  let vals = new Float64Array(Math.max(16, mesh.count * 8) * K);
   let vals2 = new Float64Array(vals.length);
   const ensure = (nTri: number) => {
     if (nTri * K <= vals.length) return;
@@ -190,29 +123,10 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
     vals2 = bigger2;
   };
   const evalTriangle = (t: number) => {
-    map.load(g.view, t);
-    const o = t * K;
-    for (let k = 0; k < K; k++) vals[o + k] = 0;
-    const n = rule.n, L1 = rule.l1, L2 = rule.l2, W = rule.w;
-    for (let q = 0; q < n; q++) {
-      map.at(L1[q], L2[q]);
-      const wj = W[q] * map.jac * 0.5;
-      if (map.curved) {
-        const r = map.jac / map.det;
-        if (r < minRatio) minRatio = r;
-      }
-      f(map.x + ox, map.y + oy, map.x, map.y, out);
-      for (let k = 0; k < K; k++) vals[o + k] += wj * out[k];
-    }
-    points += n;
-    for (let k = 0; k < K; k++) vals2[o + k] = 0;
-    for (let q = 0; q < rule2.n; q++) {
-      map.at(rule2.l1[q], rule2.l2[q]);
-      const wj = rule2.w[q] * map.jac * 0.5;
-      f(map.x + ox, map.y + oy, map.x, map.y, out);
-      for (let k = 0; k < K; k++) vals2[o + k] += wj * out[k];
-    }
-    points += rule2.n;
+    map.load(g, t);
+    integrateTriangle(map, rule, kernel, vals, t * K);
+    integrateTriangle(map, rule2, kernel, vals2, t * K);
+    points += rule.n + rule2.n;
   };
   /**
    * Indicator of leaf t, component k: the larger of |Σ children − t| (refinement) and
@@ -229,13 +143,14 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
   // children[t] = index of the first of t's four children, for leaves
   const firstChild: number[] = [];
   const expand = (t: number) => {
-    const c = g.split(t);
+    const c = g.count;
+    splitTriangle(g, t, g, c, null);
     ensure(c + 4);
     for (let i = 0; i < 4; i++) evalTriangle(c + i);
     firstChild[t] = c;
   };
 
-  const nBase = mesh.triangles.length / 3;
+  const nBase = mesh.count;
   ensure(nBase);
   let leaves: number[] = [];
   for (let t = 0; t < nBase; t++) {
@@ -270,7 +185,7 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
   };
   totals();
 
-  let stopped: StopReason = 'uniform';
+  let stopped: StopReason = 'levels';
   let rounds = 0;
   if (opts.tolerance !== undefined) {
     const tol = opts.tolerance;
@@ -285,9 +200,9 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
     for (;;) {
       const met = drive.every((k) => estimate[k] <= target[k]);
       if (met) { stopped = 'tolerance'; break; }
-      if (Date.now() - start > maxMillis) { stopped = 'time cap'; break; }
+      if (Date.now() - start > maxMillis) { stopped = 'time-cap'; break; }
       const room = Math.floor((maxTriangles - 4 * leaves.length) / 12); // each split adds 3 leaves = 12 fine triangles
-      if (room < 1) { stopped = 'triangle cap'; break; }
+      if (room < 1) { stopped = 'triangle-cap'; break; }
       // normalised indicator of each leaf: the largest share of any driving component's target
       const r = new Float64Array(leaves.length);
       let total = 0;
@@ -331,7 +246,7 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
   return {
     fine, coarse, estimate, scale, target, stopped,
     triangles: 4 * leaves.length, leaves: leaves.length, baseTriangles: nBase, rounds, points,
-    rulePoints: rule.n, degree: opts.degree, minJacobianRatio: minRatio === Infinity ? 1 : minRatio,
+    rulePoints: rule.n, degree: opts.degree, minJacobianRatio: kernel.minRatio === Infinity ? 1 : kernel.minRatio,
     millis: Date.now() - start,
   };
 }

@@ -17,6 +17,7 @@ import { integrate } from '../quadrature/integrate.js';
 import { DEFAULT_DEGREE, getRule } from '../quadrature/rules.js';
 import { type Quantity, SECTION_QUANTITIES, type SectionKey, type SectionQuantities, type SectionValues } from '../properties/quantities.js';
 import { type ExactFigures, roundoffFloor, sectionFromMoments } from '../properties/section.js';
+import type { StopReason } from '../quadrature/stop.js';
 
 export interface MeasureOptions extends MeshOptions {
   /** Dunavant rule degree for curved triangles (1–20). */
@@ -42,6 +43,8 @@ export interface MethodInfo {
   /** How the numbers were made: the mesh with refinement, or the exact boundary formula (straight edges). */
   path: 'mesh' | 'boundary';
   estimator: 'uniform refinement' | 'exact boundary formula';
+  /** Why the values stopped where they are: 'exact' (boundary formula) or 'levels' (refinement levels). */
+  stopped: Extract<StopReason, 'exact' | 'levels'>;
   /** Triangles of the base mesh and of the finest mesh used. */
   baseTriangles: number;
   triangles: number;
@@ -121,6 +124,7 @@ function boundaryResult(input: Part, moments: Float64Array, origin: [number, num
       rulePoints: getRule(degree).n,
       path: 'boundary',
       estimator: 'exact boundary formula',
+      stopped: 'exact',
       baseTriangles: 0,
       triangles: 0,
       curvedTriangles: 0,
@@ -141,7 +145,7 @@ function boundaryResult(input: Part, moments: Float64Array, origin: [number, num
 }
 
 function allTriangles(m: Mesh): Uint32Array {
-  const n = m.triangles.length / 3;
+  const n = m.count;
   const out = new Uint32Array(n);
   for (let i = 0; i < n; i++) out[i] = i;
   return out;
@@ -214,6 +218,7 @@ export function measureSection(input: Part, options: MeasureOptions = {}): Secti
       rulePoints: rule.n,
       path: 'mesh',
       estimator: 'uniform refinement',
+      stopped: 'levels',
       baseTriangles: triangleCount(mesh),
       triangles: levels[levels.length - 1].triangles,
       curvedTriangles: countCurved(mesh),

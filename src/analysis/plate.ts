@@ -17,7 +17,8 @@ import { MASS_KEYS, MASS_SUMS, type MassKey, type MassValues, massFromSums, prop
 import type { Quantity } from '../properties/quantities.js';
 import { DEFAULT_DEGREE } from '../quadrature/rules.js';
 import type { LengthUnit } from '../base/units.js';
-import { type AdaptiveResult, type StopReason, integrateAdaptive } from './adaptive.js';
+import { type AdaptiveResult, integrateAdaptive } from './adaptive.js';
+import { type StopReason, combineStops } from '../quadrature/stop.js';
 import { preparePart } from './measure.js';
 import { checkPoles } from './singular.js';
 
@@ -36,7 +37,7 @@ export interface IntegrationMethod {
   degree: number;
   rulePoints: number;
   estimator: 'uniform refinement' | 'adaptive refinement';
-  /** 'uniform' without a tolerance; otherwise why refinement stopped. */
+  /** 'levels' without a tolerance (mesh and one uniform refinement); otherwise why refinement stopped. */
   stopped: StopReason;
   tolerance: number | null;
   baseTriangles: number;
@@ -48,7 +49,7 @@ export interface IntegrationMethod {
 }
 
 function methodOf(results: AdaptiveResult[], tolerance: number | undefined): IntegrationMethod {
-  const worst: StopReason = results.find((r) => r.stopped === 'time cap')?.stopped ?? results.find((r) => r.stopped === 'triangle cap')?.stopped ?? results[0].stopped;
+  const worst = combineStops(results.map((r) => r.stopped));
   return {
     degree: results[0].degree,
     rulePoints: results[0].rulePoints,
@@ -62,16 +63,6 @@ function methodOf(results: AdaptiveResult[], tolerance: number | undefined): Int
     millis: results.reduce((n, r) => n + r.millis, 0),
     minJacobianRatio: Math.min(...results.map((r) => r.minJacobianRatio)),
   };
-}
-
-/** Plain words for the stop reason (text output). */
-export function stopText(m: IntegrationMethod): string {
-  switch (m.stopped) {
-    case 'uniform': return 'no tolerance requested: mesh and one uniform refinement';
-    case 'tolerance': return `tolerance met (relative ${m.tolerance})`;
-    case 'triangle cap': return `stopped at cap (triangle limit reached, ${m.triangles} triangles) before the tolerance ${m.tolerance} was met`;
-    case 'time cap': return `stopped at cap (time limit reached after ${(m.millis / 1000).toFixed(1)} s) before the tolerance ${m.tolerance} was met`;
-  }
 }
 
 export interface LayerMass {
@@ -217,7 +208,7 @@ export function integrateExpression(input: Part, text: string, opts: Integration
     warnings.push(`the estimate of ∫ f dA is ${(100 * errors.integral / Math.abs(values.integral)).toPrecision(2)}% of its value: ${rough}.`);
   }
   const method = methodOf([r], opts.tolerance);
-  if (method.stopped === 'triangle cap' || method.stopped === 'time cap') warnings.push(stopText(method));
+  // a cap (method.stopped) is a fact of the method; the writers in src/output say it in words
   return {
     part: part.name, units: part.units, expression: text,
     integral: q('integral'), momentX: q('momentX'), momentY: q('momentY'),

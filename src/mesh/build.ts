@@ -172,7 +172,7 @@ function triangulate(loops: BVert[][], segments: Segment[], origin: [number, num
   return {
     origin, coords, triangles, edgeCurve,
     curveSeg: Uint32Array.from(curveSeg), curveS0: Float64Array.from(curveS0), curveS1: Float64Array.from(curveS1),
-    segments, level: 0,
+    segments, count: m, level: 0,
   };
 }
 

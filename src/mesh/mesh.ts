@@ -14,8 +14,32 @@
  */
 import { type Segment, ops } from '../geometry/segments.js';
 
-export interface Mesh {
+/**
+ * The shape every integration and subdivision routine reads: a structural type, not a class, so the
+ * triangulated mesh, its uniform refinements, a selection of its triangles and the adaptive integrator's
+ * growing mesh all satisfy it without conversion.
+ *
+ * Triangles 0 … count − 1 are in use; the arrays may hold spare room after them (a growing mesh), so
+ * readers take the triangle count from `count`, never from `triangles.length`. Vertices and curve records
+ * are reached only through the triangles that use them.
+ */
+export interface MeshView {
   /** Local origin: coordinates are stored relative to it (part coordinate = origin + local). */
+  readonly origin: [number, number];
+  readonly coords: Float64Array;
+  readonly triangles: Uint32Array;
+  readonly edgeCurve: Int32Array;
+  readonly curveSeg: Uint32Array;
+  readonly curveS0: Float64Array;
+  readonly curveS1: Float64Array;
+  /** Boundary segments in local coordinates. */
+  readonly segments: readonly Segment[];
+  /** Triangles in use. */
+  readonly count: number;
+}
+
+/** A finished mesh: its arrays hold exactly its vertices and triangles (count = triangles.length / 3). */
+export interface Mesh extends MeshView {
   origin: [number, number];
   coords: Float64Array;
   triangles: Uint32Array;
@@ -23,22 +47,22 @@ export interface Mesh {
   curveSeg: Uint32Array;
   curveS0: Float64Array;
   curveS1: Float64Array;
-  /** Boundary segments in local coordinates. */
   segments: Segment[];
+  count: number;
   /** Refinement level relative to the base mesh (0 = as triangulated). */
   level: number;
 }
 
 export const vertexCount = (m: Mesh) => m.coords.length / 2;
-export const triangleCount = (m: Mesh) => m.triangles.length / 3;
+export const triangleCount = (m: MeshView) => m.count;
 
-export function isCurved(m: Mesh, t: number): boolean {
+export function isCurved(m: MeshView, t: number): boolean {
   return m.edgeCurve[3 * t] >= 0 || m.edgeCurve[3 * t + 1] >= 0 || m.edgeCurve[3 * t + 2] >= 0;
 }
 
-export function countCurved(m: Mesh): number {
+export function countCurved(m: MeshView): number {
   let n = 0;
-  for (let t = 0; t < m.triangles.length / 3; t++) if (isCurved(m, t)) n++;
+  for (let t = 0; t < m.count; t++) if (isCurved(m, t)) n++;
   return n;
 }
 
@@ -62,7 +86,7 @@ export class TriangleMap {
   /** results of `at`: point and Jacobian determinant (area factor w.r.t. the reference (l1, l2)) */
   x = 0; y = 0; jac = 0;
 
-  load(m: Mesh, t: number): this {
+  load(m: MeshView, t: number): this {
     const tri = m.triangles, c = m.coords;
     const a = tri[3 * t], b = tri[3 * t + 1], d = tri[3 * t + 2];
     this.x0 = c[2 * a]; this.y0 = c[2 * a + 1];
@@ -138,7 +162,7 @@ export class TriangleMap {
 }
 
 /** Largest deviation of each curved edge from its chord divided by the triangle's height over that edge. */
-export function curvedEdgeRatio(m: Mesh, t: number): number {
+export function curvedEdgeRatio(m: MeshView, t: number): number {
   let worst = 0;
   const tri = m.triangles, c = m.coords;
   const v = [tri[3 * t], tri[3 * t + 1], tri[3 * t + 2]];

@@ -18,6 +18,7 @@ import { type Quantity, SECTION_QUANTITIES, quantityInfo, unitText } from '../pr
 import { convergencePlot, convergencePoints } from './convergence.js';
 import { drawPart } from './draw.js';
 import { num } from './pathData.js';
+import { stopText } from './stopText.js';
 
 export interface ReportPart {
   /** Result measured exactly as `measure` measures it (the table shows these numbers). */
@@ -124,7 +125,7 @@ function methodList(r: SectionResult): string {
     const items: [string, string][] = [
       ['path', 'exact boundary formula: every edge is straight, so the moments are sums over the edges (Green\'s theorem); no mesh, no refinement'],
       ['estimate', `${m.estimator}: round-off allowance only`],
-      ['stop', 'no tolerance requested (nothing to refine)'],
+      ['stop', stopText(m)],
       ['edges', String(m.vertices)],
       ['local origin', `(${formatNumber(m.localOrigin[0])}, ${formatNumber(m.localOrigin[1])}) ${r.units}`],
     ];
@@ -134,12 +135,12 @@ function methodList(r: SectionResult): string {
     ['rule', `Dunavant degree ${m.degree} (${m.rulePoints} points) on curved triangles; straight triangles use the lowest rule exact for the moments`],
     ['triangles', `${m.baseTriangles} in the base mesh (${m.curvedTriangles} curved, ${m.vertices} vertices), refined uniformly ${m.refinementLevels}× to ${m.triangles}`],
     ['estimate', `${m.estimator}: |refined − coarse| of each quantity plus a round-off allowance`],
-    ['stop', 'no tolerance requested: fixed number of uniform refinements (no cap applies)'],
+    ['stop', stopText(m)],
     ['triangulation', String(m.triangulation)],
     ['curved maps', `smallest Jacobian ratio ${formatNumber(m.minJacobianRatio, 3)}`],
     ['local origin', `(${formatNumber(m.localOrigin[0])}, ${formatNumber(m.localOrigin[1])}) ${r.units}`],
   ];
-  const known = new Set(['path', 'degree', 'rulePoints', 'estimator', 'baseTriangles', 'triangles', 'curvedTriangles', 'vertices', 'refinementLevels', 'chordSplits', 'triangulation', 'minJacobianRatio', 'localOrigin']);
+  const known = new Set(['path', 'degree', 'rulePoints', 'estimator', 'stopped', 'baseTriangles', 'triangles', 'curvedTriangles', 'vertices', 'refinementLevels', 'chordSplits', 'triangulation', 'minJacobianRatio', 'localOrigin']);
   if (m.chordSplits) items.push(['chord splits', String(m.chordSplits)]);
   // fields added to MethodInfo later (a tolerance, a stop reason) appear without changes here
   for (const [k, v] of Object.entries(m)) if (!known.has(k)) items.push([k, typeof v === 'object' ? JSON.stringify(v) : String(v)]);
@@ -155,7 +156,7 @@ function massBlock(p: ReportPart): string {
   const layers = m.layers.map((l) => `<li>${escapeHtml(l.name)}: thickness ${escapeHtml(l.thickness)} ${escapeHtml(m.units)}, density ${escapeHtml(densityText(l.densityFrom))}, underside at z = ${formatNumber(l.z0)} ${escapeHtml(m.units)}</li>`).join('');
   return `<ul data-role="materials">${layers}</ul>\n${quantityTable(m.quantities as Record<string, Quantity>, keys, m.units, 'mass')}` +
     `<p>Mass method: Dunavant degree ${m.method.degree}, ${m.method.triangles} triangles, ${escapeHtml(m.method.estimator)}; ` +
-    `${m.method.tolerance === null ? 'no tolerance requested' : `tolerance ${m.method.tolerance}`}, stop: ${escapeHtml(m.method.stopped)}.</p>`;
+    `${m.method.tolerance === null ? 'no tolerance requested' : `tolerance ${m.method.tolerance}`}, stop: ${escapeHtml(stopText(m.method))}.</p>`;
 }
 
 async function partSection(p: ReportPart, index: number): Promise<string> {

@@ -8,7 +8,8 @@
  * "units" (mass: kg | g | lb; weight: N; centres: the part's length unit; moments: kg·m² | lb·in² | …).
  */
 import type { ExpressionResult, MassResult } from '../analysis/plate.js';
-import { stopText } from '../analysis/plate.js';
+import { isCap } from '../quadrature/stop.js';
+import { stopText } from './stopText.js';
 import { GEOMETRY_CAUTION, MASS_CAUTION } from './cautions.js';
 import { type MassMomentUnit, type MassUnit, massFromKg, massMomentFromSI } from '../model/massUnits.js';
 import { MASS_QUANTITIES, type MassKey } from '../properties/mass.js';
@@ -77,6 +78,11 @@ export function massJson(r: MassResult, u: MassUnits): Record<string, unknown> {
   };
 }
 
+/** The result's warnings, and a stop at a cap in words (the result carries it as a code). */
+function warningsOf(r: ExpressionResult): string[] {
+  return isCap(r.method.stopped) ? [...r.warnings, stopText(r.method)] : r.warnings;
+}
+
 /** Plain-text result of `integrate`. `fUnit` names the unit of f when the user gave one. */
 export function integralText(r: ExpressionResult, fUnit?: string): string {
   const f = fUnit ? fUnit : '(unit of f)';
@@ -95,7 +101,7 @@ export function integralText(r: ExpressionResult, fUnit?: string): string {
     `${r.part} — f(x, y) = ${r.expression}; x, y in ${L}`, '', renderRows(rowsOut), '',
     `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on ${m.triangles} triangles (from ${m.baseTriangles}); ${stopText(m)}`,
   ];
-  for (const w of r.warnings) out.push(`warning: ${w}`);
+  for (const w of warningsOf(r)) out.push(`warning: ${w}`);
   out.push('', GEOMETRY_CAUTION);
   return out.join('\n') + '\n';
 }
@@ -110,7 +116,7 @@ export function integralJson(r: ExpressionResult, fUnit?: string): Record<string
       pointOfActionX: r.pointX, pointOfActionY: r.pointY,
     },
     method: { ...r.method },
-    warnings: r.warnings,
+    warnings: warningsOf(r),
     caution: GEOMETRY_CAUTION,
   };
 }

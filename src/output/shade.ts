@@ -4,7 +4,7 @@
  */
 import { InputError } from '../base/errors.js';
 import { compileExpression } from '../expr/index.js';
-import { type Mesh, TriangleMap, triangleCount } from '../mesh/mesh.js';
+import { type Mesh, type MeshView, TriangleMap, triangleCount } from '../mesh/mesh.js';
 import { refineUniform } from '../mesh/refine.js';
 import { M_AREA, M_XX, M_XY, M_YY, MOMENT_COUNT, integrate } from '../quadrature/integrate.js';
 
@@ -45,7 +45,7 @@ export function errorIndicator(mesh: Mesh, degree: number): TriangleValues {
  * A function of x and y (part coordinates) at each triangle's centre: the image of barycentric
  * (1/3, 1/3, 1/3) under the triangle's exact (possibly curved) map. Non-finite values are refused.
  */
-export function functionValues(mesh: Mesh, text: string, where = '--shade'): TriangleValues {
+export function functionValues(mesh: MeshView, text: string, where = '--shade'): TriangleValues {
   const f = compileExpression(text, where);
   const map = new TriangleMap();
   const [ox, oy] = mesh.origin;

@@ -26,6 +26,7 @@ function oneTriangle(apex: [number, number], a0: number, a1: number): Mesh {
     curveS0: Float64Array.from([s0]),
     curveS1: Float64Array.from([s1]),
     segments: [arc],
+    count: 1,
     level: 0,
   };
 }
