@@ -154,6 +154,11 @@ export function measureMass(name: string, units: LengthUnit, layers: ResolvedLay
   return { part: name, units, quantities: toQuantities(values, errors), layers: out, method: methodOf(runs.map((r) => r.result), opts.tolerance) };
 }
 
+/** Warnings of a user integral, as facts (src/output/words.ts words them). */
+export type IntegralWarning =
+  | { code: 'integral-indistinguishable-from-zero'; value: number; estimate: number }
+  | { code: 'integral-estimate-large'; value: number; estimate: number };
+
 export interface ExpressionResult {
   part: string;
   units: LengthUnit;
@@ -167,7 +172,7 @@ export interface ExpressionResult {
   momentX: Quantity;
   momentY: Quantity;
   method: IntegrationMethod;
-  warnings: string[];
+  warnings: IntegralWarning[];
 }
 
 /**
@@ -199,13 +204,12 @@ export function integrateExpression(input: Part, text: string, opts: Integration
   });
   const { values, errors } = propagateErrors(derive, r.fine, r.coarse, r.estimate, r.scale);
   const q = (k: keyof typeof values): Quantity => ({ value: values[k], error: errors[k] });
-  const warnings: string[] = [];
+  const warnings: IntegralWarning[] = [];
   const definedPoint = Math.abs(values.integral) > errors.integral && Number.isFinite(values.pointX) && Number.isFinite(values.pointY);
-  const rough = 'the integrand may be singular (a pole, division by zero) inside the part or too rough for this mesh: check it, and try --tolerance';
   if (!definedPoint) {
-    warnings.push(`∫ f dA is not distinguishable from zero within its estimate (${errors.integral.toPrecision(2)} against |${values.integral.toPrecision(6)}|): either the load balances (a pure couple) or ${rough}. No point of action is given.`);
+    warnings.push({ code: 'integral-indistinguishable-from-zero', value: values.integral, estimate: errors.integral });
   } else if (errors.integral > 1e-3 * Math.abs(values.integral)) {
-    warnings.push(`the estimate of ∫ f dA is ${(100 * errors.integral / Math.abs(values.integral)).toPrecision(2)}% of its value: ${rough}.`);
+    warnings.push({ code: 'integral-estimate-large', value: values.integral, estimate: errors.integral });
   }
   const method = methodOf([r], opts.tolerance);
   // a cap (method.stopped) is a fact of the method; the writers in src/output say it in words

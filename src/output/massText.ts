@@ -14,7 +14,7 @@ import { GEOMETRY_CAUTION, MASS_CAUTION } from './cautions.js';
 import { type MassMomentUnit, type MassUnit, massFromKg, massMomentFromSI } from '../model/massUnits.js';
 import { MASS_QUANTITIES, type MassKey } from '../properties/mass.js';
 import type { Quantity } from '../properties/quantities.js';
-import { densityText } from './words.js';
+import { densityText, integralWarningText } from './words.js';
 import { type QuantityRow, formatError, formatNumber, renderRows } from './text.js';
 
 export interface MassUnits {
@@ -80,7 +80,8 @@ export function massJson(r: MassResult, u: MassUnits): Record<string, unknown> {
 
 /** The result's warnings, and a stop at a cap in words (the result carries it as a code). */
 function warningsOf(r: ExpressionResult): string[] {
-  return isCap(r.method.stopped) ? [...r.warnings, stopText(r.method)] : r.warnings;
+  const words = r.warnings.map(integralWarningText);
+  return isCap(r.method.stopped) ? [...words, stopText(r.method)] : words;
 }
 
 /** Plain-text result of `integrate`. `fUnit` names the unit of f when the user gave one. */

@@ -3,6 +3,7 @@
  * The library reports codes with parameters; this is the one place that turns them into English.
  */
 import type { AnalysisWarning } from '../analysis/analyze.js';
+import type { IntegralWarning } from '../analysis/plate.js';
 import type { DensityOrigin, UnitSource } from '../model/plate.js';
 import { formatNumber } from './text.js';
 
@@ -44,5 +45,16 @@ export function unitSourceText(s: UnitSource): string {
     case 'file': return 'stated by the file';
     case 'option': return 'chosen with --units';
     case 'assumed': return 'ASSUMED (the file states none)';
+  }
+}
+
+const ROUGH = 'the integrand may be singular (a pole, division by zero) inside the part or too rough for this mesh: check it, and try --tolerance';
+
+export function integralWarningText(w: IntegralWarning): string {
+  switch (w.code) {
+    case 'integral-indistinguishable-from-zero':
+      return `∫ f dA is not distinguishable from zero within its estimate (${w.estimate.toPrecision(2)} against |${w.value.toPrecision(6)}|): either the load balances (a pure couple) or ${ROUGH}. No point of action is given.`;
+    case 'integral-estimate-large':
+      return `the estimate of ∫ f dA is ${(100 * w.estimate / Math.abs(w.value)).toPrecision(2)}% of its value: ${ROUGH}.`;
   }
 }
