@@ -552,10 +552,10 @@ type NsScope = ReadonlyMap<string, string>;
 
 function nsScope(el: XmlElement, parent: NsScope): NsScope {
   let out: Map<string, string> | undefined;
-  for (const [k, v] of Object.entries(el.attrs)) {
-    if (k === 'xmlns' || k.startsWith('xmlns:')) {
+  for (const k in el.attrs) {
+    if (k.charCodeAt(0) === 120 /* x */ && (k === 'xmlns' || k.startsWith('xmlns:'))) {
       out ??= new Map(parent);
-      out.set(k === 'xmlns' ? '' : k.slice(6), v);
+      out.set(k === 'xmlns' ? '' : k.slice(6), el.attrs[k]);
     }
   }
   return out ?? parent;
@@ -570,11 +570,11 @@ function resolveName(name: string, scope: NsScope): { ns: string | undefined; lo
 
 /** An attribute in a namespace (by its bound prefix), e.g. inkscape:label. */
 function nsAttr(el: XmlElement, scope: NsScope, ns: string, local: string): string | undefined {
-  for (const [k, v] of Object.entries(el.attrs)) {
+  for (const k in el.attrs) {
     const c = k.indexOf(':');
-    if (c < 0 || k.slice(c + 1) !== local) continue;
+    if (c < 0 || k.length - c - 1 !== local.length || !k.endsWith(local)) continue;
     const prefix = k.slice(0, c);
-    if (prefix !== 'xmlns' && scope.get(prefix) === ns) return v;
+    if (prefix !== 'xmlns' && scope.get(prefix) === ns) return el.attrs[k];
   }
   return undefined;
 }
@@ -771,7 +771,7 @@ export function readSvgDrawing(text: string, opts: SvgDrawingOptions = {}): Draw
     const st = [root];
     while (st.length > 0) {
       const el = st.pop()!;
-      if (nsAttr(el, scopes.get(el) ?? rootScope, INKSCAPE_NS, 'groupmode') === 'layer') return true;
+      if ((el.name === 'g' || el.name.endsWith(':g')) && nsAttr(el, scopes.get(el) ?? rootScope, INKSCAPE_NS, 'groupmode') === 'layer') return true;
       for (const c of el.children) st.push(c);
     }
     return false;
@@ -779,7 +779,12 @@ export function readSvgDrawing(text: string, opts: SvgDrawingOptions = {}): Draw
 
   const computeCss = (el: XmlElement, parent: Computed, where: string): { css: Computed; cssTransform?: string } => {
     const pres: Computed = {};
-    for (const p of PRESENTATION) if (el.attrs[p] !== undefined) pres[p] = el.attrs[p];
+    let any = false;
+    for (const p of PRESENTATION) if (el.attrs[p] !== undefined) { pres[p] = el.attrs[p]; any = true; }
+    if (!any && sheet.empty && el.attrs.style === undefined) {
+      // nothing declared here: the inherited properties pass through, the others take their initial value
+      return { css: parent.visibility === undefined && parent.stroke === undefined && parent.fill === undefined ? {} : { visibility: parent.visibility, stroke: parent.stroke, fill: parent.fill } };
+    }
     const css = cascade(nodes.get(el), sheet, pres, el.attrs.style, parent, where);
     return { css, cssTransform: css.transform };
   };
