@@ -12,10 +12,38 @@
  *
  * The choice of parser and selector engine, with figures, is recorded in docs/css-parser-decision.md.
  */
-import * as csstree from 'css-tree';
-import { compile, type Options as SelectOptions } from 'css-select';
-import { parse as parseSelector, type Selector } from 'css-what';
+import { createRequire } from 'node:module';
+import type * as CssTreeModule from 'css-tree';
+import type * as CssSelectModule from 'css-select';
+import type { Options as SelectOptions } from 'css-select';
+import type * as CssWhatModule from 'css-what';
+import type { Selector } from 'css-what';
 import { InputError } from '../base/errors.js';
+
+// The CSS libraries are loaded on first use (about 0.2 s), so that drawings without any CSS, and every command
+// that reads no SVG, do not pay for them at start-up. css-tree ships a CommonJS build; css-select and css-what
+// are ES modules, loaded by require() as Node ≥ 20.19 allows (css-select 7 requires that Node anyway).
+const load = createRequire(import.meta.url);
+let treeModule: typeof CssTreeModule | undefined;
+let selectModule: typeof CssSelectModule | undefined;
+let whatModule: typeof CssWhatModule | undefined;
+const csstreeLib = () => (treeModule ??= load('css-tree') as typeof CssTreeModule);
+const compile: typeof CssSelectModule.compile = (...a) => (selectModule ??= load('css-select') as typeof CssSelectModule).compile(...a);
+const parseSelector: typeof CssWhatModule.parse = (...a) => (whatModule ??= load('css-what') as typeof CssWhatModule).parse(...a);
+/** The css-tree functions used here, resolved lazily. */
+const csstree = {
+  parse: (...a: Parameters<typeof CssTreeModule.parse>) => csstreeLib().parse(...a),
+  walk: (...a: Parameters<typeof CssTreeModule.walk>) => csstreeLib().walk(...a),
+  generate: (...a: Parameters<typeof CssTreeModule.generate>) => csstreeLib().generate(...a),
+};
+// eslint-disable-next-line @typescript-eslint/no-namespace
+declare namespace csstree {
+  type CssNode = CssTreeModule.CssNode;
+  type Declaration = CssTreeModule.Declaration;
+  type Rule = CssTreeModule.Rule;
+  type Atrule = CssTreeModule.Atrule;
+  type Value = CssTreeModule.Value;
+}
 import type { XmlElement } from './xml.js';
 
 /** Properties the cascade resolves. */

@@ -425,7 +425,13 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
   for (const k of groupKeys) { const g = byGroup.get(k)!; regions.push(...solve(g.cut, g.mark)); }
 
   if (regions.length === 0) {
-    throw new InputError(drawing.format === 'svg' ? 'svg' : drawing.label, `expected at least one closed contour to cut, found none (${cut.length === 0 && mark.length > 0 ? `${mark.length} marking contour(s)` : 'no drawn contours'}${Object.keys(ignored).length > 0 ? `; ignored: ${Object.entries(ignored).map(([k, v]) => `${k} ${v}`).join(', ')}` : ''})`);
+    const open = mark.find((it) => !it.c.closed);
+    if (open) {
+      const [sx, sy] = segmentStart(open.c.segments[0]);
+      const [ex, ey] = segmentEnd(open.c.segments[open.c.segments.length - 1]);
+      throw new InputError(placeOf(open.c), `open contour: it ends at (${fmt(ex)}, ${fmt(ey)}), not at its start (${fmt(sx)}, ${fmt(sy)}), and the drawing has no closed contour to cut; an open contour is a marking line: close the outline (end a path with Z) to cut it`);
+    }
+    throw new InputError(drawing.format === 'svg' ? 'svg' : drawing.label, `expected at least one closed contour to cut, found none (${mark.length > 0 ? `${mark.length} marking contour(s)` : 'no drawn contours'}${Object.keys(ignored).length > 0 ? `; ignored: ${Object.entries(ignored).map(([k, v]) => `${k} ${v}`).join(', ')}` : ''})`);
   }
 
   // parts and names

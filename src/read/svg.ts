@@ -1,6 +1,16 @@
 /**
- * SVG reader: every closed contour in the drawing is a cut line; nesting decides what is material.
- * A contour inside another is a cut-out, a contour inside a cut-out is a new part.
+ * SVG reader: reads a drawing into a `Drawing` (src/read/drawing.ts) and decides nothing about roles or
+ * parts; the shared interpretation (src/read/interpret.ts) does. Every contour keeps its layer (an Inkscape
+ * layer group, or a top-level <g> with a label or a non-generated id), name (<title>, label, non-generated
+ * id), colour (stroke, else fill) and visibility: `display` and `visibility` from attributes, `style` and
+ * `<style>` sheets (src/read/css.ts); hidden contours are kept with `hidden` set, never cut. CSS `transform`
+ * (and `transform-origin`) in a style wins over the attribute. <use> of elements and <symbol>s is expanded
+ * (x/y, viewBox, cycles and depth > 32 refused), nested <svg> viewports mapped, percentages taken of the
+ * viewport (SVG 2, 8.9). Elements outside the SVG namespace are ignored and counted; text and images counted.
+ * Open subpaths, lines and open polylines are open contours (marking candidates).
+ * Units: width/height in mm, cm, in, pt, pc or Q over the viewBox → source 'file'; px or no unit → CSS px,
+ * source 'assumed'; the `units` option → 'option', refused when it contradicts a unit the file states unless
+ * `unitsOverride` is set.
  *
  * Geometry follows SVG 1.1 (W3C Recommendation, 2nd edition, 2011): the path grammar of chapter 8
  * (M L H V C S Q T A Z, absolute and relative, implicit repeats), elliptical arcs converted from endpoint to
