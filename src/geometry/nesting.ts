@@ -1,10 +1,16 @@
 /**
  * Nesting of closed contours: which loop lies inside which, decided by exact point-in-loop tests on the
- * curves themselves (no chords). Used by the drawing readers, where every closed contour is a cut line:
- * a contour inside another is a cut-out, a contour inside a cut-out is a new piece of material.
+ * curves themselves (no chords). Used by the drawing interpretation, where every closed cut contour is a cut
+ * line: a contour inside another is a cut-out, a contour inside a cut-out is a new piece of material.
  *
- * The loops are assumed not to cross each other (crossing loops are reported by the shared validation).
+ * The loops are assumed not to cross or touch each other (the interpretation refuses or unites crossing
+ * contours first), so one point on a loop decides whether it lies inside another.
+ *
+ * No quadratic step: candidate pairs come from the box grid (src/geometry/boxgrid.ts; only pairs whose boxes
+ * overlap), and each loop is prepared once (y-monotone pieces, and for long loops a band index over y so that
+ * a point test looks only at the pieces of its band); prepared loops are cached per Loop object.
  */
+import { overlappingPairs } from './boxgrid.js';
 import type { Loop, Region } from './part.js';
 import { loopBox, loopSignedArea } from './part.js';
 import { type Box, type Out2, type Segment, ops, segmentEnd, segmentPoint, segmentStart } from './segments.js';
@@ -58,12 +64,28 @@ function crossingX(s: Segment, ta: number, tb: number, y: number): number {
   }
 }
 
+interface Piece { s: Segment; ta: number; tb: number; ya: number; yb: number; xMax: number }
+
 interface Prepared {
   loop: Loop;
   box: Box;
   area: number;
   /** y-monotone pieces: segment, parameter range and end heights. */
-  pieces: { s: Segment; ta: number; tb: number; ya: number; yb: number; xMax: number }[];
+  pieces: Piece[];
+  /** For long loops: pieces by horizontal band (band k covers y0 + k·h … y0 + (k+1)·h). */
+  bands?: { y0: number; h: number; items: Piece[][] };
+}
+
+/** Loops with more pieces than this get a band index. */
+const BAND_THRESHOLD = 32;
+
+const cache = new WeakMap<Loop, Prepared>();
+
+/** The prepared form of a loop, computed once per Loop object. */
+function prepared(loop: Loop): Prepared {
+  let p = cache.get(loop);
+  if (!p) { p = prepare(loop); cache.set(loop, p); }
+  return p;
 }
 
 function prepare(loop: Loop): Prepared {
@@ -79,14 +101,28 @@ function prepare(loop: Loop): Prepared {
       pieces.push({ s, ta, tb, ya, yb, xMax });
     }
   }
-  return { loop, box: loopBox(loop), area: Math.abs(loopSignedArea(loop)), pieces };
+  const box = loopBox(loop);
+  const out: Prepared = { loop, box, area: Math.abs(loopSignedArea(loop)), pieces };
+  if (pieces.length > BAND_THRESHOLD && box[3] > box[1]) {
+    const nb = Math.min(65536, Math.ceil(pieces.length / 4));
+    const h = (box[3] - box[1]) / nb;
+    const items: Piece[][] = Array.from({ length: nb }, () => []);
+    const band = (y: number) => Math.min(nb - 1, Math.max(0, Math.floor((y - box[1]) / h)));
+    for (const q of pieces) {
+      const a = band(Math.min(q.ya, q.yb)), b = band(Math.max(q.ya, q.yb));
+      for (let k = a; k <= b; k++) items[k].push(q);
+    }
+    out.bands = { y0: box[1], h, items };
+  }
+  return out;
 }
 
 function insidePrepared(x: number, y: number, P: Prepared): boolean {
   const [x0, y0, x1, y1] = P.box;
   if (x < x0 || x > x1 || y < y0 || y > y1) return false;
   let inside = false;
-  for (const q of P.pieces) {
+  const list = P.bands ? P.bands.items[Math.min(P.bands.items.length - 1, Math.max(0, Math.floor((y - P.bands.y0) / P.bands.h)))] : P.pieces;
+  for (const q of list) {
     // half-open rule: a piece counts when y lies in [min, max) of its end heights
     const crosses = (q.ya <= y && y < q.yb) || (q.yb <= y && y < q.ya);
     if (!crosses || q.xMax < x) continue;
@@ -97,58 +133,97 @@ function insidePrepared(x: number, y: number, P: Prepared): boolean {
 
 /** Is the point strictly inside the loop (even–odd rule, exact curve crossings)? Points on the boundary give either answer. */
 export function pointInLoop(x: number, y: number, loop: Loop): boolean {
-  return insidePrepared(x, y, prepare(loop));
+  return insidePrepared(x, y, prepared(loop));
 }
 
-/** Test points on a loop: midpoints of up to three of its segments. */
-function samplePoints(loop: Loop): [number, number][] {
-  const n = loop.segments.length;
-  const idx = n <= 3 ? [...Array(n).keys()] : [0, Math.floor(n / 3), Math.floor((2 * n) / 3)];
-  return idx.map((i) => segmentPoint(loop.segments[i], 0.5));
+/** A point on the loop (the middle of its first segment): the probe for containment of non-touching loops. */
+export function loopProbe(loop: Loop): [number, number] {
+  return segmentPoint(loop.segments[0], 0.5);
+}
+
+export interface Nesting {
+  /** Index of the smallest loop around each loop, or −1. */
+  parent: Int32Array;
+  /** Number of loops around each loop. */
+  depth: Int32Array;
 }
 
 /**
- * Group closed, mutually non-crossing loops into regions and parts. A loop's depth is the number of loops
- * around it: depth 0, 2, 4... bound material (a region's outer loop), depth 1, 3... are holes of the loop
- * directly around them. Each region is returned as its own group (one piece of material = one part),
- * in the order of the outer loops in the input. Orientation is left as given (see normalizePart).
+ * Which loop lies inside which, for closed loops that do not cross or touch. Pairs `exclude(i, j)` (i < j)
+ * are never taken as containing one another (crossing partners under union, say). Near O(n + pairs of
+ * overlapping boxes).
+ */
+export function nestContours(loops: readonly Loop[], exclude?: (i: number, j: number) => boolean): Nesting {
+  const n = loops.length;
+  const P = loops.map(prepared);
+  const boxes = new Float64Array(4 * n);
+  P.forEach((p, i) => boxes.set(p.box, 4 * i));
+  const probes = loops.map(loopProbe);
+  const parent = new Int32Array(n).fill(-1);
+  const depth = new Int32Array(n);
+  const inside = (i: number, j: number): boolean => {
+    // is loop i inside loop j?
+    const bi = P[i].box, bj = P[j].box;
+    if (bi[0] < bj[0] || bi[1] < bj[1] || bi[2] > bj[2] || bi[3] > bj[3]) return false;
+    if (P[j].area < P[i].area) return false;
+    return insidePrepared(probes[i][0], probes[i][1], P[j]);
+  };
+  const found = (i: number, j: number) => {
+    depth[i]++;
+    if (parent[i] < 0 || P[j].area < P[parent[i]].area) parent[i] = j;
+  };
+  overlappingPairs(boxes, (i, j) => {
+    if (exclude?.(i, j)) return;
+    if (inside(i, j)) found(i, j);
+    else if (inside(j, i)) found(j, i);
+  });
+  return { parent, depth };
+}
+
+/**
+ * For each point, the innermost loop containing it (−1 for none), given the loops' nesting. Points on a
+ * loop give either answer.
+ */
+export function locatePoints(points: readonly (readonly [number, number])[], loops: readonly Loop[], nesting: Nesting): Int32Array {
+  const n = loops.length, m = points.length;
+  const P = loops.map(prepared);
+  const boxes = new Float64Array(4 * (n + m));
+  P.forEach((p, i) => boxes.set(p.box, 4 * i));
+  points.forEach((q, k) => boxes.set([q[0], q[1], q[0], q[1]], 4 * (n + k)));
+  const out = new Int32Array(m).fill(-1);
+  overlappingPairs(boxes, (i, j) => {
+    if (i >= n || j < n) return; // loop–point pairs only (i < j, loops come first)
+    const k = j - n;
+    const q = points[k];
+    if (!insidePrepared(q[0], q[1], P[i])) return;
+    if (out[k] < 0 || nesting.depth[i] > nesting.depth[out[k]]) out[k] = i;
+  });
+  return out;
+}
+
+/**
+ * Group closed, mutually non-crossing loops into regions. A loop's depth is the number of loops around it:
+ * depth 0, 2, 4... bound material (a region's outer loop), depth 1, 3... are holes of the loop directly
+ * around them. Each region is returned as its own group, in the order of the outer loops in the input.
+ * Orientation is left as given (see normalizePart).
  */
 export function nestLoops(loops: Loop[]): Region[][] {
-  const P = loops.map(prepare);
-  const n = P.length;
-  const parent = new Array<number>(n).fill(-1);
-  const depth = new Array<number>(n).fill(0);
-  const samples = loops.map(samplePoints);
-  for (let i = 0; i < n; i++) {
-    let best = -1;
-    for (let j = 0; j < n; j++) {
-      if (i === j || P[j].area < P[i].area || (P[j].area === P[i].area && j > i)) continue;
-      const bj = P[j].box, bi = P[i].box;
-      if (bi[0] < bj[0] || bi[1] < bj[1] || bi[2] > bj[2] || bi[3] > bj[3]) continue;
-      let votes = 0;
-      for (const [x, y] of samples[i]) if (insidePrepared(x, y, P[j])) votes++;
-      if (2 * votes > samples[i].length) {
-        depth[i]++;
-        if (best < 0 || P[j].area < P[best].area) best = j;
-      }
-    }
-    parent[i] = best;
-  }
+  const { parent, depth } = nestContours(loops);
   const regionOf = new Map<number, Region>();
   const groups: Region[][] = [];
-  for (let i = 0; i < n; i++) {
+  loops.forEach((l, i) => {
     if (depth[i] % 2 === 0) {
-      const r: Region = { outer: loops[i], holes: [] };
+      const r: Region = { outer: l, holes: [] };
       regionOf.set(i, r);
       groups.push([r]);
     }
-  }
-  for (let i = 0; i < n; i++) {
+  });
+  loops.forEach((l, i) => {
     if (depth[i] % 2 === 1) {
       const r = regionOf.get(parent[i]);
-      if (r) r.holes.push(loops[i]);
-      else groups.push([{ outer: loops[i], holes: [] }]); // only when loops cross; validation reports that
+      if (r) r.holes.push(l);
+      else groups.push([{ outer: l, holes: [] }]);
     }
-  }
+  });
   return groups;
 }

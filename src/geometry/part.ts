@@ -22,6 +22,10 @@ export interface Part {
   name: string;
   units: LengthUnit;
   regions: Region[];
+  /** Drawings: where the length unit came from (the file, the user's option, or assumed: CSS px). */
+  unitSource?: 'file' | 'option' | 'assumed';
+  /** Drawings: total length of marking lines (etching, scribing) on this part, in `units`. */
+  markingLength?: number;
 }
 
 /** Signed area enclosed by a loop (positive when counter-clockwise), exact for lines and arcs. */

@@ -1,12 +1,13 @@
 /**
  * Input format detection: by file extension first, then by content.
+ * `.dxf` is DXF (ASCII; binary DXF is recognised and refused by the reader);
  * `.json` (including `.platewise.json`) is the project's part format unless its top-level "type" is a
  * GeoJSON type (RFC 7946, section 1.4); `.geojson` is GeoJSON; `.svg` is SVG; `.wkt` is well-known text.
  */
 import { InputError } from '../base/errors.js';
 import { GEOJSON_TYPES } from './geojson.js';
 
-export type InputFormat = 'part-json' | 'svg' | 'geojson' | 'wkt';
+export type InputFormat = 'part-json' | 'svg' | 'dxf' | 'geojson' | 'wkt';
 
 function jsonKind(text: string): 'part-json' | 'geojson' {
   // look only at the top-level "type"; a parse failure is left to the reader, which reports it properly
@@ -27,10 +28,13 @@ export function detectFormat(fileName: string | undefined, text: string): InputF
   if (name.endsWith('.geojson')) return 'geojson';
   if (name.endsWith('.svg')) return 'svg';
   if (name.endsWith('.wkt')) return 'wkt';
+  if (name.endsWith('.dxf')) return 'dxf';
   if (name.endsWith('.json')) return jsonKind(text);
   const head = text.replace(/^\uFEFF/, '').trimStart();
   if (head.startsWith('<')) return 'svg';
   if (head.startsWith('{')) return jsonKind(text);
+  // ASCII DXF opens with group code 0 and SECTION (or a 999 comment); binary DXF with its sentinel line
+  if (/^(0\s*\r?\n\s*SECTION|999\s*\r?\n)/.test(head) || head.startsWith('AutoCAD Binary DXF')) return 'dxf';
   if (/^(SRID\s*=\s*\d+\s*;\s*)?(MULTI)?POLYGON\b/i.test(head)) return 'wkt';
-  throw new InputError(fileName ?? 'input', 'cannot tell the format; expected part JSON or GeoJSON ({...}), SVG (<svg ...>) or WKT (POLYGON / MULTIPOLYGON), or a file name ending in .json, .geojson, .svg or .wkt');
+  throw new InputError(fileName ?? 'input', 'cannot tell the format; expected part JSON or GeoJSON ({...}), SVG (<svg ...>), DXF (0 SECTION …) or WKT (POLYGON / MULTIPOLYGON), or a file name ending in .json, .geojson, .svg, .dxf or .wkt');
 }

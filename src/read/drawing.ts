@@ -36,6 +36,14 @@ export interface DrawnContour {
   /** A name the drawing gives this contour or its group (SVG <title>, group label, DXF block name). */
   name?: string;
   hidden?: HiddenReason;
+  /**
+   * Formats that state which ring is an outline and which a hole (GeoJSON, WKT): the polygon this ring
+   * belongs to (a key unique in the drawing) and its index there (0 the outline, 1… the holes). The
+   * interpretation still nests by geometry and refuses a hole that does not nest in its own outline.
+   */
+  ring?: { polygon: string; index: number };
+  /** Formats that group polygons (GeoJSON features): a key shared by the contours of one group. */
+  group?: string;
 }
 
 /** A gap between loose ends that the joining step closed, or could not close. */

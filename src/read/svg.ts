@@ -1,6 +1,16 @@
 /**
- * SVG reader: every closed contour in the drawing is a cut line; nesting decides what is material.
- * A contour inside another is a cut-out, a contour inside a cut-out is a new part.
+ * SVG reader: reads a drawing into a `Drawing` (src/read/drawing.ts) and decides nothing about roles or
+ * parts; the shared interpretation (src/read/interpret.ts) does. Every contour keeps its layer (an Inkscape
+ * layer group, or a top-level <g> with a label or a non-generated id), name (<title>, label, non-generated
+ * id), colour (stroke, else fill) and visibility: `display` and `visibility` from attributes, `style` and
+ * `<style>` sheets (src/read/css.ts); hidden contours are kept with `hidden` set, never cut. CSS `transform`
+ * (and `transform-origin`) in a style wins over the attribute. <use> of elements and <symbol>s is expanded
+ * (x/y, viewBox, cycles and depth > 32 refused), nested <svg> viewports mapped, percentages taken of the
+ * viewport (SVG 2, 8.9). Elements outside the SVG namespace are ignored and counted; text and images counted.
+ * Open subpaths, lines and open polylines are open contours (marking candidates).
+ * Units: width/height in mm, cm, in, pt, pc or Q over the viewBox → source 'file'; px or no unit → CSS px,
+ * source 'assumed'; the `units` option → 'option', refused when it contradicts a unit the file states unless
+ * `unitsOverride` is set.
  *
  * Geometry follows SVG 1.1 (W3C Recommendation, 2nd edition, 2011): the path grammar of chapter 8
  * (M L H V C S Q T A Z, absolute and relative, implicit repeats), elliptical arcs converted from endpoint to
@@ -11,19 +21,14 @@
  * the bottom-left corner of the viewBox.
  */
 import { InputError } from '../base/errors.js';
-import { nestLoops } from '../geometry/nesting.js';
-import { type Loop, type Part, normalizePart } from '../geometry/part.js';
+import type { Part } from '../geometry/part.js';
 import { type Segment, segmentEnd, segmentStart } from '../geometry/segments.js';
 import { type Affine, IDENTITY, composeAffine, transformSegment } from '../geometry/transform.js';
 import type { LengthUnit } from '../base/units.js';
+import { type CascadedProperty, type Computed, type CssNode, StyleSheet, cascade, cssTransform, cssTransformOrigin } from './css.js';
+import type { Drawing, DrawingUnits, DrawnContour, HiddenReason } from './drawing.js';
+import { type InterpretOptions, interpretDrawing } from './interpret.js';
 import { type XmlElement, XML_MAX_CHARS, XML_MAX_DEPTH, parseXml } from './xml.js';
-
-export interface SvgOptions {
-  /** Take the drawing's numbers (user units) as lengths in this unit, ignoring width/height; the part uses it. */
-  units?: LengthUnit;
-  /** Used in part names and messages (e.g. the file name). */
-  fileLabel?: string;
-}
 
 /** CSS absolute units in CSS pixels (CSS Values and Units Level 3: 1in = 96px = 2.54cm, 1pt = 1/72in, 1pc = 12pt, 1Q = 1/40cm). */
 export const CSS_PX_PER: Readonly<Record<string, number>> = {
@@ -38,19 +43,17 @@ export const CSS_PX_PER: Readonly<Record<string, number>> = {
 
 const MM_PER_PX = 25.4 / 96;
 
-/** Elements whose content is never drawn directly. */
-const SKIPPED = new Set([
-  'defs', 'clipPath', 'mask', 'symbol', 'pattern', 'marker', 'linearGradient', 'radialGradient', 'filter',
-  'metadata', 'title', 'desc', 'text', 'style', 'script', 'foreignObject', 'image',
-]);
 
 // ---------------------------------------------------------------------------------------------
 // numbers, lengths, transforms
 
 const NUMBER_RE = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?/;
 
-/** A length attribute in user units (px); absolute units accepted, % and font-relative units rejected. */
-function parseLength(v: string, where: string, what: string): number {
+/**
+ * A length attribute in user units (px); absolute units accepted, font-relative units rejected; a percentage
+ * only where `percentOf` (the reference length: viewport width, height or normalised diagonal) is given.
+ */
+function parseLength(v: string, where: string, what: string, percentOf?: number): number {
   const s = v.trim();
   const m = NUMBER_RE.exec(s);
   if (!m) throw new InputError(where, `${what}: expected a length such as 12, 12px or 3mm, got "${v}"`);
@@ -58,6 +61,10 @@ function parseLength(v: string, where: string, what: string): number {
   if (!Number.isFinite(num)) throw new InputError(where, `${what}: number ${m[0]} is out of range`);
   const unit = s.slice(m[0].length).trim();
   if (unit === '') return num;
+  if (unit === '%') {
+    if (percentOf === undefined) throw new InputError(where, `${what}: a percentage needs a viewport size (viewBox or width and height on the enclosing <svg>), and there is none`);
+    return (num / 100) * percentOf;
+  }
   const f = CSS_PX_PER[unit];
   if (f === undefined) {
     throw new InputError(where, `${what}: unit "${unit}" is not accepted; expected none or one of px, mm, cm, in, pt, pc, Q`);
@@ -144,6 +151,7 @@ const line = (x0: number, y0: number, x1: number, y1: number): Segment => ({ kin
 interface Contour {
   segments: Segment[];
   where: string;
+  closed: boolean;
 }
 
 /**
@@ -232,7 +240,6 @@ export function parsePathData(d: string, label: string): Contour[] {
   let cmdIndex = 0;
   let cur: Segment[] = [];
   let curWhere = label;
-  let subStartCmd = 0, subStartChar = 0;
   let cx = 0, cy = 0, sx = 0, sy = 0;
   let lastCmd = '';
   let lastCtrlX = 0, lastCtrlY = 0; // second control point of the previous C/S, or the control of Q/T
@@ -259,14 +266,9 @@ export function parsePathData(d: string, label: string): Contour[] {
   };
   const finishSubpath = () => {
     if (cur.length === 0) return;
-    if (!closeContour(cur, scale)) {
-      const [ex, ey] = segmentEnd(cur[cur.length - 1]);
-      throw new InputError(
-        `${label} command ${subStartCmd} (character ${subStartChar})`,
-        `open contour: the subpath ends at (${ex}, ${ey}) (command ${cmdIndex}), not at its start (${sx}, ${sy}); expected a closed contour (end it with Z)`,
-      );
-    }
-    contours.push({ segments: cur, where: curWhere });
+    // an open subpath is kept as an open contour (a marking line); the interpretation decides its role
+    const closed = closeContour(cur, scale);
+    contours.push({ segments: cur, where: curWhere, closed });
     cur = [];
   };
   const addSeg = (s: Segment) => {
@@ -309,7 +311,7 @@ export function parsePathData(d: string, label: string): Contour[] {
           const x = readNumber() + ox, y = readNumber() + oy;
           if (first) {
             finishSubpath();
-            sx = x; sy = y; subStartCmd = cmdIndex; subStartChar = i;
+            sx = x; sy = y;
             curWhere = `${label} command ${cmdIndex}`;
             cx = x; cy = y;
             scale = Math.max(scale, Math.abs(x), Math.abs(y));
@@ -391,13 +393,25 @@ export function parsePathData(d: string, label: string): Contour[] {
 // ---------------------------------------------------------------------------------------------
 // basic shapes
 
+/** The current viewport in user units (for percentages, SVG 2 section 8.9: x-ish of the width, y-ish of the height, others of the normalised diagonal). */
+interface Viewport { w?: number; h?: number }
+let currentViewport: Viewport = {};
+const X_ATTRS = new Set(['x', 'cx', 'width', 'rx', 'x1', 'x2']);
+const Y_ATTRS = new Set(['y', 'cy', 'height', 'ry', 'y1', 'y2']);
+
+function percentRef(name: string, vp: Viewport): number | undefined {
+  if (X_ATTRS.has(name)) return vp.w;
+  if (Y_ATTRS.has(name)) return vp.h;
+  return vp.w !== undefined && vp.h !== undefined ? Math.hypot(vp.w, vp.h) / Math.SQRT2 : undefined;
+}
+
 function attrNum(el: XmlElement, name: string, where: string, dflt?: number): number {
   const v = el.attrs[name];
   if (v === undefined || v.trim() === '' || v.trim() === 'auto') {
     if (dflt === undefined) throw new InputError(where, `expected attribute ${name}`);
     return dflt;
   }
-  return parseLength(v, where, name);
+  return parseLength(v, where, name, percentRef(name, currentViewport));
 }
 
 function pointsList(el: XmlElement, where: string): [number, number][] {
@@ -420,7 +434,7 @@ function polyContour(pts: [number, number][], where: string): Contour {
     const a = pts[k], b = pts[(k + 1) % pts.length];
     segs.push(line(a[0], a[1], b[0], b[1]));
   }
-  return { segments: segs, where };
+  return { segments: segs, where, closed: true };
 }
 
 function shapeContours(el: XmlElement, tag: string, where: string): Contour[] {
@@ -463,13 +477,13 @@ function shapeContours(el: XmlElement, tag: string, where: string): Contour[] {
       const [px, py] = segmentEnd(segs[segs.length - 1]);
       const [qx, qy] = segmentStart(segs[0]);
       if (Math.hypot(qx - px, qy - py) > 1e-12 * Math.max(w, h)) segs.push(line(px, py, qx, qy));
-      return [{ segments: segs, where }];
+      return [{ segments: segs, where, closed: true }];
     }
     case 'circle': {
       const ccx = attrNum(el, 'cx', where, 0), ccy = attrNum(el, 'cy', where, 0), r = attrNum(el, 'r', where, 0);
       if (r < 0) throw new InputError(where, `expected a non-negative r, got ${r}`);
       if (r === 0) return [];
-      return [{ where, segments: [
+      return [{ where, closed: true, segments: [
         { kind: 'arc', cx: ccx, cy: ccy, r, a0: 0, a1: Math.PI },
         { kind: 'arc', cx: ccx, cy: ccy, r, a0: Math.PI, a1: 2 * Math.PI },
       ] }];
@@ -483,12 +497,12 @@ function shapeContours(el: XmlElement, tag: string, where: string): Contour[] {
       if (rx < 0 || ry < 0) throw new InputError(where, `expected non-negative rx and ry, got ${rx} and ${ry}`);
       if (rx === 0 || ry === 0) return [];
       if (rx === ry) {
-        return [{ where, segments: [
+        return [{ where, closed: true, segments: [
           { kind: 'arc', cx: ccx, cy: ccy, r: rx, a0: 0, a1: Math.PI },
           { kind: 'arc', cx: ccx, cy: ccy, r: rx, a0: Math.PI, a1: 2 * Math.PI },
         ] }];
       }
-      return [{ where, segments: [
+      return [{ where, closed: true, segments: [
         { kind: 'ellipticalArc', cx: ccx, cy: ccy, rx, ry, phi: 0, t0: 0, t1: Math.PI },
         { kind: 'ellipticalArc', cx: ccx, cy: ccy, rx, ry, phi: 0, t0: Math.PI, t1: 2 * Math.PI },
       ] }];
@@ -498,13 +512,17 @@ function shapeContours(el: XmlElement, tag: string, where: string): Contour[] {
     case 'polyline': {
       const pts = pointsList(el, where);
       const a = pts[0], b = pts[pts.length - 1];
-      if (pts.length < 2 || a[0] !== b[0] || a[1] !== b[1]) {
-        throw new InputError(where, `open contour: a polyline must end at its first point (${a ? `${a[0]}, ${a[1]}` : 'none'}) to be a cut line; use a polygon or repeat the first point`);
-      }
-      return [polyContour(pts, where)];
+      if (pts.length >= 4 && a[0] === b[0] && a[1] === b[1]) return [polyContour(pts, where)];
+      if (pts.length < 2) return [];
+      const segs: Segment[] = [];
+      for (let k = 0; k + 1 < pts.length; k++) segs.push(line(pts[k][0], pts[k][1], pts[k + 1][0], pts[k + 1][1]));
+      return [{ segments: segs, where, closed: false }];
     }
-    case 'line':
-      throw new InputError(where, 'open contour: a <line> cannot bound material; expected closed shapes (path with Z, polygon, rect, circle, ellipse)');
+    case 'line': {
+      const x1 = attrNum(el, 'x1', where, 0), y1 = attrNum(el, 'y1', where, 0), x2 = attrNum(el, 'x2', where, 0), y2 = attrNum(el, 'y2', where, 0);
+      if (x1 === x2 && y1 === y2) return [];
+      return [{ segments: [line(x1, y1, x2, y2)], where, closed: false }];
+    }
     default:
       return [];
   }
@@ -513,100 +531,424 @@ function shapeContours(el: XmlElement, tag: string, where: string): Contour[] {
 // ---------------------------------------------------------------------------------------------
 // the document
 
-function localName(name: string): string | undefined {
-  if (name.startsWith('svg:')) return name.slice(4);
-  return name.includes(':') ? undefined : name;
+export const SVG_NS = 'http://www.w3.org/2000/svg';
+const INKSCAPE_NS = 'http://www.inkscape.org/namespaces/inkscape';
+const XLINK_NS = 'http://www.w3.org/1999/xlink';
+
+/** Containers never drawn directly (their content is drawn only through <use>, or never). */
+const NOT_RENDERED = new Set([
+  'defs', 'clipPath', 'mask', 'symbol', 'pattern', 'marker', 'linearGradient', 'radialGradient', 'filter',
+  'metadata', 'title', 'desc', 'style', 'script', 'view', 'cursor', 'animate', 'animateTransform', 'animateMotion', 'set',
+]);
+/** Drawn content that is not a contour, counted under its own reason in `Drawing.ignored`. */
+const IGNORED_CONTENT: Readonly<Record<string, string>> = { text: 'text', image: 'image', foreignObject: 'foreign-object' };
+
+/** Largest depth of <use> inside <use> (through symbols); deeper chains are refused. */
+export const USE_MAX_DEPTH = 32;
+
+/** Ids that drawing programs generate (`rect234`, `path12`, `g5`, `layer1`, `use3-7`): not names. */
+const GENERATED_ID = /^(?:path|rect|circle|ellipse|line|polyline|polygon|g|svg|use|symbol|text|tspan|layer|defs|image|a|clipPath|mask|group|shape|object|linearGradient|radialGradient)[-_]?\d+(?:[-_]\d+)*$/i;
+export function isGeneratedId(id: string): boolean { return GENERATED_ID.test(id); }
+
+export interface SvgDrawingOptions {
+  /** One user unit is one of this unit (instead of the size the file states, or 1 CSS px when it states none). */
+  units?: LengthUnit;
+  /** Let `units` replace a unit the file states (width/height in mm, cm, in, pt, pc or Q); without it a contradiction is refused. */
+  unitsOverride?: boolean;
+  fileLabel?: string;
 }
 
-/** Map from the root's user units to output units (y up, origin at the viewBox's bottom-left) and the output unit. */
-function viewportMap(root: XmlElement, opts: SvgOptions): { map: Affine; units: LengthUnit } {
-  const where = 'svg <svg>';
-  let vb: number[] | undefined;
-  if (root.attrs.viewBox !== undefined) {
-    vb = numberList(root.attrs.viewBox, where, 'viewBox');
-    if (vb.length !== 4) throw new InputError(`${where} viewBox`, `expected 4 numbers (min-x min-y width height), got ${vb.length}`);
-    if (!(vb[2] > 0) || !(vb[3] > 0)) throw new InputError(`${where} viewBox`, `expected a positive width and height, got ${vb[2]} and ${vb[3]}`);
-  }
-  const absLength = (name: string): number | undefined => {
-    const v = root.attrs[name];
-    if (v === undefined || v.trim() === '' || v.trim().endsWith('%') || v.trim() === 'auto') return undefined;
-    const px = parseLength(v, where, name);
-    if (!(px > 0)) throw new InputError(`${where} ${name}`, `expected a positive length, got "${v}"`);
-    return px;
-  };
-  const wPx = absLength('width'), hPx = absLength('height');
-  let kx: number, ky: number, units: LengthUnit;
-  if (opts.units) {
-    kx = ky = 1; units = opts.units;
-  } else {
-    units = 'mm';
-    kx = ky = MM_PER_PX;
-    if (vb) {
-      const sx = wPx !== undefined ? (wPx * MM_PER_PX) / vb[2] : undefined;
-      const sy = hPx !== undefined ? (hPx * MM_PER_PX) / vb[3] : undefined;
-      const par = (root.attrs.preserveAspectRatio ?? '').trim();
-      if (sx !== undefined && sy !== undefined) {
-        if (par.startsWith('none')) { kx = sx; ky = sy; } else if (par.endsWith('slice')) { kx = ky = Math.max(sx, sy); } else { kx = ky = Math.min(sx, sy); }
-      } else if (sx !== undefined) kx = ky = sx;
-      else if (sy !== undefined) kx = ky = sy;
+type NsScope = ReadonlyMap<string, string>;
+
+function nsScope(el: XmlElement, parent: NsScope): NsScope {
+  let out: Map<string, string> | undefined;
+  for (const k in el.attrs) {
+    if (k.charCodeAt(0) === 120 /* x */ && (k === 'xmlns' || k.startsWith('xmlns:'))) {
+      out ??= new Map(parent);
+      out.set(k === 'xmlns' ? '' : k.slice(6), el.attrs[k]);
     }
+  }
+  return out ?? parent;
+}
+
+/** Namespace and local name of an element. */
+function resolveName(name: string, scope: NsScope): { ns: string | undefined; local: string } {
+  const c = name.indexOf(':');
+  if (c < 0) return { ns: scope.get(''), local: name };
+  return { ns: scope.get(name.slice(0, c)), local: name.slice(c + 1) };
+}
+
+/** An attribute in a namespace (by its bound prefix), e.g. inkscape:label. */
+function nsAttr(el: XmlElement, scope: NsScope, ns: string, local: string): string | undefined {
+  for (const k in el.attrs) {
+    const c = k.indexOf(':');
+    if (c < 0 || k.length - c - 1 !== local.length || !k.endsWith(local)) continue;
+    const prefix = k.slice(0, c);
+    if (prefix !== 'xmlns' && scope.get(prefix) === ns) return el.attrs[k];
+  }
+  return undefined;
+}
+
+function titleOf(el: XmlElement, scope: NsScope): string | undefined {
+  for (const c of el.children) {
+    const { ns, local } = resolveName(c.name, nsScope(c, scope));
+    if (ns === SVG_NS && local === 'title') {
+      const t = (c.text ?? '').trim().replace(/\s+/g, ' ');
+      return t === '' ? undefined : t;
+    }
+  }
+  return undefined;
+}
+
+interface ViewBox { x: number; y: number; w: number; h: number }
+
+function viewBoxOf(el: XmlElement, where: string): ViewBox | undefined {
+  if (el.attrs.viewBox === undefined) return undefined;
+  const vb = numberList(el.attrs.viewBox, where, 'viewBox');
+  if (vb.length !== 4) throw new InputError(`${where} viewBox`, `expected 4 numbers (min-x min-y width height), got ${vb.length}`);
+  if (!(vb[2] > 0) || !(vb[3] > 0)) throw new InputError(`${where} viewBox`, `expected a positive width and height, got ${vb[2]} and ${vb[3]}`);
+  return { x: vb[0], y: vb[1], w: vb[2], h: vb[3] };
+}
+
+/** The viewBox-to-viewport transform (SVG 2, section 8.2), for a viewport at (0, 0) of size w × h. */
+function viewBoxTransform(vb: ViewBox, w: number, h: number, par: string, where: string): Affine {
+  const parts = par.trim().split(/\s+/).filter((x) => x !== '' && x !== 'defer');
+  const align = parts[0] ?? 'xMidYMid';
+  const slice = parts[1] === 'slice';
+  let sx = w / vb.w, sy = h / vb.h;
+  if (align !== 'none') {
+    const m = /^x(Min|Mid|Max)Y(Min|Mid|Max)$/.exec(align);
+    if (!m) throw new InputError(`${where} preserveAspectRatio`, `expected none or xMinYMin … xMaxYMax, got "${par}"`);
+    const k = slice ? Math.max(sx, sy) : Math.min(sx, sy);
+    sx = sy = k;
+    const fx = m[1] === 'Min' ? 0 : m[1] === 'Mid' ? 0.5 : 1, fy = m[2] === 'Min' ? 0 : m[2] === 'Mid' ? 0.5 : 1;
+    return [sx, 0, 0, sy, -vb.x * sx + fx * (w - vb.w * sx), -vb.y * sy + fy * (h - vb.h * sy)];
+  }
+  return [sx, 0, 0, sy, -vb.x * sx, -vb.y * sy];
+}
+
+const ABSOLUTE_UNITS = new Set(['mm', 'cm', 'in', 'pt', 'pc', 'Q']);
+
+/** A size attribute of the root split into number and unit ('' for none); undefined when absent, auto or a percentage. */
+function rootSize(root: XmlElement, name: string): { px: number; unit: string; text: string } | undefined {
+  const v = root.attrs[name];
+  if (v === undefined || v.trim() === '' || v.trim().endsWith('%') || v.trim() === 'auto') return undefined;
+  const where = 'svg <svg>';
+  const px = parseLength(v, where, name);
+  if (!(px > 0)) throw new InputError(`${where} ${name}`, `expected a positive length, got "${v}"`);
+  const m = NUMBER_RE.exec(v.trim());
+  return { px, unit: v.trim().slice(m ? m[0].length : 0).trim(), text: v.trim() };
+}
+
+const MM_PER: Readonly<Record<LengthUnit, number>> = { mm: 1, cm: 10, m: 1000, in: 25.4, ft: 304.8 };
+
+/**
+ * The map from the root's user units to output units (y up, origin at the bottom-left of the viewBox), the
+ * output unit and where it came from. The file states a unit when width or height carries an absolute unit
+ * (mm, cm, in, pt, pc, Q); px or no unit is CSS px, an assumption the result reports.
+ */
+function rootUnits(root: XmlElement, opts: SvgDrawingOptions): { map: Affine; units: DrawingUnits; viewport: Viewport } {
+  const where = 'svg <svg>';
+  const vb = viewBoxOf(root, where);
+  const W = rootSize(root, 'width'), H = rootSize(root, 'height');
+  const stated = [W, H].find((x) => x !== undefined && ABSOLUTE_UNITS.has(x.unit));
+  // millimetres per user unit along x and y, by the file (CSS px when it states no unit)
+  let kx = MM_PER_PX, ky = MM_PER_PX;
+  if (vb) {
+    const sx = W ? (W.px * MM_PER_PX) / vb.w : undefined;
+    const sy = H ? (H.px * MM_PER_PX) / vb.h : undefined;
+    const par = (root.attrs.preserveAspectRatio ?? '').trim();
+    if (sx !== undefined && sy !== undefined) {
+      if (par.startsWith('none')) { kx = sx; ky = sy; } else if (par.endsWith('slice')) { kx = ky = Math.max(sx, sy); } else { kx = ky = Math.min(sx, sy); }
+    } else if (sx !== undefined) kx = ky = sx;
+    else if (sy !== undefined) kx = ky = sy;
+  }
+  const detail: Record<string, string | number> = {};
+  if (W) detail.width = W.text;
+  if (H) detail.height = H.text;
+  if (vb) detail.viewBox = `${vb.x} ${vb.y} ${vb.w} ${vb.h}`;
+  let units: DrawingUnits;
+  let fx: number, fy: number;
+  if (opts.units !== undefined) {
+    if (stated) {
+      const want = MM_PER[opts.units];
+      const agree = Math.abs(kx - want) <= 1e-9 * want && Math.abs(ky - want) <= 1e-9 * want;
+      if (!agree && !opts.unitsOverride) {
+        const fmt = (v: number) => Number(v.toPrecision(9)).toString();
+        throw new InputError(`${where} ${stated === W ? 'width' : 'height'}`, `the file states ${stated === W ? 'width' : 'height'}="${stated.text}"${vb ? ` over a viewBox of ${stated === W ? vb.w : vb.h}` : ''}, so one user unit is ${fmt(kx)} mm, but the units option says 1 ${opts.units}; drop the option or confirm it with the units override`);
+      }
+      units = { unit: opts.units, source: agree ? 'file' : 'option', detail };
+    } else {
+      units = { unit: opts.units, source: 'option', detail };
+    }
+    fx = fy = 1;
+  } else if (stated) {
+    units = { unit: 'mm', source: 'file', detail };
+    fx = kx; fy = ky;
+  } else {
+    units = { unit: 'mm', source: 'assumed', detail: { ...detail, assumed: 'css-px' } };
+    fx = kx; fy = ky;
   }
   let map: Affine;
-  if (vb) map = [kx, 0, 0, -ky, -vb[0] * kx, (vb[1] + vb[3]) * ky];
-  else if (hPx !== undefined) map = [kx, 0, 0, -ky, 0, hPx * ky];
-  else map = [kx, 0, 0, -ky, 0, 0];
-  if (root.attrs.transform !== undefined) map = composeAffine(map, parseTransform(root.attrs.transform, where));
-  return { map, units };
+  if (vb) map = [fx, 0, 0, -fy, -vb.x * fx, (vb.y + vb.h) * fy];
+  else if (H !== undefined) map = [fx, 0, 0, -fy, 0, H.px * fy];
+  else map = [fx, 0, 0, -fy, 0, 0];
+  const viewport: Viewport = vb ? { w: vb.w, h: vb.h } : { w: W?.px, h: H?.px };
+  return { map, units, viewport };
 }
 
-/** Read an SVG drawing into parts (one per piece of material). */
-export function readSvg(text: string, opts: SvgOptions = {}): Part[] {
-  const label = opts.fileLabel ?? 'svg';
-  const root = parseXml(text, { maxChars: XML_MAX_CHARS, maxDepth: XML_MAX_DEPTH }, 'svg');
-  if (localName(root.name) !== 'svg') throw new InputError('svg', `expected the root element <svg>, got <${root.name}>`);
-  const { map, units } = viewportMap(root, opts);
+interface Frame {
+  el: XmlElement;
+  m: Affine;
+  scope: NsScope;
+  css: Computed;
+  hidden?: HiddenReason;
+  layer?: string;
+  /** Name of the nearest named group (not a layer). */
+  groupName?: string;
+  viewport: Viewport;
+  /** Ids of the <use> chain that led here (cycle and depth checks). */
+  useChain: string[];
+  /** True for the root's direct children (top-level groups may be layers). */
+  topLevel: boolean;
+  /** Where prefix for elements reached through <use>. */
+  via?: string;
+}
 
-  const counters = new Map<string, number>();
-  const loops: Loop[] = [];
-  const idOf = new Map<Loop, string>();
-  // iterative walk (the XML depth limit also bounds this stack)
-  const stack: { el: XmlElement; m: Affine }[] = root.children.map((el) => ({ el, m: map })).reverse();
-  while (stack.length > 0) {
-    const { el, m: parentM } = stack.pop()!;
-    const tag = localName(el.name);
-    if (tag === undefined || SKIPPED.has(tag)) continue;
-    const count = (counters.get(tag) ?? 0) + 1;
-    counters.set(tag, count);
-    const id = el.attrs.id;
-    const where = `svg ${tag}${id ? `#${id}` : `[${count}]`}`;
-    if ((el.attrs.display ?? '').trim() === 'none') continue;
-    const m = el.attrs.transform !== undefined ? composeAffine(parentM, parseTransform(el.attrs.transform, where)) : parentM;
-    const det = m[0] * m[3] - m[1] * m[2];
-    if (!(Math.abs(det) > 1e-300) || !m.every(Number.isFinite)) {
-      throw new InputError(`${where} transform`, 'the transform flattens the drawing (zero determinant); expected an invertible transform');
+const PRESENTATION: readonly CascadedProperty[] = ['display', 'visibility', 'stroke', 'fill'];
+
+function checkInvertible(m: Affine, where: string): void {
+  const det = m[0] * m[3] - m[1] * m[2];
+  if (!(Math.abs(det) > 1e-300) || !m.every(Number.isFinite)) {
+    throw new InputError(`${where} transform`, 'the transform flattens the drawing (zero determinant); expected an invertible transform');
+  }
+}
+
+/** Read an SVG document into a Drawing: every contour with its layer, name, colour and visibility; no roles decided. */
+export function readSvgDrawing(text: string, opts: SvgDrawingOptions = {}): Drawing {
+  const label = opts.fileLabel ?? 'svg';
+  const keepText = new Set(['style', 'title', 'svg:style', 'svg:title']);
+  const root = parseXml(text, { maxChars: XML_MAX_CHARS, maxDepth: XML_MAX_DEPTH, keepText }, 'svg');
+  let rootScope = nsScope(root, new Map());
+  const rootName = resolveName(root.name, rootScope);
+  if (rootName.local !== 'svg') throw new InputError('svg', `expected the root element <svg>, got <${root.name}>`);
+  if (rootName.ns === undefined && !root.name.includes(':')) {
+    // a file without xmlns: browsers would not draw it as SVG, but drawing programs read it; take it as SVG
+    rootScope = new Map([...rootScope, ['', SVG_NS]]);
+  } else if (rootName.ns !== SVG_NS) {
+    throw new InputError('svg <svg>', `the root element is in namespace "${rootName.ns ?? 'none'}", not SVG (${SVG_NS})`);
+  }
+  const { map, units, viewport } = rootUnits(root, opts);
+  checkInvertible(map, 'svg <svg>');
+  const ignored: Record<string, number> = {};
+  const count = (k: string) => { ignored[k] = (ignored[k] ?? 0) + 1; };
+
+  // ids, style sheets and (only when there is a sheet) the node tree css-select walks
+  const byId = new Map<string, { el: XmlElement; scope: NsScope }>();
+  const sheet = new StyleSheet();
+  const scopes = new Map<XmlElement, NsScope>();
+  {
+    const st: { el: XmlElement; scope: NsScope }[] = [{ el: root, scope: rootScope }];
+    while (st.length > 0) {
+      const { el, scope } = st.pop()!;
+      const sc = el === root ? scope : nsScope(el, scope);
+      scopes.set(el, sc);
+      const id = el.attrs.id;
+      if (id !== undefined && !byId.has(id)) byId.set(id, { el, scope: sc });
+      const { ns, local } = resolveName(el.name, sc);
+      if (ns === SVG_NS && local === 'style') {
+        const type = (el.attrs.type ?? 'text/css').trim().toLowerCase();
+        if (type === 'text/css' || type === '') sheet.add(el.text ?? '', `svg style${id ? `#${id}` : ''}`);
+        continue;
+      }
+      for (let k = el.children.length - 1; k >= 0; k--) st.push({ el: el.children[k], scope: sc });
     }
+  }
+  const nodes = new Map<XmlElement, CssNode>();
+  if (!sheet.empty) {
+    const make = (el: XmlElement, parent: CssNode | null): CssNode => {
+      const n: CssNode = { el, name: resolveName(el.name, scopes.get(el) ?? rootScope).local, parent, children: [] };
+      nodes.set(el, n);
+      return n;
+    };
+    const st: CssNode[] = [make(root, null)];
+    while (st.length > 0) {
+      const n = st.pop()!;
+      for (const c of n.el.children) { const cn = make(c, n); n.children.push(cn); st.push(cn); }
+    }
+  }
+  const hasInkscapeLayers = (() => {
+    const st = [root];
+    while (st.length > 0) {
+      const el = st.pop()!;
+      if ((el.name === 'g' || el.name.endsWith(':g')) && nsAttr(el, scopes.get(el) ?? rootScope, INKSCAPE_NS, 'groupmode') === 'layer') return true;
+      for (const c of el.children) st.push(c);
+    }
+    return false;
+  })();
+
+  const computeCss = (el: XmlElement, parent: Computed, where: string): { css: Computed; cssTransform?: string } => {
+    const pres: Computed = {};
+    let any = false;
+    for (const p of PRESENTATION) if (el.attrs[p] !== undefined) { pres[p] = el.attrs[p]; any = true; }
+    if (!any && sheet.empty && el.attrs.style === undefined) {
+      // nothing declared here: the inherited properties pass through, the others take their initial value
+      return { css: parent.visibility === undefined && parent.stroke === undefined && parent.fill === undefined ? {} : { visibility: parent.visibility, stroke: parent.stroke, fill: parent.fill } };
+    }
+    const css = cascade(nodes.get(el), sheet, pres, el.attrs.style, parent, where);
+    return { css, cssTransform: css.transform };
+  };
+
+  const contours: DrawnContour[] = [];
+  const counters = new Map<string, number>();
+  const rootCss = computeCss(root, {}, 'svg <svg>').css;
+  const rootHidden: HiddenReason | undefined = rootCss.display?.toLowerCase() === 'none' ? 'display-none' : undefined;
+  const stack: Frame[] = [];
+  for (let k = root.children.length - 1; k >= 0; k--) {
+    stack.push({ el: root.children[k], m: map, scope: rootScope, css: rootCss, hidden: rootHidden, viewport, useChain: [], topLevel: true });
+  }
+  while (stack.length > 0) {
+    const f = stack.pop()!;
+    const el = f.el;
+    const scope = nsScope(el, f.scope);
+    const { ns, local: tag } = resolveName(el.name, scope);
+    if (ns !== SVG_NS) { count('foreign-namespace'); continue; }
+    if (NOT_RENDERED.has(tag)) continue;
+    const n = (counters.get(tag) ?? 0) + 1;
+    counters.set(tag, n);
+    const id = el.attrs.id;
+    const where = `${f.via ?? 'svg'} ${tag}${id ? `#${id}` : `[${n}]`}`;
+    if (IGNORED_CONTENT[tag] !== undefined) { count(IGNORED_CONTENT[tag]); continue; }
+    const { css, cssTransform: cssT } = computeCss(el, f.css, where);
+    let hidden = f.hidden;
+    if (css.display?.toLowerCase() === 'none') hidden ??= 'display-none';
+    // the element's own transform: the CSS property (style sheet or style attribute) wins over the attribute
+    let m = f.m;
+    if (cssT !== undefined) {
+      let t = cssTransformMatrix(cssT, where);
+      if (css['transform-origin'] !== undefined) {
+        const [ox, oy] = cssTransformOrigin(css['transform-origin'], where, CSS_PX_PER);
+        t = composeAffine(composeAffine([1, 0, 0, 1, ox, oy], t), [1, 0, 0, 1, -ox, -oy]);
+      }
+      m = composeAffine(m, t);
+    } else if (el.attrs.transform !== undefined) {
+      m = composeAffine(m, parseTransform(el.attrs.transform, where));
+    }
+    checkInvertible(m, where);
+    const childFrame = (c: XmlElement, extra: Partial<Frame> = {}): Frame => ({
+      el: c, m, scope, css, hidden, layer: f.layer, groupName: f.groupName, viewport: f.viewport, useChain: f.useChain, topLevel: false, via: f.via, ...extra,
+    });
+    const ownName = titleOf(el, scope) ?? nsAttr(el, scope, INKSCAPE_NS, 'label') ?? (id !== undefined && !isGeneratedId(id) ? id : undefined);
+
     if (tag === 'g' || tag === 'a') {
-      for (let k = el.children.length - 1; k >= 0; k--) stack.push({ el: el.children[k], m });
+      let layer = f.layer, groupName = f.groupName;
+      const isLayer = tag === 'g' && (nsAttr(el, scope, INKSCAPE_NS, 'groupmode') === 'layer'
+        || (!hasInkscapeLayers && f.topLevel && f.layer === undefined && ownName !== undefined));
+      if (isLayer) layer = nsAttr(el, scope, INKSCAPE_NS, 'label') ?? ownName ?? id ?? `${where}`;
+      else if (ownName !== undefined) groupName = ownName;
+      for (let k = el.children.length - 1; k >= 0; k--) stack.push(childFrame(el.children[k], { layer, groupName }));
       continue;
     }
     if (tag === 'switch') throw new InputError(where, '<switch> is not supported; keep only the alternative to be cut');
-    if (tag === 'use') throw new InputError(where, '<use> references are not supported; expand (unlink) them in the drawing first');
-    if (tag === 'svg') throw new InputError(where, 'nested <svg> elements are not supported; expected shapes inside <g> groups');
-    for (const c of shapeContours(el, tag, where)) {
-      const loop: Loop = { where: c.where, segments: c.segments.map((s) => transformSegment(s, m)) };
-      loops.push(loop);
-      if (id) idOf.set(loop, id);
+    if (tag === 'svg') {
+      // a nested viewport (SVG 2, 8.2): x, y, width, height (percentages of the enclosing viewport), viewBox
+      const vp = f.viewport;
+      currentViewport = vp;
+      const x = attrNum(el, 'x', where, 0), y = attrNum(el, 'y', where, 0);
+      const w = el.attrs.width !== undefined ? attrNum(el, 'width', where) : vp.w;
+      const h = el.attrs.height !== undefined ? attrNum(el, 'height', where) : vp.h;
+      const vb = viewBoxOf(el, where);
+      let mm = composeAffine(m, [1, 0, 0, 1, x, y]);
+      if (vb) {
+        if (w === undefined || h === undefined) throw new InputError(where, 'a nested <svg> with a viewBox needs a width and height (or an enclosing viewport)');
+        mm = composeAffine(mm, viewBoxTransform(vb, w, h, el.attrs.preserveAspectRatio ?? '', where));
+      }
+      checkInvertible(mm, where);
+      const inner: Viewport = vb ? { w: vb.w, h: vb.h } : { w, h };
+      for (let k = el.children.length - 1; k >= 0; k--) stack.push({ ...childFrame(el.children[k]), m: mm, viewport: inner });
+      continue;
+    }
+    if (tag === 'use') {
+      const href = el.attrs.href ?? nsAttr(el, scope, XLINK_NS, 'href') ?? el.attrs['xlink:href'];
+      if (href === undefined || href.trim() === '') { count('use-without-reference'); continue; }
+      const ref = href.trim();
+      if (!ref.startsWith('#')) throw new InputError(`${where} href`, `only references into the same file (#id) are read, got "${ref}"`);
+      const target = byId.get(ref.slice(1));
+      if (!target) throw new InputError(`${where} href`, `no element has id "${ref.slice(1)}"`);
+      if (f.useChain.includes(ref)) throw new InputError(`${where} href`, `refers back to ${ref} through ${[...f.useChain, ref].join(' → ')}; a <use> chain must not loop`);
+      if (f.useChain.length >= USE_MAX_DEPTH) throw new InputError(`${where} href`, `<use> elements nest more than ${USE_MAX_DEPTH} deep`);
+      currentViewport = f.viewport;
+      const x = attrNum(el, 'x', where, 0), y = attrNum(el, 'y', where, 0);
+      let mu = composeAffine(m, [1, 0, 0, 1, x, y]);
+      const chain = [...f.useChain, ref];
+      const via = `${where} → ${ref}:`;
+      const tScope = target.scope;
+      const tn = resolveName(target.el.name, tScope);
+      if (tn.ns !== SVG_NS) { count('foreign-namespace'); continue; }
+      const named = { groupName: ownName ?? f.groupName };
+      if (tn.local === 'symbol' || tn.local === 'svg') {
+        // the referenced viewport: use's width/height, else the symbol's, else 100 % (SVG 2, 5.6.2)
+        const tw = el.attrs.width ?? target.el.attrs.width, th = el.attrs.height ?? target.el.attrs.height;
+        const w = tw !== undefined ? parseLength(tw, where, 'width', f.viewport.w) : f.viewport.w;
+        const h = th !== undefined ? parseLength(th, where, 'height', f.viewport.h) : f.viewport.h;
+        const vb = viewBoxOf(target.el, `svg ${tn.local}${ref}`);
+        if (tn.local === 'svg') {
+          currentViewport = f.viewport;
+          mu = composeAffine(mu, [1, 0, 0, 1, attrNum(target.el, 'x', where, 0), attrNum(target.el, 'y', where, 0)]);
+        }
+        if (vb) {
+          if (w === undefined || h === undefined) throw new InputError(where, `${ref} has a viewBox but no size is given (width and height on <use>)`);
+          mu = composeAffine(mu, viewBoxTransform(vb, w, h, target.el.attrs.preserveAspectRatio ?? '', where));
+        }
+        if (target.el.attrs.transform !== undefined) mu = composeAffine(mu, parseTransform(target.el.attrs.transform, `svg ${tn.local}${ref}`));
+        checkInvertible(mu, where);
+        const symCss = computeCss(target.el, css, `svg ${tn.local}${ref}`).css;
+        const symHidden = hidden ?? (symCss.display?.toLowerCase() === 'none' && tn.local === 'svg' ? 'display-none' : undefined);
+        const inner: Viewport = vb ? { w: vb.w, h: vb.h } : { w, h };
+        const sc = nsScope(target.el, tScope);
+        for (let k = target.el.children.length - 1; k >= 0; k--) {
+          stack.push({ ...childFrame(target.el.children[k]), m: mu, css: symCss, hidden: symHidden, scope: sc, viewport: inner, useChain: chain, via, ...named });
+        }
+      } else {
+        checkInvertible(mu, where);
+        const parentScope = target.scope; // the target's own xmlns attributes are applied again when it is popped
+        stack.push({ ...childFrame(target.el), m: mu, scope: parentScope, useChain: chain, via, ...named });
+      }
+      continue;
+    }
+    currentViewport = f.viewport;
+    const shapes = shapeContours(el, tag, where);
+    if (shapes.length === 0) continue;
+    const vis = css.visibility?.toLowerCase();
+    const shapeHidden: HiddenReason | undefined = hidden ?? (vis === 'hidden' || vis === 'collapse' ? 'visibility-hidden' : undefined);
+    const stroke = css.stroke?.trim();
+    const colour = stroke !== undefined && stroke.toLowerCase() !== 'none' ? stroke : css.fill?.trim();
+    const name = ownName ?? f.groupName;
+    for (const c of shapes) {
+      const dc: DrawnContour = { segments: c.segments.map((s) => transformSegment(s, m)), closed: c.closed, where: c.where };
+      if (f.layer !== undefined) dc.layer = f.layer;
+      if (colour !== undefined) dc.colour = colour;
+      if (name !== undefined) dc.name = name;
+      if (shapeHidden !== undefined) dc.hidden = shapeHidden;
+      if (id !== undefined) dc.sources = [id];
+      contours.push(dc);
     }
   }
-  if (loops.length === 0) throw new InputError('svg', 'expected at least one closed contour (path, rect, circle, ellipse, polygon), found none');
+  currentViewport = {};
+  if (sheet.unsupportedSelectors > 0) ignored['css-selector-unsupported'] = sheet.unsupportedSelectors;
+  const drawing: Drawing = { format: 'svg', label, units, contours, ignored };
+  const docName = titleOf(root, rootScope);
+  if (docName !== undefined) drawing.name = docName;
+  return drawing;
+}
 
-  const groups = nestLoops(loops);
-  const used = new Map<string, number>();
-  return groups.map((regions, k) => {
-    const base = idOf.get(regions[0].outer) ?? (groups.length === 1 ? label : `${label}-${k + 1}`);
-    const seen = used.get(base) ?? 0;
-    used.set(base, seen + 1);
-    const name = seen === 0 ? base : `${base}-${seen + 1}`;
-    return normalizePart({ name, units, regions });
-  });
+function cssTransformMatrix(v: string, where: string): Affine {
+  return cssTransform(v, where, CSS_PX_PER);
+}
+
+export interface SvgOptions extends SvgDrawingOptions, InterpretOptions {}
+
+/** Read an SVG drawing into parts (the drawing read, then interpreted by the shared rules). */
+export function readSvg(text: string, opts: SvgOptions = {}): Part[] {
+  return interpretDrawing(readSvgDrawing(text, opts), opts).parts;
 }

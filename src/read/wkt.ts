@@ -2,18 +2,26 @@
  * Well-known text reader (OGC 06-103r4, Simple Feature Access Part 1, version 1.2.1, section 7):
  * POLYGON and MULTIPOLYGON, case-insensitive, with the Z, M and ZM forms accepted and the extra ordinates
  * ignored; EMPTY accepted (an empty polygon adds nothing). Several geometries may follow one another
- * (separated by white space, new lines or ';'); each is one part. An EWKT "SRID=n;" prefix is skipped.
- * Coordinates are plane lengths in the part's unit (default mm, option `units`).
+ * (separated by white space, new lines or ';'). The result is a Drawing whose rings remember their polygon
+ * and index; the shared interpretation makes one part per polygon (per MULTIPOLYGON component too).
+ * Coordinates are plane lengths (option `units`; without it mm, an assumption the summary reports). An EWKT
+ * "SRID=n;" prefix naming a geographic system (EPSG 4326, 4258, 4269, …: degrees) is refused; any other
+ * non-zero SRID needs the units option.
  * Errors name the character offset (0-based) and the line and column.
  */
 import { InputError } from '../base/errors.js';
-import { type Loop, type Part, type Region, normalizePart } from '../geometry/part.js';
+import type { Loop, Part, Region } from '../geometry/part.js';
 import type { Segment } from '../geometry/segments.js';
 import type { LengthUnit } from '../base/units.js';
+import type { Drawing, DrawingUnits, DrawnContour } from './drawing.js';
+import { GEOGRAPHIC_EPSG } from './geojson.js';
+import { type InterpretOptions, interpretDrawing } from './interpret.js';
 import { lineColumn } from './xml.js';
 
-export interface WktOptions {
+export interface WktOptions extends InterpretOptions {
   units?: LengthUnit;
+  /** Read coordinates as lengths in `units` even though an SRID names a geographic or other system. */
+  unitsOverride?: boolean;
   fileLabel?: string;
 }
 
@@ -21,7 +29,7 @@ type Tok = { kind: 'word' | 'num' | '(' | ')' | ',' | ';' | 'end'; text: string;
 
 const NUM = /[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?/y;
 
-function tokenize(text: string, where: (at: number) => string): Tok[] {
+function tokenize(text: string, where: (at: number) => string, srids: { srid: number; at: number }[]): Tok[] {
   const out: Tok[] = [];
   let i = 0;
   while (i < text.length) {
@@ -33,9 +41,11 @@ function tokenize(text: string, where: (at: number) => string): Tok[] {
       while (i < text.length && /[A-Za-z_]/.test(text[i])) i++;
       // EWKT "SRID=4326;" prefix
       if (text.slice(s, i).toUpperCase() === 'SRID' && text[i] === '=') {
-        const m = /=\s*\d+\s*;/y;
+        const m = /=\s*(\d+)\s*;/y;
         m.lastIndex = i;
-        if (!m.exec(text)) throw new InputError(where(i), 'expected SRID=<integer>; before the geometry');
+        const r = m.exec(text);
+        if (!r) throw new InputError(where(i), 'expected SRID=<integer>; before the geometry');
+        srids.push({ srid: Number(r[1]), at: s });
         i = m.lastIndex;
         continue;
       }
@@ -51,12 +61,21 @@ function tokenize(text: string, where: (at: number) => string): Tok[] {
   return out;
 }
 
-/** Read WKT text: one part per POLYGON / MULTIPOLYGON. */
-export function readWkt(text: string, opts: WktOptions = {}): Part[] {
+/** Read WKT text into a Drawing (rings with their polygon and index). */
+export function readWktDrawing(text: string, opts: WktOptions = {}): Drawing {
   const label = opts.fileLabel ?? 'wkt';
-  const units = opts.units ?? 'mm';
   const where = (at: number) => `wkt character ${at} (${lineColumn(text, at)})`;
-  const toks = tokenize(text, where);
+  const srids: { srid: number; at: number }[] = [];
+  const toks = tokenize(text, where, srids);
+  let units: DrawingUnits = opts.units !== undefined ? { unit: opts.units, source: 'option' } : { unit: 'mm', source: 'assumed', detail: { assumed: 'mm' } };
+  for (const { srid, at } of srids) {
+    if (srid === 0) continue;
+    if (GEOGRAPHIC_EPSG.has(srid) && !(opts.units !== undefined && opts.unitsOverride)) {
+      throw new InputError(where(at), `SRID=${srid} is a geographic system: coordinates are degrees of longitude and latitude, not lengths; export plane coordinates, or give the units with the override to read the numbers as lengths`);
+    }
+    if (opts.units === undefined) throw new InputError(where(at), `SRID=${srid}: the length unit of this system is not read from the file; give the units option`);
+    units = { unit: opts.units, source: 'option', detail: { srid } };
+  }
   let k = 0;
   const peek = () => toks[k];
   const expect = (kind: Tok['kind'], what: string): Tok => {
@@ -150,5 +169,17 @@ export function readWkt(text: string, opts: WktOptions = {}): Part[] {
   if (nonEmpty.length === 0) {
     throw new InputError(parts.length > 0 ? where(parts[0].at) : 'wkt', parts.length > 0 ? 'the geometry is EMPTY; expected at least one polygon' : 'expected POLYGON or MULTIPOLYGON, found nothing');
   }
-  return nonEmpty.map((p, j) => normalizePart({ name: nonEmpty.length === 1 ? label : `${label}-${j + 1}`, units, regions: p.regions }));
+  const contours: DrawnContour[] = [];
+  parts.forEach((p, g) => p.regions.forEach((r, j) => {
+    const key = `${g}.${j}`;
+    [r.outer, ...r.holes].forEach((l, index) => {
+      contours.push({ segments: l.segments, closed: true, where: l.where ?? `wkt geometry ${g}`, ring: { polygon: key, index }, group: `${g}` });
+    });
+  }));
+  return { format: 'wkt', label, units, contours, ignored: {} };
+}
+
+/** Read WKT text into parts: one per polygon (through the shared interpretation). */
+export function readWkt(text: string, opts: WktOptions = {}): Part[] {
+  return interpretDrawing(readWktDrawing(text, opts), opts).parts;
 }

@@ -15,6 +15,8 @@ export interface XmlElement {
   children: XmlElement[];
   /** Character offset of the `<` that opens the element. */
   offset: number;
+  /** Text content (character data and CDATA, entities decoded), kept only for elements named in `keepText`. */
+  text?: string;
 }
 
 export interface XmlLimits {
@@ -22,6 +24,8 @@ export interface XmlLimits {
   maxChars?: number;
   /** Deepest accepted element nesting (default 1000). */
   maxDepth?: number;
+  /** Element names (as written, prefix included) whose direct text content is kept in `text` (e.g. style, title). */
+  keepText?: ReadonlySet<string>;
 }
 
 export const XML_MAX_CHARS = 20 * 1024 * 1024;
@@ -79,6 +83,7 @@ function decodeEntities(raw: string, text: string, base: number, label: string):
 export function parseXml(text: string, limits: XmlLimits = {}, label = 'xml'): XmlElement {
   const maxChars = limits.maxChars ?? XML_MAX_CHARS;
   const maxDepth = limits.maxDepth ?? XML_MAX_DEPTH;
+  const keep = limits.keepText;
   if (text.length > maxChars) {
     throw new InputError(label, `file is ${text.length} characters; the limit is ${maxChars} (${(maxChars / 1048576).toFixed(0)} MiB)`);
   }
@@ -104,7 +109,9 @@ export function parseXml(text: string, limits: XmlLimits = {}, label = 'xml'): X
       if (stack.length === 0) {
         if (chunk.trim() !== '') throw new InputError(at(i), 'expected only markup outside the root element');
       } else {
-        decodeEntities(chunk, text, i, label); // checks the references; text itself is not kept
+        const decoded = decodeEntities(chunk, text, i, label); // checks the references
+        const top = stack[stack.length - 1];
+        if (keep?.has(top.name)) top.text = (top.text ?? '') + decoded;
       }
     }
     if (lt < 0) break;
@@ -117,6 +124,8 @@ export function parseXml(text: string, limits: XmlLimits = {}, label = 'xml'): X
       if (stack.length === 0) throw new InputError(at(i), 'CDATA section outside the root element');
       const end = text.indexOf(']]>', i + 9);
       if (end < 0) throw new InputError(at(i), "CDATA section is not closed (expected ']]>')");
+      const top = stack[stack.length - 1];
+      if (keep?.has(top.name)) top.text = (top.text ?? '') + text.slice(i + 9, end);
       i = end + 3;
     } else if (text.startsWith('<?', i)) {
       const end = text.indexOf('?>', i + 2);

@@ -26,15 +26,16 @@ describe('RFC 7946 appendix A examples', () => {
     expect(loopSignedArea(p[0].regions[0].outer)).toBeGreaterThan(0);
     expect(loopSignedArea(p[0].regions[0].holes[0])).toBeLessThan(0);
   });
-  it('A.6 MultiPolygon: one part of two regions, 1 + 0.64', () => {
+  it('A.6 MultiPolygon: two parts (changed in issue 12: disjoint pieces are separate parts), 1 and 0.64', () => {
     const p = readGeoJson(`{"type": "MultiPolygon", "coordinates": [
       [[[102.0, 2.0], [103.0, 2.0], [103.0, 3.0], [102.0, 3.0], [102.0, 2.0]]],
       [[[100.0, 0.0], [101.0, 0.0], [101.0, 1.0], [100.0, 1.0], [100.0, 0.0]],
        [[100.2, 0.2], [100.2, 0.8], [100.8, 0.8], [100.8, 0.2], [100.2, 0.2]]]]}`, { units: 'in' });
-    expect(p).toHaveLength(1);
+    expect(p).toHaveLength(2);
     expect(p[0].units).toBe('in');
-    expect(p[0].regions).toHaveLength(2);
-    expect(partArea(p[0])).toBeCloseTo(1.64, 12);
+    expect(p[0].unitSource).toBe('option');
+    expect(partArea(p[0])).toBeCloseTo(1, 12);
+    expect(partArea(p[1])).toBeCloseTo(0.64, 12);
   });
   it('1.5 example FeatureCollection (Point, LineString, Polygon): the Point is rejected, naming its path', () => {
     // RFC 7946, section 1.5 (abridged)
