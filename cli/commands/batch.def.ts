@@ -1,9 +1,9 @@
 import type { Command } from 'commander';
-import { intArg } from '../options.js';
+import { intArg, addDrawingOptions } from '../options.js';
 import { run } from '../run.js';
 
 export function defineBatch(program: Command): void {
-  program
+  addDrawingOptions(program
     .command('batch')
     .description('measure many parts at once: a folder of part files or a manifest (CSV); one result row per part, totals at the end')
     .argument('<source>', 'a folder (every .json, .svg, .geojson, .wkt file in it) or a manifest .csv')
@@ -19,6 +19,6 @@ export function defineBatch(program: Command): void {
     .option('--levels <n>', 'uniform refinements after the base mesh', intArg('--levels'))
     .option('--quiet', 'no progress bar and no summary on standard error')
     .addHelpText('after', '\nExit status: 0 every part measured and every stated value passes; 1 a part failed or a stated value failed\n' +
-      'or was inconclusive; 2 bad manifest or arguments (nothing is measured).')
+      'or was inconclusive; 2 bad manifest or arguments (nothing is measured).'))
     .action((source: string, opts) => run(async () => (await import('./batch.js')).batch(source, opts)));
 }

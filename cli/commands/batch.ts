@@ -9,9 +9,9 @@ import { runPool } from '../../src/batch/pool.js';
 import { type BatchSummary, SummaryBuilder, batchCsvHeader, batchCsvRow, batchJsonLine, summaryText } from '../../src/output/batchRows.js';
 import type { BatchRow } from '../../src/batch/task.js';
 import { checkSettings } from '../../src/model/plate.js';
-import { plateSettings } from './settings.js';
+import { type DrawingFlags, plateSettings, readOptions } from './settings.js';
 
-export interface BatchFlags {
+export interface BatchFlags extends DrawingFlags {
   output?: string; force?: boolean; jsonl?: boolean; csv?: boolean; jobs?: number;
   thickness?: string; material?: string; density?: string; degree?: number; levels?: number; quiet?: boolean;
 }
@@ -97,7 +97,7 @@ export async function batch(source: string, flags: BatchFlags): Promise<string> 
     write(jsonl ? '' : batchCsvHeader());
     await runPool(jobs, {
       size,
-      settings: { defaults, degree: flags.degree, levels: flags.levels },
+      settings: { defaults, degree: flags.degree, levels: flags.levels, read: readOptions(flags) },
       onRows: (rows: BatchRow[]) => {
         let text = '';
         for (const r of rows) {

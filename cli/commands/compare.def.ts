@@ -1,12 +1,12 @@
 import type { Command } from 'commander';
-import { intArg } from '../options.js';
+import { intArg, addDrawingOptions } from '../options.js';
 import { run } from '../run.js';
 
 export function defineCompare(program: Command): void {
-  program
+  addDrawingOptions(program
     .command('compare')
     .description('check stated values (a drawing, a customer sheet) against computed ones: pass, fail or inconclusive per quantity')
-    .argument('<file>', 'part file (platewise JSON, SVG, GeoJSON or WKT), or - for standard input')
+    .argument('<file>', 'part file (platewise JSON, SVG, DXF, GeoJSON or WKT), or - for standard input')
     .requiredOption('--reference <file>', 'stated values with units and optional tolerances (.json or .csv)')
     .option('--json', 'print JSON instead of a table')
     .option('--csv', 'print CSV (RFC 4180) instead of a table')
@@ -16,8 +16,6 @@ export function defineCompare(program: Command): void {
     .option('--part <name>', 'which part, when the file holds several')
     .option('--degree <n>', 'Dunavant rule degree on curved triangles (1-20)', intArg('--degree'))
     .option('--levels <n>', 'uniform refinements after the base mesh (the last two give the estimate)', intArg('--levels'))
-    .option('--format <format>', 'input format: part-json, svg, geojson or wkt (default: by extension, then content)')
-    .option('--units <unit>', 'length unit of drawing coordinates (SVG, GeoJSON, WKT): mm, cm, m, in, ft')
-    .addHelpText('after', '\nExit status: 0 every stated value passes; 1 any fails or is inconclusive; 2 bad input.')
+    .addHelpText('after', '\nExit status: 0 every stated value passes; 1 any fails or is inconclusive; 2 bad input.'))
     .action((file: string, opts) => run(async () => (await import('./compare.js')).compare(file, opts)));
 }

@@ -10,9 +10,9 @@ import { explainMissing, partSize } from '../../src/qa/compute.js';
 import { readReference } from '../../src/qa/reference.js';
 import { compareAll } from '../../src/qa/verdict.js';
 import { readModels } from '../../src/read/models.js';
-import { plateSettings, readOptions } from './settings.js';
+import { type DrawingFlags, plateSettings, readOptions } from './settings.js';
 
-export interface CompareFlags {
+export interface CompareFlags extends DrawingFlags {
   reference: string; json?: boolean; csv?: boolean;
   thickness?: string; material?: string; density?: string; part?: string;
   degree?: number; levels?: number; format?: string; units?: string;

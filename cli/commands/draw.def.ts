@@ -1,19 +1,17 @@
 import type { Command } from 'commander';
-import { intArg } from '../options.js';
+import { intArg, addDrawingOptions } from '../options.js';
 import { run } from '../run.js';
 
 export function defineDraw(program: Command): void {
-  program
+  addDrawingOptions(program
     .command('draw')
     .description('SVG drawing of a part: material, cut-outs, centroid, principal axes, bounding box, scale bar')
-    .argument('<file>', 'part file (platewise JSON, SVG, GeoJSON or WKT), or - for standard input')
+    .argument('<file>', 'part file (platewise JSON, SVG, DXF, GeoJSON or WKT), or - for standard input')
     .option('-o, --output <file.svg>', 'write here (several parts: name-1.svg, name-2.svg, …); default: standard output')
     .option('--mesh', 'overlay the triangles of the mesh (curved triangles drawn curved)')
     .option('--shade <what>', '"error" (refinement error indicator per triangle), "thickness" or "density" (from the part file), or an expression in x and y')
     .option('--sheet', 'all parts of the file on one drawing')
     .option('--degree <n>', 'Dunavant rule degree on curved triangles (1-20)', intArg('--degree'))
-    .option('--triangulation <mode>', 'delaunator (default), cdt2d or sweep')
-    .option('--format <format>', 'input format: part-json, svg, geojson or wkt (default: by extension, then content)')
-    .option('--units <unit>', 'length unit of drawing coordinates (SVG, GeoJSON, WKT): mm, cm, m, in, ft')
+    .option('--triangulation <mode>', 'delaunator (default), cdt2d or sweep'))
     .action((file: string, opts) => run(async () => (await import('./draw.js')).draw(file, opts)));
 }

@@ -4,9 +4,9 @@ import { InputError } from '../../src/base/errors.js';
 import { readInputText, writeFileAtomic, writeFilesAtomic } from '../../src/base/files.js';
 import { detectFormat } from '../../src/read/detect.js';
 import { readModels } from '../../src/read/models.js';
-import { readOptions } from './settings.js';
+import { type DrawingFlags, readOptions } from './settings.js';
 
-export interface DrawFlags {
+export interface DrawFlags extends DrawingFlags {
   output?: string; mesh?: boolean; shade?: string; sheet?: boolean;
   degree?: number; triangulation?: string; format?: string; units?: string;
 }

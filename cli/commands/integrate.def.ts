@@ -1,12 +1,12 @@
 import type { Command } from 'commander';
-import { intArg, numberArg } from '../options.js';
+import { intArg, numberArg, addDrawingOptions } from '../options.js';
 import { run } from '../run.js';
 
 export function defineIntegrate(program: Command): void {
-  program
+  addDrawingOptions(program
     .command('integrate')
     .description('integral of an expression f(x, y) over a part, its first moments and the point of action of the resultant')
-    .argument('<file>', 'part file (platewise JSON, SVG, GeoJSON or WKT), or - for standard input')
+    .argument('<file>', 'part file (platewise JSON, SVG, DXF, GeoJSON or WKT), or - for standard input')
     .requiredOption('--expr <expression>', 'the integrand in x and y (part coordinates), e.g. "9.81*(2000 - y)"')
     .option('--expr-unit <unit>', 'name of the unit of f, for printing only (e.g. kPa)')
     .option('--layer <name>', 'layer of a layered part file to integrate over (default: the first)')
@@ -14,8 +14,6 @@ export function defineIntegrate(program: Command): void {
     .option('--max-triangles <n>', 'cap on triangles for --tolerance (default 400000)', intArg('--max-triangles'))
     .option('--time-limit <seconds>', 'cap on time for --tolerance (default 30)', numberArg('--time-limit'))
     .option('--degree <n>', 'Dunavant rule degree (a safe degree: 1, 2, 4, 5, 6, 8, 9, 10, 12, 13, 14, 17, 19)', intArg('--degree'))
-    .option('--json', 'print JSON instead of a table')
-    .option('--format <format>', 'input format: part-json, svg, geojson or wkt (default: by extension, then content)')
-    .option('--units <unit>', 'length unit of drawing coordinates (SVG, GeoJSON, WKT): mm, cm, m, in, ft')
+    .option('--json', 'print JSON instead of a table'))
     .action((file: string, opts) => run(async () => (await import('./integrate.js')).integrate(file, opts)));
 }

@@ -5,9 +5,9 @@ import { readInputText } from '../../src/base/files.js';
 import type { Part } from '../../src/geometry/part.js';
 import { integralJson, integralText } from '../../src/output/massText.js';
 import { readModels } from '../../src/read/models.js';
-import { readOptions } from './settings.js';
+import { type DrawingFlags, readOptions } from './settings.js';
 
-export interface IntegrateFlags {
+export interface IntegrateFlags extends DrawingFlags {
   expr: string; exprUnit?: string; layer?: string; tolerance?: number; maxTriangles?: number; timeLimit?: number;
   degree?: number; json?: boolean; format?: string; units?: string;
 }

@@ -1,19 +1,17 @@
 import type { Command } from 'commander';
-import { intArg, numberArg } from '../options.js';
+import { intArg, numberArg, addDrawingOptions } from '../options.js';
 import { run } from '../run.js';
 
 export function defineMeasure(program: Command): void {
-  program
+  addDrawingOptions(program
     .command('measure')
     .description('area properties of a part: area, centroid, second moments, principal axes, section moduli')
-    .argument('<file>', 'part file (platewise JSON, SVG, GeoJSON or WKT), or - for standard input')
+    .argument('<file>', 'part file (platewise JSON, SVG, DXF, GeoJSON or WKT), or - for standard input')
     .option('--json', 'print JSON instead of a table')
     .option('--degree <n>', 'Dunavant rule degree on curved triangles (1-20)', intArg('--degree'))
     .option('--levels <n>', 'uniform refinements after the base mesh (the last two give the estimate)', intArg('--levels'))
     .option('--method <method>', 'auto (straight-edged parts by the exact boundary formula) or mesh')
     .option('--triangulation <mode>', 'delaunator (default), cdt2d or sweep')
-    .option('--format <format>', 'input format: part-json, svg, geojson or wkt (default: by extension, then content)')
-    .option('--units <unit>', 'length unit of drawing coordinates (SVG, GeoJSON, WKT): mm, cm, m, in, ft')
     .option('--fabrication', 'add fabrication figures: cut length, pierces, bounding and minimum-area rectangles, scrap; masses with a thickness and a material or density')
     // mass properties (cli/commands/measureMass.ts)
     .option('--thickness <t>', 'plate thickness in the part\'s length unit: a number or an expression in x and y')
@@ -24,6 +22,6 @@ export function defineMeasure(program: Command): void {
     .option('--inertia-unit <unit>', 'unit of mass moments of inertia: kg·m² (default), kg·mm², g·cm², lb·in² or lb·ft²')
     .option('--tolerance <t>', 'relative tolerance for mass properties: refine adaptively until met', numberArg('--tolerance'))
     .option('--max-triangles <n>', 'cap on triangles for --tolerance (default 400000)', intArg('--max-triangles'))
-    .option('--time-limit <seconds>', 'cap on time for --tolerance (default 30)', numberArg('--time-limit'))
+    .option('--time-limit <seconds>', 'cap on time for --tolerance (default 30)', numberArg('--time-limit')))
     .action((file: string, opts) => run(async () => (await import('./measure.js')).measure(file, opts)));
 }

@@ -6,9 +6,9 @@ import { readInputText } from '../../src/base/files.js';
 import { reportsJson, reportsText } from '../../src/output/partReport.js';
 import { readModels } from '../../src/read/models.js';
 import { userMaterials } from './materials.js';
-import { massUnits, plateSettings, readOptions } from './settings.js';
+import { type DrawingFlags, massUnits, plateSettings, readOptions } from './settings.js';
 
-export interface MeasureFlags {
+export interface MeasureFlags extends DrawingFlags {
   json?: boolean; degree?: number; levels?: number; triangulation?: string; method?: string; format?: string; units?: string;
   fabrication?: boolean; thickness?: string; density?: string; material?: string; materialsFile?: string;
   massUnit?: string; inertiaUnit?: string; tolerance?: number; maxTriangles?: number; timeLimit?: number;

@@ -6,9 +6,9 @@ import { InputError } from '../../src/base/errors.js';
 import { readInputText, writeFileAtomic } from '../../src/base/files.js';
 import { readModels } from '../../src/read/models.js';
 import { VERSION } from '../version.js';
-import { plateSettings, readOptions } from './settings.js';
+import { type DrawingFlags, plateSettings, readOptions } from './settings.js';
 
-export interface ReportFlags {
+export interface ReportFlags extends DrawingFlags {
   output?: string; degree?: number; levels?: number; triangulation?: string; format?: string; units?: string;
   thickness?: string; density?: string; material?: string;
   /** Fixed date (ISO) instead of now: for reproducible output in tests. */

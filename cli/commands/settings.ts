@@ -1,4 +1,5 @@
 /** Flags shared by several commands, turned into library settings (the CLI only names where each came from). */
+import { InputError } from '../../src/base/errors.js';
 import type { PlateSettings } from '../../src/model/plate.js';
 import { type MassUnits } from '../../src/output/massText.js';
 import { parseMassMomentUnit, parseMassUnit } from '../../src/model/massUnits.js';
@@ -22,6 +23,28 @@ export function massUnits(flags: { massUnit?: string; inertiaUnit?: string }): M
   };
 }
 
-export function readOptions(flags: { format?: string; units?: string }): ReadOptions {
-  return checkReadOptions(flags.format, flags.units);
+export interface DrawingFlags {
+  format?: string; units?: string; unitsOverride?: boolean; cutLayers?: string; markLayers?: string; skipLayers?: string;
+  markColours?: string; unite?: boolean; onePart?: boolean; sheetBorder?: string; joinTolerance?: number;
+}
+
+const list = (v: string | undefined) => (v === undefined ? undefined : v.split(',').map((s) => s.trim()).filter((s) => s.length > 0));
+
+/** The drawing options of every reading command (cli/options.ts addDrawingOptions) as library read options. */
+export function readOptions(flags: DrawingFlags): ReadOptions {
+  const base = checkReadOptions(flags.format, flags.units);
+  if (flags.sheetBorder !== undefined && !['refuse', 'skip', 'part'].includes(flags.sheetBorder)) {
+    throw new InputError('--sheet-border', `expected refuse, skip or part, got "${flags.sheetBorder}"`);
+  }
+  if (flags.joinTolerance !== undefined && !(flags.joinTolerance >= 0 && Number.isFinite(flags.joinTolerance))) {
+    throw new InputError('--join-tolerance', `expected a length of 0 or more in drawing units, got ${flags.joinTolerance}`);
+  }
+  if (flags.unitsOverride && flags.units === undefined) throw new InputError('--units-override', 'goes with --units; give the unit to use');
+  const colours = list(flags.markColours)?.map((c) => (/^\d+$/.test(c) ? Number(c) : c));
+  return {
+    ...base,
+    unitsOverride: flags.unitsOverride, cutLayers: list(flags.cutLayers), markLayers: list(flags.markLayers),
+    skipLayers: list(flags.skipLayers), markColours: colours, unite: flags.unite, onePart: flags.onePart,
+    sheetBorder: flags.sheetBorder as ReadOptions['sheetBorder'], joinTolerance: flags.joinTolerance,
+  };
 }

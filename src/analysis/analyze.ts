@@ -17,6 +17,7 @@ import {
   constantPlate, hasPlateData, resolveLayers,
 } from '../model/plate.js';
 import type { SettingWarning } from '../model/settings.js';
+import type { InterpretationSummary } from '../read/interpret.js';
 import { type FabricationFigures, fabricationFigures } from '../properties/fabrication.js';
 import type { Quantity } from '../properties/quantities.js';
 import { type MeasureOptions, type SectionResult, type SectionWarning, measureSection } from './measure.js';
@@ -74,6 +75,8 @@ export interface PartReport {
   quantities: Record<string, Quantity>;
   warnings: AnalysisWarning[];
   cautions: Caution[];
+  /** How the drawing was read (drawings only): counts, reasons, units with their source, marking per part. */
+  interpretation?: InterpretationSummary;
 }
 
 function largestExtent(s: SectionResult): number {
@@ -81,7 +84,7 @@ function largestExtent(s: SectionResult): number {
   return Math.max(q.width.value, q.height.value);
 }
 
-export function analyzePart(model: PlateModel, request: AnalysisRequest = {}): PartReport {
+export function analyzePart(model: PlateModel & { interpretation?: InterpretationSummary }, request: AnalysisRequest = {}): PartReport {
   const massMode = request.mass ?? 'optional';
   const layers: LayerReport[] = model.layers.map((l) => ({ name: l.name, section: measureSection(l.part, request.section) }));
   const section = layers[0].section;
@@ -131,6 +134,6 @@ export function analyzePart(model: PlateModel, request: AnalysisRequest = {}): P
   if (mass || fabrication?.quantities.netMass) cautions.push('mass');
   return {
     part: model.name, units: model.units, unitSource: model.unitSource, layered: model.layered,
-    layers, section, mass, fabrication, plate, missing, quantities, warnings, cautions,
+    layers, section, mass, fabrication, plate, missing, quantities, warnings, cautions, interpretation: model.interpretation,
   };
 }

@@ -13,12 +13,15 @@ import { explainMissing, needsPlate, partSize } from '../qa/compute.js';
 import { type Reference, readReference } from '../qa/reference.js';
 import { type ComparisonRow, type Verdict, compareAll } from '../qa/verdict.js';
 import { readModels } from '../read/models.js';
+import type { ReadOptions } from '../read/read.js';
 import type { Job } from './manifest.js';
 
 export interface JobSettings {
   /** Command-line plate settings: they fill only what neither the part file nor the row states. */
   defaults: PlateSettings;
   materials?: MaterialTable;
+  /** How drawings are read (the command line's drawing options); a row's own format and units win. */
+  read?: ReadOptions;
   degree?: number;
   levels?: number;
 }
@@ -67,7 +70,7 @@ export function runJob(job: Job, settings: JobSettings): BatchRow[] {
   let parts: PlateModel[];
   try {
     const input = readInputText(job.path);
-    parts = readModels(input.text, job.file, { format: job.format, units: job.units });
+    parts = readModels(input.text, job.file, { ...settings.read, format: job.format ?? settings.read?.format, units: job.units ?? settings.read?.units });
     if (job.reference) {
       const rt = readInputText(job.reference.path);
       reference = readReference(rt.text, job.reference.label);

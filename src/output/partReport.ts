@@ -4,10 +4,11 @@
  * fabrication figures when computed, warnings, the unit's source, cautions once each.
  */
 import type { PartReport } from '../analysis/analyze.js';
+import { GEOMETRY_CAUTION } from './cautions.js';
 import { fabricationJson, fabricationText } from './fabricationText.js';
 import { type MassUnits, massJson, massText } from './massText.js';
 import { sectionJson, sectionText } from './text.js';
-import { unitSourceText, warningJson, warningText } from './words.js';
+import { interpretationText, unitSourceText, warningJson, warningText } from './words.js';
 
 /** Warnings that are not the section's own (those print with their section). */
 function extraWarnings(r: PartReport) {
@@ -17,11 +18,13 @@ function extraWarnings(r: PartReport) {
 
 export function partReportText(r: PartReport, units: MassUnits): string {
   const out: string[] = [];
-  r.layers.forEach((l, i) => out.push(sectionText(l.section, i === r.layers.length - 1)));
-  if (r.unitSource !== 'file') out.push(`length unit ${r.units}: ${unitSourceText(r.unitSource)}\n`);
+  for (const l of r.layers) out.push(sectionText(l.section, false));
+  if (r.interpretation) out.push(interpretationText(r.interpretation, r.part).join('\n') + '\n');
+  else if (r.unitSource !== 'file') out.push(`length unit ${r.units}: ${unitSourceText(r.unitSource)}\n`);
   for (const w of extraWarnings(r)) out.push(`warning: ${warningText(w)}\n`);
   if (r.mass) out.push(massText(r.mass, units));
   if (r.fabrication) out.push(fabricationText(r.fabrication, r.units, r.plate, r.mass === undefined));
+  out.push(GEOMETRY_CAUTION + '\n');
   return out.join('\n');
 }
 
@@ -33,6 +36,11 @@ export function partReportJson(r: PartReport, units: MassUnits): Record<string, 
   doc.units = { ...(doc.units as Record<string, unknown>), lengthSource: r.unitSource };
   const extra = extraWarnings(r);
   if (extra.length > 0) doc.warnings = [...(doc.warnings as unknown[]), ...extra.map(warningJson)];
+  if (r.interpretation) {
+    const mine = r.interpretation.parts.find((p) => p.name === r.part);
+    doc.interpretation = { ...r.interpretation, messages: interpretationText(r.interpretation, r.part) };
+    if (mine) doc.markingLength = mine.markingLength;
+  }
   if (r.mass) doc.massProperties = massJson(r.mass, units);
   if (r.fabrication) doc.fabrication = fabricationJson(r.fabrication, r.units, r.plate);
   return doc;

@@ -4,6 +4,7 @@
  */
 import type { AnalysisWarning } from '../analysis/analyze.js';
 import type { IntegralWarning } from '../analysis/plate.js';
+import type { InterpretationSummary, InterpretationWarning } from '../read/interpret.js';
 import type { DensityOrigin, UnitSource } from '../model/plate.js';
 import { formatNumber } from './text.js';
 
@@ -57,4 +58,44 @@ export function integralWarningText(w: IntegralWarning): string {
     case 'integral-estimate-large':
       return `the estimate of ∫ f dA is ${(100 * w.estimate / Math.abs(w.value)).toPrecision(2)}% of its value: ${ROUGH}.`;
   }
+}
+
+const INTERPRETATION_WARNINGS: Record<InterpretationWarning, string> = {
+  'units-assumed': 'the drawing states no length unit: coordinates were read as CSS pixels (1 px = 25.4/96 mm); give --units if that is wrong',
+  'hidden-content': 'hidden content (hidden layers or elements, layers switched off or frozen) was ignored, never cut',
+  'duplicates-removed': 'contours drawn twice were found: each duplicate was removed and measured once',
+  'foreign-content': 'elements outside the SVG namespace were ignored',
+  'text-ignored': 'text in the drawing was ignored (it is not cut)',
+  'marking-outside': 'a marking line lies outside the material',
+  'shapes-united': 'overlapping shapes were united (--unite)',
+  'open-contour-on-cut-layer': 'an open contour on a cut layer was taken as a marking line, not a cut',
+  'css-selector-unsupported': 'a style rule with a selector that could not be matched was ignored',
+  'sheet-border-skipped': 'a border around the parts was skipped (--sheet-border skip)',
+};
+
+export function interpretationWarningText(w: InterpretationWarning): string {
+  return INTERPRETATION_WARNINGS[w];
+}
+
+const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
+
+/** One line saying how the drawing was read: what was cut, marking and ignored, with reasons. */
+export function interpretationText(s: InterpretationSummary, part?: string): string[] {
+  const reasons = (o: Record<string, number | undefined>) => Object.entries(o).filter(([, n]) => n).map(([k, n]) => `${k} ${n}`).join(', ');
+  const ignored = Object.values(s.ignored).reduce((a, b) => a + b, 0);
+  const marks = Object.values(s.markingBy).reduce((a: number, b) => a + (b ?? 0), 0);
+  const lines = [
+    `read as (${s.format}): ${plural(s.outlines, 'outline')}, ${plural(s.cutouts, 'cut-out')}, ${marks} marking${marks ? ` (${reasons(s.markingBy)})` : ''}, ` +
+      `${ignored} ignored${ignored ? ` (${reasons(s.ignored)})` : ''}${s.duplicates.length ? `, ${plural(s.duplicates.length, 'duplicate')} removed` : ''}`,
+    `length unit ${s.units.unit}: ${unitSourceText(s.units.source)}`,
+  ];
+  const mine = s.parts.find((p) => p.name === part);
+  if (mine && mine.markings > 0) lines.push(`marking length of this part: ${formatNumber(mine.markingLength)} ${s.units.unit} (${plural(mine.markings, 'marking line')})`);
+  if (s.gapsClosed.length > 0) {
+    const big = Math.max(...s.gapsClosed.map((g) => g.gap));
+    lines.push(`joined: ${plural(s.gapsClosed.length, 'gap')} between loose ends closed (largest ${formatNumber(big, 3)} ${s.units.unit}, join tolerance ${formatNumber(s.tolerance, 3)} ${s.units.unit})`);
+  }
+  for (const d of s.duplicates) lines.push(`duplicate removed: ${d.where}${d.layer ? ` (layer ${d.layer})` : ''} repeats ${d.duplicateOf}`);
+  for (const w of s.warnings) lines.push(`warning: ${interpretationWarningText(w)}`);
+  return lines;
 }

@@ -81,6 +81,8 @@ export interface InterpretationSummary {
   markingOutside: string[];
   /** The tolerance used for duplicates and touching (drawing units). */
   tolerance: number;
+  /** Gaps between loose ends that joining closed (DXF), each with its place and size. */
+  gapsClosed: { x: number; y: number; gap: number; where: string; layer?: string }[];
   parts: { name: string; outlines: number; cutouts: number; markings: number; markingLength: number }[];
   warnings: InterpretationWarning[];
 }
@@ -199,6 +201,19 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
   const markingBy: Partial<Record<MarkingReason, number>> = {};
   const warnings = new Set<InterpretationWarning>();
   const cut: Item[] = [], mark: Item[] = [];
+
+  // 0. joints that almost meet: an outline with a gap just over the join tolerance is never taken silently as a
+  //    marking line (that would drop the plate's material); a gap on a marking or skipped layer does not matter
+  for (const g of drawing.join?.gaps ?? []) {
+    if (g.closed || !(g.gap > 0)) continue;
+    const lay = g.layer?.toLowerCase();
+    if (lay !== undefined && (skipLayers?.has(lay) || (markLayers ? markLayers.has(lay) : isDefaultMarkLayer(g.layer!)))) continue;
+    if (cutLayers && !(lay !== undefined && cutLayers.has(lay))) continue;
+    const tol = drawing.join!.tolerance;
+    throw new InputError(g.where + (g.layer !== undefined ? ` (layer ${g.layer})` : ''),
+      `the contour is open: two ends are ${fmt(g.gap)} apart near (${fmt(g.x)}, ${fmt(g.y)}), more than the join tolerance ${fmt(tol)}; close the gap in the drawing, or give --join-tolerance ${fmt(g.gap * 1.5)} to join it`);
+  }
+  const gapsClosed = (drawing.join?.gaps ?? []).filter((g) => g.closed);
 
   // 1. roles
   const layerOpen = new Map<string, DrawnContour>(), layerClosed = new Map<string, DrawnContour>();
@@ -476,6 +491,7 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
     united,
     markingOutside,
     tolerance: tol,
+    gapsClosed: gapsClosed.map((g) => ({ x: g.x, y: g.y, gap: g.gap, where: g.where, layer: g.layer })),
     parts: partNotes,
     warnings: [...warnings].sort(),
   };
