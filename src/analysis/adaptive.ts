@@ -25,6 +25,7 @@ import { ops } from '../geometry/segments.js';
 import { type Mesh, TriangleMap } from '../mesh/mesh.js';
 import { SAFE_DEGREES, getRule } from '../quadrature/rules.js';
 import { InputError } from '../base/errors.js';
+import { addCompensated } from '../numeric/sum.js';
 
 /**
  * Fill `out` (length K) with the integrands at a point. (x, y) are part coordinates; (lx, ly) the same point
@@ -250,11 +251,7 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
   const totals = () => {
     const cf = new Float64Array(K), cc = new Float64Array(K);
     fine.fill(0); coarse.fill(0); estimate.fill(0); scale.fill(0);
-    const add = (sum: Float64Array, comp: Float64Array, k: number, v: number) => {
-      const s = sum[k], t = s + v;
-      comp[k] += Math.abs(s) >= Math.abs(v) ? (s - t) + v : (v - t) + s;
-      sum[k] = t;
-    };
+    const add = addCompensated;
     for (const t of leaves) {
       const c = firstChild[t];
       for (let k = 0; k < K; k++) {

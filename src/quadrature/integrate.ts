@@ -6,6 +6,7 @@
  */
 import { type Mesh, TriangleMap } from '../mesh/mesh.js';
 import { type TriangleRule, getRule, safeDegreeAtLeast } from './rules.js';
+import { addCompensated } from '../numeric/sum.js';
 
 export type Integrand = (x: number, y: number) => number;
 
@@ -81,13 +82,7 @@ export function integrate(mesh: Mesh, opts: IntegrateOptions): Integrals {
       for (let f = 0; f < fns.length; f++) local[MOMENT_COUNT + f] += wj * fns[f](x + ox, y + oy);
     }
     points += n;
-    for (let k = 0; k < K; k++) {
-      const v = local[k];
-      const s = sum[k];
-      const tt = s + v;
-      comp[k] += Math.abs(s) >= Math.abs(v) ? (s - tt) + v : (v - tt) + s;
-      sum[k] = tt;
-    }
+    for (let k = 0; k < K; k++) addCompensated(sum, comp, k, local[k]);
     if (per) per.set(local, t * K);
   }
   for (let k = 0; k < K; k++) sum[k] += comp[k];
