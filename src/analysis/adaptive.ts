@@ -28,6 +28,7 @@ import { type PointFunction, integrateTriangle, makeKernel } from '../quadrature
 import { SAFE_DEGREES, getRule } from '../quadrature/rules.js';
 import type { StopReason } from '../quadrature/stop.js';
 import { InputError } from '../base/errors.js';
+import { addCompensated } from '../numeric/sum.js';
 
 export type { PointFunction } from '../quadrature/integrate.js';
 
@@ -165,11 +166,7 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
   const totals = () => {
     const cf = new Float64Array(K), cc = new Float64Array(K);
     fine.fill(0); coarse.fill(0); estimate.fill(0); scale.fill(0);
-    const add = (sum: Float64Array, comp: Float64Array, k: number, v: number) => {
-      const s = sum[k], t = s + v;
-      comp[k] += Math.abs(s) >= Math.abs(v) ? (s - t) + v : (v - t) + s;
-      sum[k] = t;
-    };
+    const add = addCompensated;
     for (const t of leaves) {
       const c = firstChild[t];
       for (let k = 0; k < K; k++) {

@@ -29,7 +29,6 @@ function polygonClipping(): PolygonClipping {
   return (clipperModule ??= createRequire(import.meta.url)('polygon-clipping') as PolygonClipping);
 }
 import { InputError, MethodError } from '../base/errors.js';
-import { bezierSubCurve } from './curves.js';
 import { pointInLoop } from './nesting.js';
 import { type Loop, type Region, loopBox, loopLength, loopSignedArea } from './part.js';
 import { type Out2, type Segment, ops, segmentPoint } from './segments.js';
@@ -84,29 +83,7 @@ export function subSegment(s: Segment, a: number, b: number): Segment {
   if (a > b) return ops(s).reverse(subSegment(s, b, a));
   if (a <= 0 && b >= 1) return s;
   a = Math.max(0, a); b = Math.min(1, b);
-  switch (s.kind) {
-    case 'line': {
-      const p = a === 0 ? [s.x0, s.y0] : segmentPoint(s, a);
-      const q = b === 1 ? [s.x1, s.y1] : segmentPoint(s, b);
-      return { kind: 'line', x0: p[0], y0: p[1], x1: q[0], y1: q[1] };
-    }
-    case 'arc': {
-      const d = s.a1 - s.a0;
-      return { ...s, a0: a === 0 ? s.a0 : s.a0 + d * a, a1: b === 1 ? s.a1 : s.a0 + d * b };
-    }
-    case 'ellipticalArc': {
-      const d = s.t1 - s.t0;
-      return { ...s, t0: a === 0 ? s.t0 : s.t0 + d * a, t1: b === 1 ? s.t1 : s.t0 + d * b };
-    }
-    case 'quadratic': {
-      const [x, y] = bezierSubCurve([s.x0, s.x1, s.x2], [s.y0, s.y1, s.y2], a, b);
-      return { kind: 'quadratic', x0: x[0], y0: y[0], x1: x[1], y1: y[1], x2: x[2], y2: y[2] };
-    }
-    case 'cubic': {
-      const [x, y] = bezierSubCurve([s.x0, s.x1, s.x2, s.x3], [s.y0, s.y1, s.y2, s.y3], a, b);
-      return { kind: 'cubic', x0: x[0], y0: y[0], x1: x[1], y1: y[1], x2: x[2], y2: y[2], x3: x[3], y3: y[3] };
-    }
-  }
+  return ops(s).sub(s, a, b);
 }
 
 // -------------------------------------------------------------------------------------------------
@@ -453,8 +430,9 @@ function dropTiny(segs: Segment[], tiny: number): Segment[] {
     const pi = (i + out.length - 1) % out.length, ni = i % out.length;
     const prev = out[pi], next = out[ni];
     const end = segmentPoint(prev, 1), start = segmentPoint(next, 0);
-    if (prev.kind === 'line') out[pi] = { ...prev, x1: start[0], y1: start[1] };
-    else if (next.kind === 'line') out[ni] = { ...next, x0: end[0], y0: end[1] };
+    const po = ops(prev), no = ops(next);
+    if (po.straight) out[pi] = po.moveEnd(prev, start[0], start[1]) ?? prev;
+    else if (no.straight) out[ni] = no.moveStart(next, end[0], end[1]) ?? next;
   }
   return out;
 }

@@ -20,6 +20,7 @@
  * the second covers the round-off of end points the readers compute (cos/sin of arc angles, bulge centres,
  * block transforms: each a few ulps of the coordinates' magnitude) at site coordinates far from the origin.
  */
+import { exactOverlap } from './kinds/index.js';
 import { overlappingPairs } from './boxgrid.js';
 import { type Segment, ops, segmentEnd, segmentPoint, segmentStart } from './segments.js';
 
@@ -275,10 +276,13 @@ function closeChain(segs: Segment[], tol: number, issues: JoinIssue[], lastPiece
   if (d === 0) return;
   const last = segs[segs.length - 1];
   const ro = roundoffOf(a[0], a[1]);
-  if (last.kind === 'line' && !(segs.length === 1)) {
-    segs[segs.length - 1] = { ...last, x1: b[0], y1: b[1] };
-  } else if (first.kind === 'line' && !(segs.length === 1)) {
-    segs[0] = { ...first, x0: a[0], y0: a[1] };
+  // straight ends move to meet (curves never move): the kinds say which can (moveEnd/moveStart)
+  const movedEnd = segs.length > 1 ? ops(last).moveEnd(last, b[0], b[1]) : null;
+  const movedStart = movedEnd === null && segs.length > 1 ? ops(first).moveStart(first, a[0], a[1]) : null;
+  if (movedEnd) {
+    segs[segs.length - 1] = movedEnd;
+  } else if (movedStart) {
+    segs[0] = movedStart;
   } else {
     if (d <= ro) return; // curve ends agree to round-off: nothing to bridge
     segs.push({ kind: 'line', x0: a[0], y0: a[1], x1: b[0], y1: b[1] });
@@ -295,11 +299,13 @@ function joint(segs: Segment[], next: Segment, tol: number, issues: JoinIssue[],
   const d = Math.hypot(b[0] - a[0], b[1] - a[1]);
   if (d === 0) { segs.push(next); return; }
   const ro = roundoffOf(a[0], a[1]);
-  if (last.kind === 'line') {
-    segs[segs.length - 1] = { ...last, x1: b[0], y1: b[1] };
+  const movedEnd = ops(last).moveEnd(last, b[0], b[1]);
+  const movedStart = movedEnd === null ? ops(next).moveStart(next, a[0], a[1]) : null;
+  if (movedEnd) {
+    segs[segs.length - 1] = movedEnd;
     segs.push(next);
-  } else if (next.kind === 'line') {
-    segs.push({ ...next, x0: a[0], y0: a[1] });
+  } else if (movedStart) {
+    segs.push(movedStart);
   } else {
     if (d <= ro) { segs.push(next); return; } // curve ends agree to round-off
     segs.push({ kind: 'line', x0: a[0], y0: a[1], x1: b[0], y1: b[1] }, next);
@@ -332,7 +338,7 @@ function findOverlaps(pieces: readonly JoinPiece[], dropped: Uint8Array, layerId
   for (let i = 0; i < pieces.length; i++) {
     if (dropped[i]) continue;
     const s = pieces[i].segments;
-    for (let k = 0; k < s.length; k++) if (s[k].kind === 'line' || s[k].kind === 'arc') { segPiece.push(i); segIndex.push(k); }
+    for (let k = 0; k < s.length; k++) if (ops(s[k]).overlap !== undefined) { segPiece.push(i); segIndex.push(k); }
   }
   const m = segPiece.length;
   if (m < 2) return;
@@ -347,8 +353,7 @@ function findOverlaps(pieces: readonly JoinPiece[], dropped: Uint8Array, layerId
     const i = segPiece[u], j = segPiece[v];
     if (layerId[i] !== layerId[j]) return;
     const s = pieces[i].segments[segIndex[u]], t = pieces[j].segments[segIndex[v]];
-    const o = s.kind === 'line' && t.kind === 'line' ? lineOverlap(s, t, tol)
-      : s.kind === 'arc' && t.kind === 'arc' ? arcOverlap(s, t, tol) : undefined;
+    const o = exactOverlap(s, t, tol);
     if (!o) return;
     const key = i < j ? `${i},${j}` : `${j},${i}`;
     if (seen.has(key)) return;
@@ -357,32 +362,4 @@ function findOverlaps(pieces: readonly JoinPiece[], dropped: Uint8Array, layerId
   });
 }
 
-/** Shared stretch of two collinear lines: [x, y of its middle, length], or undefined. */
-function lineOverlap(s: Extract<Segment, { kind: 'line' }>, t: Extract<Segment, { kind: 'line' }>, tol: number): [number, number, number] | undefined {
-  const dx = s.x1 - s.x0, dy = s.y1 - s.y0, L = Math.hypot(dx, dy);
-  if (L === 0) return undefined;
-  const ux = dx / L, uy = dy / L;
-  const off0 = (t.x0 - s.x0) * -uy + (t.y0 - s.y0) * ux;
-  const off1 = (t.x1 - s.x0) * -uy + (t.y1 - s.y0) * ux;
-  if (Math.abs(off0) > tol || Math.abs(off1) > tol) return undefined;
-  const p0 = (t.x0 - s.x0) * ux + (t.y0 - s.y0) * uy, p1 = (t.x1 - s.x0) * ux + (t.y1 - s.y0) * uy;
-  const lo = Math.max(0, Math.min(p0, p1)), hi = Math.min(L, Math.max(p0, p1));
-  if (hi - lo <= tol) return undefined;
-  const mid = (lo + hi) / 2;
-  return [s.x0 + ux * mid, s.y0 + uy * mid, hi - lo];
-}
 
-function arcOverlap(s: Extract<Segment, { kind: 'arc' }>, t: Extract<Segment, { kind: 'arc' }>, tol: number): [number, number, number] | undefined {
-  if (Math.hypot(s.cx - t.cx, s.cy - t.cy) > tol || Math.abs(s.r - t.r) > tol) return undefined;
-  const TWO_PI = 2 * Math.PI;
-  let aLo = Math.min(s.a0, s.a1); const aLen = Math.abs(s.a1 - s.a0);
-  let bLo = Math.min(t.a0, t.a1); const bLen = Math.abs(t.a1 - t.a0);
-  aLo -= TWO_PI * Math.floor(aLo / TWO_PI); bLo -= TWO_PI * Math.floor(bLo / TWO_PI);
-  let best = 0, bestMid = 0;
-  for (let k = -1; k <= 1; k++) {
-    const lo = Math.max(aLo, bLo + k * TWO_PI), hi = Math.min(aLo + aLen, bLo + k * TWO_PI + bLen);
-    if (hi - lo > best) { best = hi - lo; bestMid = (lo + hi) / 2; }
-  }
-  if (best * s.r <= tol) return undefined;
-  return [s.cx + s.r * Math.cos(bestMid), s.cy + s.r * Math.sin(bestMid), best * s.r];
-}

@@ -13,56 +13,7 @@
 import { overlappingPairs } from './boxgrid.js';
 import type { Loop, Region } from './part.js';
 import { loopBox, loopSignedArea } from './part.js';
-import { type Box, type Out2, type Segment, ops, segmentEnd, segmentPoint, segmentStart } from './segments.js';
-
-/** x where a y-monotone piece [ta, tb] of a segment meets the horizontal line at height y (y within its range). */
-function crossingX(s: Segment, ta: number, tb: number, y: number): number {
-  switch (s.kind) {
-    case 'line': {
-      const t = (y - s.y0) / (s.y1 - s.y0);
-      return s.x0 + (s.x1 - s.x0) * t;
-    }
-    case 'arc': {
-      // the piece lies on one side of the vertical through the centre: take the sign of cos at its middle
-      const am = s.a0 + (s.a1 - s.a0) * ((ta + tb) / 2);
-      const dy = y - s.cy;
-      const h = Math.sqrt(Math.max(0, s.r * s.r - dy * dy));
-      return s.cx + (Math.cos(am) >= 0 ? h : -h);
-    }
-    case 'ellipticalArc': {
-      // y(θ) = cy + Y sin(θ + δ) with Y = hypot(rx sin φ, ry cos φ), δ = atan2(rx sin φ, ry cos φ)
-      const sp = Math.sin(s.phi), cp = Math.cos(s.phi);
-      const Y = Math.hypot(s.rx * sp, s.ry * cp);
-      const delta = Math.atan2(s.rx * sp, s.ry * cp);
-      const thm = s.t0 + (s.t1 - s.t0) * ((ta + tb) / 2);
-      const um = thm + delta; // on this piece u = θ + δ stays within one half period where sin is monotone
-      let u = Math.asin(Math.max(-1, Math.min(1, (y - s.cy) / Y)));
-      if (Math.cos(um) < 0) u = Math.PI - u;
-      u += 2 * Math.PI * Math.round((um - u) / (2 * Math.PI));
-      const th = u - delta;
-      const c = s.rx * Math.cos(th), d = s.ry * Math.sin(th);
-      return s.cx + cp * c - sp * d;
-    }
-    default: {
-      // Bézier: bisection on the monotone piece, then the point
-      const p: Out2 = [0, 0];
-      const o = ops(s);
-      o.point(s, ta, p);
-      const ya = p[1];
-      o.point(s, tb, p);
-      const up = p[1] > ya;
-      let lo = ta, hi = tb;
-      for (let i = 0; i < 200 && hi - lo > 0; i++) {
-        const mid = (lo + hi) / 2;
-        if (mid <= lo || mid >= hi) break;
-        o.point(s, mid, p);
-        if ((p[1] < y) === up) lo = mid; else hi = mid;
-      }
-      o.point(s, (lo + hi) / 2, p);
-      return p[0];
-    }
-  }
-}
+import { type Box, type Segment, ops, segmentEnd, segmentPoint, segmentStart } from './segments.js';
 
 interface Piece { s: Segment; ta: number; tb: number; ya: number; yb: number; xMax: number }
 
@@ -126,7 +77,7 @@ function insidePrepared(x: number, y: number, P: Prepared): boolean {
     // half-open rule: a piece counts when y lies in [min, max) of its end heights
     const crosses = (q.ya <= y && y < q.yb) || (q.yb <= y && y < q.ya);
     if (!crosses || q.xMax < x) continue;
-    if (crossingX(q.s, q.ta, q.tb, y) > x) inside = !inside;
+    if (ops(q.s).crossingX(q.s, q.ta, q.tb, y) > x) inside = !inside;
   }
   return inside;
 }

@@ -5,6 +5,7 @@
  * After `normalizePart`, outer loops run counter-clockwise and holes clockwise.
  */
 import type { LengthUnit } from '../base/units.js';
+import { CompensatedSum } from '../numeric/sum.js';
 import { type Box, type Segment, ops } from './segments.js';
 
 export interface Loop {
@@ -30,15 +31,9 @@ export interface Part {
 
 /** Signed area enclosed by a loop (positive when counter-clockwise), exact for lines and arcs. */
 export function loopSignedArea(loop: Loop): number {
-  let a = 0;
-  let c = 0; // Neumaier compensation
-  for (const s of loop.segments) {
-    const v = ops(s).areaTerm(s);
-    const t = a + v;
-    c += Math.abs(a) >= Math.abs(v) ? (a - t) + v : (v - t) + a;
-    a = t;
-  }
-  return a + c;
+  const a = new CompensatedSum();
+  for (const s of loop.segments) a.add(ops(s).areaTerm(s));
+  return a.value;
 }
 
 export function reverseLoop(loop: Loop): Loop {

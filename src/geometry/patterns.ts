@@ -12,7 +12,6 @@
  */
 import type { Loop } from './part.js';
 import { type Segment, ops } from './segments.js';
-import { transformSegment } from './transform.js';
 
 export interface GridPattern {
   start: [number, number];
@@ -77,15 +76,7 @@ export function placeLoop(loop: Loop, x: number, y: number, deg = 0, where?: str
   const turn = deg !== 0;
   const segs = loop.segments.map((seg): Segment => {
     if (!turn) return ops(seg).translate(seg, x, y);
-    if (seg.kind === 'line') {
-      return { kind: 'line', x0: x + c * seg.x0 - s * seg.y0, y0: y + s * seg.x0 + c * seg.y0, x1: x + c * seg.x1 - s * seg.y1, y1: y + s * seg.x1 + c * seg.y1 };
-    }
-    if (seg.kind === 'arc') {
-      // keep the radius exact; angles shift by the turn
-      const a = (deg * Math.PI) / 180;
-      return { kind: 'arc', cx: x + c * seg.cx - s * seg.cy, cy: y + s * seg.cx + c * seg.cy, r: seg.r, a0: seg.a0 + a, a1: seg.a1 + a };
-    }
-    return transformSegment(seg, [c, s, -s, c, x, y]);
+    return ops(seg).rotate(seg, c, s, (deg * Math.PI) / 180, x, y);
   });
   return { segments: segs, where: where ?? loop.where };
 }

@@ -3,14 +3,16 @@
  * outline and apart from each other, regions do not overlap. Problems are InputErrors naming the loop's
  * `where` and the place (coordinates) where it happens.
  *
- * Intersections are exact (closed form) for line/line, line/arc and arc/arc pairs; other curve kinds use
- * recursive subdivision on the exact curve down to the touching tolerance.
+ * Intersections are exact (closed form) for the pairs of kinds whose ops list one (`crossings`: today
+ * line/line, line/arc and arc/arc); other pairs use recursive subdivision on the exact curve down to the
+ * touching tolerance.
  */
 import { InputError } from '../base/errors.js';
 import { overlappingPairs } from './boxgrid.js';
 import { pointInLoop } from './nesting.js';
 import { type Loop, type Part, type Region, loopSignedArea, partBox } from './part.js';
-import { type ArcSegment, type Box, type LineSegment, type Segment, ops, segmentEnd, segmentPoint, segmentStart } from './segments.js';
+import { lineLineCrossings } from './kinds/line.js';
+import { type Box, type Crossing, type LineSegment, type Segment, exactCrossings, ops, segmentEnd, segmentPoint, segmentStart } from './segments.js';
 
 interface SegRef {
   seg: Segment;
@@ -18,7 +20,7 @@ interface SegRef {
   index: number;
 }
 
-interface Hit { x: number; y: number; ta: number; tb: number }
+type Hit = Crossing;
 
 const fmt = (v: number) => Number(v.toPrecision(6)).toString();
 const at = (x: number, y: number) => `(${fmt(x)}, ${fmt(y)})`;
@@ -154,101 +156,7 @@ function checkPair(a: SegRef, b: SegRef, loops: Loop[], tol: number): void {
  * closed form the search stops at its first hit; hits where `ignore` is true do not count there.
  */
 export function intersect(a: Segment, b: Segment, tol: number, ignore?: (x: number, y: number) => boolean): Hit[] {
-  if (a.kind === 'line' && b.kind === 'line') return lineLine(a, b, tol);
-  if (a.kind === 'line' && b.kind === 'arc') return lineArc(a, b, tol);
-  if (a.kind === 'arc' && b.kind === 'line') return lineArc(b, a, tol).map((h) => ({ ...h, ta: h.tb, tb: h.ta }));
-  if (a.kind === 'arc' && b.kind === 'arc') return arcArc(a, b, tol);
-  return generic(a, 0, 1, b, 0, 1, tol, 0, ignore);
-}
-
-function lineLine(a: LineSegment, b: LineSegment, tol: number): Hit[] {
-  const dx = a.x1 - a.x0, dy = a.y1 - a.y0, ex = b.x1 - b.x0, ey = b.y1 - b.y0;
-  const la = Math.hypot(dx, dy), lb = Math.hypot(ex, ey);
-  const den = dx * ey - dy * ex;
-  const wx = b.x0 - a.x0, wy = b.y0 - a.y0;
-  if (Math.abs(den) <= 1e-14 * la * lb) {
-    // parallel: touching only if collinear within tol and overlapping
-    const dist = Math.abs(wx * dy - wy * dx) / la;
-    if (dist > tol) return [];
-    const t0 = (wx * dx + wy * dy) / (la * la);
-    const t1 = ((b.x1 - a.x0) * dx + (b.y1 - a.y0) * dy) / (la * la);
-    const lo = Math.max(0, Math.min(t0, t1)), hi = Math.min(1, Math.max(t0, t1));
-    if (hi < lo - tol / la) return [];
-    const t = (lo + hi) / 2;
-    return [{ x: a.x0 + dx * t, y: a.y0 + dy * t, ta: t, tb: 0 }];
-  }
-  const ta = (wx * ey - wy * ex) / den;
-  const tb = (wx * dy - wy * dx) / den;
-  const ea = tol / la, eb = tol / lb;
-  if (ta < -ea || ta > 1 + ea || tb < -eb || tb > 1 + eb) return [];
-  return [{ x: a.x0 + dx * ta, y: a.y0 + dy * ta, ta, tb }];
-}
-
-const TWO_PI = 2 * Math.PI;
-/** Parameter of angle `ang` on an arc, or NaN when outside its sweep (with angular slack `slack`). */
-function arcParam(s: ArcSegment, ang: number, slack: number): number {
-  const d = s.a1 - s.a0;
-  let rel = (ang - s.a0) * Math.sign(d);
-  rel = ((rel % TWO_PI) + TWO_PI) % TWO_PI;
-  const span = Math.abs(d);
-  if (rel <= span + slack) return rel / span;
-  if (rel >= TWO_PI - slack) return (rel - TWO_PI) / span;
-  return NaN;
-}
-
-function lineArc(a: LineSegment, c: ArcSegment, tol: number): Hit[] {
-  const dx = a.x1 - a.x0, dy = a.y1 - a.y0;
-  const L = Math.hypot(dx, dy);
-  const ux = dx / L, uy = dy / L;
-  // foot of the perpendicular from the centre
-  const s0 = (c.cx - a.x0) * ux + (c.cy - a.y0) * uy;
-  const fx = a.x0 + ux * s0, fy = a.y0 + uy * s0;
-  const h = Math.hypot(c.cx - fx, c.cy - fy);
-  if (h > c.r + tol) return [];
-  const half = h >= c.r - tol ? 0 : Math.sqrt(c.r * c.r - h * h);
-  const out: Hit[] = [];
-  const slack = tol / c.r;
-  for (const s of half === 0 ? [s0] : [s0 - half, s0 + half]) {
-    if (s < -tol || s > L + tol) continue;
-    const x = a.x0 + ux * s, y = a.y0 + uy * s;
-    const tb = arcParam(c, Math.atan2(y - c.cy, x - c.cx), slack);
-    if (Number.isNaN(tb)) continue;
-    out.push({ x, y, ta: s / L, tb });
-  }
-  return out;
-}
-
-function arcArc(a: ArcSegment, b: ArcSegment, tol: number): Hit[] {
-  const dx = b.cx - a.cx, dy = b.cy - a.cy;
-  const d = Math.hypot(dx, dy);
-  if (d > a.r + b.r + tol) return [];
-  if (d < Math.abs(a.r - b.r) - tol) return [];
-  const out: Hit[] = [];
-  if (d <= tol && Math.abs(a.r - b.r) <= tol) {
-    // same circle: overlapping sweeps touch
-    for (const t of [0, 0.5, 1]) {
-      const p = segmentPoint(b, t);
-      const ta = arcParam(a, Math.atan2(p[1] - a.cy, p[0] - a.cx), tol / a.r);
-      if (!Number.isNaN(ta)) out.push({ x: p[0], y: p[1], ta, tb: t });
-    }
-    for (const t of [0, 0.5, 1]) {
-      const p = segmentPoint(a, t);
-      const tb = arcParam(b, Math.atan2(p[1] - b.cy, p[0] - b.cx), tol / b.r);
-      if (!Number.isNaN(tb)) out.push({ x: p[0], y: p[1], ta: t, tb });
-    }
-    return out;
-  }
-  const along = (a.r * a.r - b.r * b.r + d * d) / (2 * d);
-  const h2 = a.r * a.r - along * along;
-  const h = h2 > 0 ? Math.sqrt(h2) : 0;
-  const mx = a.cx + dx * along / d, my = a.cy + dy * along / d;
-  const pts = h <= tol ? [[mx, my]] : [[mx - dy * h / d, my + dx * h / d], [mx + dy * h / d, my - dx * h / d]];
-  for (const [x, y] of pts) {
-    const ta = arcParam(a, Math.atan2(y - a.cy, x - a.cx), tol / a.r);
-    const tb = arcParam(b, Math.atan2(y - b.cy, x - b.cx), tol / b.r);
-    if (!Number.isNaN(ta) && !Number.isNaN(tb)) out.push({ x, y, ta, tb });
-  }
-  return out;
+  return exactCrossings(a, b, tol) ?? generic(a, 0, 1, b, 0, 1, tol, 0, ignore);
 }
 
 /** Subdivision on exact curves: boxes of sub-ranges are the chord's box grown by the curve's deviation. */
@@ -261,7 +169,7 @@ function generic(a: Segment, a0: number, a1: number, b: Segment, b0: number, b1:
     const la: LineSegment = { kind: 'line', x0: pa0[0], y0: pa0[1], x1: pa1[0], y1: pa1[1] };
     const lb: LineSegment = { kind: 'line', x0: pb0[0], y0: pb0[1], x1: pb1[0], y1: pb1[1] };
     if (ops(la).length(la) === 0 || ops(lb).length(lb) === 0) return [];
-    return lineLine(la, lb, tol).map((h) => ({ ...h, ta: a0 + (a1 - a0) * h.ta, tb: b0 + (b1 - b0) * h.tb })).filter((h) => !ignore?.(h.x, h.y));
+    return lineLineCrossings(la, lb, tol).map((h) => ({ ...h, ta: a0 + (a1 - a0) * h.ta, tb: b0 + (b1 - b0) * h.tb })).filter((h) => !ignore?.(h.x, h.y));
   }
   const am = (a0 + a1) / 2, bm = (b0 + b1) / 2;
   const out: Hit[] = [];

@@ -12,7 +12,7 @@
  *   S(t) = [γ(s0 + (s1 − s0)t) − ((1 − t)γ(s0) + tγ(s1))] / (t(1 − t)).
  * The bracket vanishes at both ends, so S is smooth and the Jacobian is smooth on the whole triangle.
  */
-import { type Segment, ops } from '../geometry/segments.js';
+import { type Segment, type SegmentOps, ops } from '../geometry/segments.js';
 
 /**
  * The shape every integration and subdivision routine reads: a structural type, not a class, so the
@@ -77,6 +77,8 @@ export class TriangleMap {
   curved = false;
   // per local edge: segment, parameters, curve end points
   private readonly seg: (Segment | null)[] = [null, null, null];
+  /** each curved edge's kind operations, looked up once per triangle (not per quadrature point) */
+  private readonly segOps: (SegmentOps<Segment> | null)[] = [null, null, null];
   private readonly s0 = new Float64Array(3);
   private readonly s1 = new Float64Array(3);
   private readonly g0 = new Float64Array(6);
@@ -96,13 +98,14 @@ export class TriangleMap {
     this.curved = false;
     for (let k = 0; k < 3; k++) {
       const rec = m.edgeCurve[3 * t + k];
-      if (rec < 0) { this.seg[k] = null; continue; }
+      if (rec < 0) { this.seg[k] = null; this.segOps[k] = null; continue; }
       this.curved = true;
       const s = m.segments[m.curveSeg[rec]];
       this.seg[k] = s;
       this.s0[k] = m.curveS0[rec];
       this.s1[k] = m.curveS1[rec];
       const o = ops(s);
+      this.segOps[k] = o;
       o.point(s, this.s0[k], this.p); this.g0[2 * k] = this.p[0]; this.g0[2 * k + 1] = this.p[1];
       o.point(s, this.s1[k], this.p); this.g1[2 * k] = this.p[0]; this.g1[2 * k + 1] = this.p[1];
     }
@@ -130,17 +133,7 @@ export class TriangleMap {
         const t = (1 + lb - la) / 2;
         const dtu = (dbu - dau) / 2, dtv = (dbv - dav) / 2;
         const s0 = this.s0[k], s1 = this.s1[k];
-        if (s.kind === 'arc') {
-          // inline circular arc: one cos/sin pair for point and derivative
-          const d = s.a1 - s.a0, ang = s.a0 + d * (s0 + (s1 - s0) * t);
-          const c = Math.cos(ang), sn = Math.sin(ang);
-          this.p[0] = s.cx + s.r * c; this.p[1] = s.cy + s.r * sn;
-          this.d[0] = -s.r * d * sn; this.d[1] = s.r * d * c;
-        } else {
-          const o = ops(s);
-          o.point(s, s0 + (s1 - s0) * t, this.p);
-          o.derivative(s, s0 + (s1 - s0) * t, this.d);
-        }
+        this.segOps[k]!.evaluate(s, s0 + (s1 - s0) * t, this.p, this.d);
         const gx0 = this.g0[2 * k], gy0 = this.g0[2 * k + 1], gx1 = this.g1[2 * k], gy1 = this.g1[2 * k + 1];
         const nx = this.p[0] - ((1 - t) * gx0 + t * gx1);
         const ny = this.p[1] - ((1 - t) * gy0 + t * gy1);

@@ -6,7 +6,7 @@ import type { AnalysisWarning } from '../analysis/analyze.js';
 import type { IntegralWarning } from '../analysis/plate.js';
 import type { InterpretationSummary, InterpretationWarning } from '../read/interpret.js';
 import type { DensityOrigin, UnitSource } from '../model/plate.js';
-import { formatNumber } from './text.js';
+import { formatNumber } from './numbers.js';
 
 const n = (v: number) => formatNumber(v, 6);
 

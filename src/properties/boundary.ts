@@ -8,10 +8,11 @@
  * (standard polygon moment formulas; holes run clockwise and subtract themselves).
  */
 import type { Part } from '../geometry/part.js';
+import { type Out2, ops } from '../geometry/segments.js';
 
-/** True when every segment of the part is a straight line. */
+/** True when every segment of the part is straight (its kind says so). */
 export function isStraightEdged(part: Part): boolean {
-  for (const r of part.regions) for (const l of [r.outer, ...r.holes]) for (const s of l.segments) if (s.kind !== 'line') return false;
+  for (const r of part.regions) for (const l of [r.outer, ...r.holes]) for (const s of l.segments) if (!ops(s).straight) return false;
   return true;
 }
 
@@ -24,7 +25,11 @@ export function isStraightEdged(part: Part): boolean {
 export function boundaryMoments(part: Part, origin: readonly [number, number]): Float64Array | null {
   if (!isStraightEdged(part)) return null;
   const sum = new Float64Array(6), comp = new Float64Array(6), loopSum = new Float64Array(6), loopComp = new Float64Array(6);
-  // Neumaier-compensated accumulation into (acc, cmp)
+  const p: Out2 = [0, 0], q: Out2 = [0, 0];
+  // Neumaier-compensated accumulation into (acc, cmp): the step of addCompensated (src/numeric/sum.ts), kept
+  // as a local closure on purpose. Measured on the 10^6-vertex straight plate of the benchmark, calling the
+  // imported helper here took boundaryMoments from about 130 ms to 210–380 ms (median of 15, Node 20); the
+  // closure keeps it at the old speed. Elsewhere (quadrature/integrate.ts) the helper measured no different.
   const add = (acc: Float64Array, cmp: Float64Array, k: number, v: number) => {
     const s = acc[k], t = s + v;
     cmp[k] += Math.abs(s) >= Math.abs(v) ? (s - t) + v : (v - t) + s;
@@ -37,8 +42,10 @@ export function boundaryMoments(part: Part, origin: readonly [number, number]): 
       loopSum.fill(0);
       loopComp.fill(0);
       for (const s of loops[li].segments) {
-        if (s.kind !== 'line') return null;
-        const x0 = s.x0 - ox, y0 = s.y0 - oy, x1 = s.x1 - ox, y1 = s.y1 - oy;
+        const o = ops(s);
+        if (!o.straight) return null;
+        o.start(s, p); o.end(s, q);
+        const x0 = p[0] - ox, y0 = p[1] - oy, x1 = q[0] - ox, y1 = q[1] - oy;
         const c = x0 * y1 - x1 * y0;
         add(loopSum, loopComp, 0, c / 2);
         add(loopSum, loopComp, 1, (x0 + x1) * c / 6);

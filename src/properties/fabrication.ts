@@ -3,11 +3,11 @@
  * bounding box and the minimum-area enclosing rectangle (the blank), and from these the blank mass and the
  * scrap fraction.
  *
- * Everything goes through the segment operations of src/geometry/segments.ts, so new segment kinds work:
+ * Everything goes through the segment operations (src/geometry/kinds/), so new segment kinds work:
  * - lengths use `ops.length`;
  * - the support function h(θ) = max over the boundary of ⟨p, (cos θ, sin θ)⟩ is exact for lines (end points)
- *   and circular arcs (end points, plus the circle's support point when its angle lies in the sweep);
- *   any other kind is handled by `supportByOps`: the parameter range is cut into pieces whose tangent turns
+ *   and circular arcs (end points, plus the circle's support point when its angle lies in the sweep): the
+ *   kind's `support` op; any kind without one is handled by `supportByOps`: the parameter range is cut into pieces whose tangent turns
  *   at most 0.2 rad, the derivative ⟨γ′(t), u⟩ is evaluated at the cuts, and every sign change from + to −
  *   (a local maximum of ⟨γ(t), u⟩) is located by bisection to machine precision. A maximum missed inside a
  *   piece (only possible when the derivative changes sign twice in it) is off by at most the piece's
@@ -47,31 +47,6 @@ export type { FabricationKey };
 
 // ---------------------------------------------------------------- support function
 
-function angleInSweep(a: number, a0: number, a1: number): boolean {
-  const lo = Math.min(a0, a1), hi = Math.max(a0, a1);
-  let b = a + Math.ceil((lo - a) / TWO_PI) * TWO_PI; // smallest a + 2πk ≥ lo
-  if (b < lo) b += TWO_PI;
-  return b <= hi;
-}
-
-type SupportFn = (s: Segment, ux: number, uy: number) => number;
-
-/** Exact support per kind; kinds not listed use `supportByOps`. */
-const EXACT_SUPPORT: { [K in Segment['kind']]?: SupportFn } = {
-  line: (s, ux, uy) => {
-    if (s.kind !== 'line') return NaN;
-    return Math.max(s.x0 * ux + s.y0 * uy, s.x1 * ux + s.y1 * uy);
-  },
-  arc: (s, ux, uy) => {
-    if (s.kind !== 'arc') return NaN;
-    const { cx, cy, r, a0, a1 } = s;
-    if (angleInSweep(Math.atan2(uy, ux), a0, a1)) return cx * ux + cy * uy + r;
-    const p0 = cx * ux + cy * uy + r * (Math.cos(a0) * ux + Math.sin(a0) * uy);
-    const p1 = cx * ux + cy * uy + r * (Math.cos(a1) * ux + Math.sin(a1) * uy);
-    return Math.max(p0, p1);
-  },
-};
-
 /**
  * max over t ∈ [0, 1] of ⟨γ(t), u⟩ using only the segment's operations (see the module comment).
  * Exported so that it can be tested on kinds that also have an exact formula.
@@ -102,10 +77,10 @@ export function supportByOps(s: Segment, ux: number, uy: number): number {
   return best;
 }
 
-/** Exact (lines, arcs) or ops-based support of one segment in the unit direction u. */
+/** The kind's exact support (lines, arcs) where it has one, else the ops-based one, in the unit direction u. */
 export function segmentSupport(s: Segment, ux: number, uy: number): number {
-  const f = EXACT_SUPPORT[s.kind];
-  return f ? f(s, ux, uy) : supportByOps(s, ux, uy);
+  const o = ops(s);
+  return o.support ? o.support(s, ux, uy) : supportByOps(s, ux, uy);
 }
 
 // ---------------------------------------------------------------- convex hull

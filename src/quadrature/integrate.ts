@@ -13,6 +13,7 @@
  */
 import { type MeshView, TriangleMap } from '../mesh/mesh.js';
 import { type TriangleRule, getRule, safeDegreeAtLeast } from './rules.js';
+import { addCompensated } from '../numeric/sum.js';
 
 export type Integrand = (x: number, y: number) => number;
 
@@ -145,13 +146,7 @@ export function integrate(mesh: MeshView, opts: IntegrateOptions): Integrals {
     const rule = map.curved ? curvedRule : straightRule;
     integrateTriangle(map, rule, kernel, local, 0);
     points += rule.n;
-    for (let k = 0; k < K; k++) {
-      const v = local[k];
-      const s = sum[k];
-      const tt = s + v;
-      comp[k] += Math.abs(s) >= Math.abs(v) ? (s - tt) + v : (v - tt) + s;
-      sum[k] = tt;
-    }
+    for (let k = 0; k < K; k++) addCompensated(sum, comp, k, local[k]);
     if (per) per.set(local, t * K);
   }
   for (let k = 0; k < K; k++) sum[k] += comp[k];

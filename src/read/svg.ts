@@ -22,7 +22,7 @@
  */
 import { InputError } from '../base/errors.js';
 import type { Part } from '../geometry/part.js';
-import { type Segment, segmentEnd, segmentStart } from '../geometry/segments.js';
+import { type Segment, ops, segmentEnd, segmentStart } from '../geometry/segments.js';
 import { type Affine, IDENTITY, composeAffine, transformSegment } from '../geometry/transform.js';
 import type { LengthUnit } from '../base/units.js';
 import { type CascadedProperty, type Computed, type CssNode, StyleSheet, cascade, cssTransform, cssTransformOrigin } from './css.js';
@@ -209,8 +209,7 @@ export function svgArcToSegments(
 function push(c: Segment[], s: Segment): void {
   if (c.length === 0) { c.push(s); return; }
   const [px, py] = segmentEnd(c[c.length - 1]);
-  if (s.kind === 'line' || s.kind === 'quadratic' || s.kind === 'cubic') c.push({ ...s, x0: px, y0: py });
-  else c.push(s);
+  c.push(ops(s).moveStart(s, px, py) ?? s);
 }
 
 /** Close a contour when its end meets its start (to 1e-10 of the drawing's scale); false when it is open. */
@@ -221,9 +220,7 @@ function closeContour(c: Segment[], scale: number): boolean {
   if (ex === sx && ey === sy) return true;
   if (Math.hypot(ex - sx, ey - sy) > 1e-10 * scale) return false;
   const last = c[c.length - 1];
-  if (last.kind === 'line') c[c.length - 1] = { ...last, x1: sx, y1: sy };
-  else if (last.kind === 'quadratic') c[c.length - 1] = { ...last, x2: sx, y2: sy };
-  else if (last.kind === 'cubic') c[c.length - 1] = { ...last, x3: sx, y3: sy };
+  c[c.length - 1] = ops(last).moveEnd(last, sx, sy) ?? last;
   return true; // an arc end within 1e-10 relative: left as is (round-off of cos/sin)
 }
 

@@ -12,3 +12,11 @@ export function angleInSweep(a: number, a0: number, a1: number): boolean {
   if (b <= lo) b += TWO_PI;
   return b < hi;
 }
+
+/** Is angle `a` in the closed sweep from a0 to a1 (either direction), ends included? */
+export function angleInClosedSweep(a: number, a0: number, a1: number): boolean {
+  const lo = Math.min(a0, a1), hi = Math.max(a0, a1);
+  let b = a + Math.ceil((lo - a) / TWO_PI) * TWO_PI; // smallest a + 2πk ≥ lo
+  if (b < lo) b += TWO_PI;
+  return b <= hi;
+}
