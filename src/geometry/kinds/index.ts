@@ -33,7 +33,8 @@ export const OPS: { readonly [K in SegmentKind]: SegmentOps<Extract<Segment, { k
 
 /** The operations of a segment's kind. */
 export function ops(s: Segment): SegmentOps<Segment> {
-  return OPS[s.kind] as unknown as SegmentOps<Segment>;
+  // the registry is keyed by kind, so the operations found under s.kind accept s (a narrowing the compiler cannot see)
+  return OPS[s.kind] as SegmentOps<Segment>;
 }
 
 export function segmentPoint(s: Segment, t: number): [number, number] {
