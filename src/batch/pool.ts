@@ -27,7 +27,9 @@ function crashedRow(job: Job, why: string): BatchRow {
 const IN_FLIGHT = 2;
 
 export function runPool(jobs: readonly Job[], options: PoolOptions): Promise<void> {
-  const url = options.workerUrl ?? new URL('./worker.js', import.meta.url);
+  // beside this module in the tsc build (dist/src/batch/); from the bundled command line (dist/cli/) one folder up
+  const here = import.meta.url;
+  const url = options.workerUrl ?? (here.includes('/src/batch/') ? new URL('./worker.js', here) : new URL('../src/batch/worker.js', here));
   const size = Math.max(1, Math.min(options.size, jobs.length));
   const queue: number[] = jobs.map((_, i) => i);
   let done = 0;
