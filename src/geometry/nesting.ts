@@ -106,7 +106,9 @@ export interface Nesting {
  */
 export function nestContours(loops: readonly Loop[], exclude?: (i: number, j: number) => boolean): Nesting {
   const n = loops.length;
-  const P = loops.map(prepared);
+  // boxes and areas for all; the y-monotone pieces only for loops that some probe is tested against (with
+  // 10^5 small holes in one outline, that is the outline alone)
+  const P = loops.map((l) => { const c = cache.get(l); return c ?? { box: loopBox(l), area: Math.abs(loopSignedArea(l)) }; });
   const boxes = new Float64Array(4 * n);
   P.forEach((p, i) => boxes.set(p.box, 4 * i));
   const probes = loops.map(loopProbe);
@@ -117,7 +119,7 @@ export function nestContours(loops: readonly Loop[], exclude?: (i: number, j: nu
     const bi = P[i].box, bj = P[j].box;
     if (bi[0] < bj[0] || bi[1] < bj[1] || bi[2] > bj[2] || bi[3] > bj[3]) return false;
     if (P[j].area < P[i].area) return false;
-    return insidePrepared(probes[i][0], probes[i][1], P[j]);
+    return insidePrepared(probes[i][0], probes[i][1], prepared(loops[j]));
   };
   const found = (i: number, j: number) => {
     depth[i]++;
@@ -137,16 +139,15 @@ export function nestContours(loops: readonly Loop[], exclude?: (i: number, j: nu
  */
 export function locatePoints(points: readonly (readonly [number, number])[], loops: readonly Loop[], nesting: Nesting): Int32Array {
   const n = loops.length, m = points.length;
-  const P = loops.map(prepared);
   const boxes = new Float64Array(4 * (n + m));
-  P.forEach((p, i) => boxes.set(p.box, 4 * i));
+  loops.forEach((l, i) => boxes.set(cache.get(l)?.box ?? loopBox(l), 4 * i));
   points.forEach((q, k) => boxes.set([q[0], q[1], q[0], q[1]], 4 * (n + k)));
   const out = new Int32Array(m).fill(-1);
   overlappingPairs(boxes, (i, j) => {
     if (i >= n || j < n) return; // loop–point pairs only (i < j, loops come first)
     const k = j - n;
     const q = points[k];
-    if (!insidePrepared(q[0], q[1], P[i])) return;
+    if (!insidePrepared(q[0], q[1], prepared(loops[i]))) return;
     if (out[k] < 0 || nesting.depth[i] > nesting.depth[out[k]]) out[k] = i;
   });
   return out;

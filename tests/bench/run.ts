@@ -17,6 +17,7 @@ import { compileExpression } from '../../src/expr/index.js';
 import { chordedBoundary } from '../../src/mesh/build.js';
 import { greenMoments } from './green.js';
 import { panel, squareHoles } from './cases.js';
+import { writeHolePlate, writeLoosePlate } from './drawings.js';
 
 const Constrainautor = ConstrainautorModule as unknown as new (del: Delaunator<ArrayLike<number>>) => { constrainOne(a: number, b: number): void };
 const ROOT = join(dirname(fileURLToPath(import.meta.url)), '..', '..', '..');
@@ -157,6 +158,38 @@ if (want('batch')) {
   rmSync(dir, { recursive: true, force: true });
   results.batch = { parts: n, oneWorkerMs: t1, twoWorkersMs: t2, speedup: t1 / t2 };
   rows.push({ case: `batch of ${n} small parts: 2 workers vs 1`, ours: `${f(t2)} (2 workers)`, peer: `${f(t1)} (1 worker)`, ratio: (t1 / t2).toFixed(2) + '× faster', target: '≥ 1.6×', met: t1 / t2 >= 1.6 ? 'yes' : 'no' });
+}
+
+/** Whole-process wall time (median of `reps`, alternating the commands so that load falls on both alike). */
+function wallPair(a: string[], b: string[], reps: number): [number, number] {
+  const ta: number[] = [], tb: number[] = [];
+  const one = (argv: string[]) => {
+    const t = performance.now();
+    const r = spawnSync(process.execPath, argv, { cwd: ROOT, encoding: 'utf8', maxBuffer: 1 << 28 });
+    if (r.status !== 0) throw new Error(`${argv.join(' ')} failed: ${r.stderr}`);
+    return performance.now() - t;
+  };
+  for (let i = 0; i < reps; i++) { ta.push(one(a)); tb.push(one(b)); }
+  ta.sort((x, y) => x - y); tb.sort((x, y) => x - y);
+  return [ta[ta.length >> 1], tb[tb.length >> 1]];
+}
+
+if (want('drawings')) {
+  // reading drawings: the same plate in two formats, whole process against whole process
+  const dir = join(tmpdir(), `platewise-bench-drawings-${process.pid}`);
+  mkdirSync(dir, { recursive: true });
+  const cli = join(ROOT, 'dist', 'cli', 'main.js');
+  const n = 100_000;
+  const h = writeHolePlate(dir, n);
+  const [tSvg, tJson] = wallPair([cli, 'measure', h.svg, '--json'], [cli, 'measure', h.json, '--json'], quick ? 3 : 5);
+  results.svgHoles = { holes: n, svgMs: tSvg, partJsonMs: tJson, ratio: tSvg / tJson };
+  rows.push({ case: `SVG with ${n} holes: read + measure vs the same part as part JSON`, ours: f(tSvg), peer: `part JSON ${f(tJson)}`, ratio: (tSvg / tJson).toFixed(2), target: '≤ 2', met: tSvg / tJson <= 2 ? 'yes' : 'no' });
+  const e = 10_000;
+  const l = writeLoosePlate(dir, e);
+  const [tDxf, tSvg2] = wallPair([cli, 'measure', l.dxf, '--json'], [cli, 'measure', l.svg, '--json'], quick ? 3 : 5);
+  results.dxfEntities = { entities: e, dxfMs: tDxf, svgMs: tSvg2, ratio: tDxf / tSvg2 };
+  rows.push({ case: `DXF of ${e} loose LINE entities: read, join + measure vs the same geometry as SVG`, ours: f(tDxf), peer: `SVG ${f(tSvg2)}`, ratio: (tDxf / tSvg2).toFixed(2), target: '≤ 2', met: tDxf / tSvg2 <= 2 ? 'yes' : 'no' });
+  rmSync(dir, { recursive: true, force: true });
 }
 
 const head = `Run ${new Date().toISOString().slice(0, 10)} on ${availableParallelism()} cores (${cpus()[0]?.model ?? 'unknown CPU'}), Node ${process.version}. Times in ms (median).`;

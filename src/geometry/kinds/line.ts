@@ -1,5 +1,4 @@
 /** Straight line segment from (x0, y0) to (x1, y1). */
-import { applyAffine } from './affine.js';
 import type { Crossing, SegmentOps } from './types.js';
 
 export interface LineSegment {
@@ -59,10 +58,12 @@ export const lineOps: SegmentOps<LineSegment> = {
     if (b !== 1) lineOps.point(s, b, q);
     return { kind: 'line', x0: p[0], y0: p[1], x1: q[0], y1: q[1] };
   },
-  affine(s, m) {
-    const [x0, y0] = applyAffine(m, s.x0, s.y0), [x1, y1] = applyAffine(m, s.x1, s.y1);
-    return { kind: 'line', x0, y0, x1, y1 };
-  },
+  // no temporaries: drawings map hundreds of thousands of lines through their viewport transform
+  affine: (s, m) => ({
+    kind: 'line',
+    x0: m[0] * s.x0 + m[2] * s.y0 + m[4], y0: m[1] * s.x0 + m[3] * s.y0 + m[5],
+    x1: m[0] * s.x1 + m[2] * s.y1 + m[4], y1: m[1] * s.x1 + m[3] * s.y1 + m[5],
+  }),
   rotate: (s, c, sn, _angle, x, y) => ({
     kind: 'line', x0: x + c * s.x0 - sn * s.y0, y0: y + sn * s.x0 + c * s.y0, x1: x + c * s.x1 - sn * s.y1, y1: y + sn * s.x1 + c * s.y1,
   }),
