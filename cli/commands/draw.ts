@@ -38,13 +38,16 @@ export async function draw(file: string, flags: DrawFlags): Promise<string> {
   const readOpts = readOptions(flags);
   const input = readInputText(file);
   const models = readModels(input.text, input.label, readOpts);
-  const results = models.map((m) => analyzePart(m, { section, mass: 'never', fabrication: 'never' }).section);
+  const reports = models.map((m) => analyzePart(m, { section, mass: 'never', fabrication: 'never' }));
+  const results = reports.map((r) => r.section);
   // the drawing stack is loaded only here, never by measure
   const { drawPart, drawSheet } = await import('../../src/output/draw.js');
   const shade = shadeText(flags.shade, input.text, input.label, readOpts.format ?? detectFormat(input.label === 'stdin' ? undefined : input.label, input.text));
   const named = flags.shade?.trim() === 'thickness' || flags.shade?.trim() === 'density';
   const unit = flags.shade?.trim() === 'density' ? 'kg/m³' : models[0]?.units ?? '';
-  const opts = { mesh: flags.mesh, shade, degree: flags.degree, shadeTitle: named ? `${flags.shade!.trim()} = ${shade} ${unit}` : undefined };
+  const first = reports[0];
+  const reading = first ? { notCut: first.notCut, gapsClosed: first.interpretation?.gapsClosed, unitSource: first.unitSource } : undefined;
+  const opts = { mesh: flags.mesh, shade, degree: flags.degree, shadeTitle: named ? `${flags.shade!.trim()} = ${shade} ${unit}` : undefined, reading };
   if (flags.sheet || (results.length > 1 && flags.output === undefined)) {
     const svg = await drawSheet(results, opts);
     if (flags.output === undefined) return svg + '\n';

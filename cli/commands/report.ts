@@ -5,6 +5,7 @@ import { checkSectionOptions } from '../../src/analysis/options.js';
 import { InputError } from '../../src/base/errors.js';
 import { readInputText, writeFileAtomic } from '../../src/base/files.js';
 import { readModels } from '../../src/read/models.js';
+import { interpretationText, unitSourceText } from '../../src/output/words.js';
 import { VERSION } from '../version.js';
 import { type DrawingFlags, plateSettings, readOptions } from './settings.js';
 
@@ -40,7 +41,13 @@ export async function report(file: string, flags: ReportFlags): Promise<string> 
     version: VERSION,
     date: flags.date ?? new Date().toISOString(),
     settings: { degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation, format: flags.format, units: flags.units, thickness: flags.thickness, density: flags.density, material: flags.material },
-    parts: reports.map((r, i) => ({ result: r.section, convergence: convergence[i], mass: r.mass, massNote: notes[i] })),
+    parts: reports.map((r, i) => ({
+      result: r.section, convergence: convergence[i], mass: r.mass, massNote: notes[i],
+      reading: {
+        lines: r.interpretation ? interpretationText(r.interpretation, r.part) : [`length unit ${r.units}: ${unitSourceText(r.unitSource)}`],
+        draw: { notCut: r.notCut, gapsClosed: r.interpretation?.gapsClosed, unitSource: r.unitSource },
+      },
+    })),
   });
   if (flags.output === undefined) return html;
   writeFileAtomic(flags.output, html, [file]);

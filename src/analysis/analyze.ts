@@ -17,7 +17,7 @@ import {
   constantPlate, hasPlateData, resolveLayers,
 } from '../model/plate.js';
 import type { SettingWarning } from '../model/settings.js';
-import type { InterpretationSummary } from '../read/interpret.js';
+import type { InterpretationSummary, NotCut } from '../read/interpret.js';
 import { type FabricationFigures, fabricationFigures } from '../properties/fabrication.js';
 import type { Quantity } from '../properties/quantities.js';
 import { type MeasureOptions, type SectionResult, type SectionWarning, measureSection } from './measure.js';
@@ -77,6 +77,8 @@ export interface PartReport {
   cautions: Caution[];
   /** How the drawing was read (drawings only): counts, reasons, units with their source, marking per part. */
   interpretation?: InterpretationSummary;
+  /** Marking and ignored geometry of the drawing (for pictures). */
+  notCut?: NotCut;
 }
 
 function largestExtent(s: SectionResult): number {
@@ -84,7 +86,7 @@ function largestExtent(s: SectionResult): number {
   return Math.max(q.width.value, q.height.value);
 }
 
-export function analyzePart(model: PlateModel & { interpretation?: InterpretationSummary }, request: AnalysisRequest = {}): PartReport {
+export function analyzePart(model: PlateModel & { interpretation?: InterpretationSummary; notCut?: NotCut }, request: AnalysisRequest = {}): PartReport {
   const massMode = request.mass ?? 'optional';
   const layers: LayerReport[] = model.layers.map((l) => ({ name: l.name, section: measureSection(l.part, request.section) }));
   const section = layers[0].section;
@@ -134,6 +136,6 @@ export function analyzePart(model: PlateModel & { interpretation?: Interpretatio
   if (mass || fabrication?.quantities.netMass) cautions.push('mass');
   return {
     part: model.name, units: model.units, unitSource: model.unitSource, layered: model.layered,
-    layers, section, mass, fabrication, plate, missing, quantities, warnings, cautions, interpretation: model.interpretation,
+    layers, section, mass, fabrication, plate, missing, quantities, warnings, cautions, interpretation: model.interpretation, notCut: model.notCut,
   };
 }

@@ -17,7 +17,7 @@ export interface PoolOptions {
 
 function crashedRow(job: Job, why: string): BatchRow {
   return {
-    row: job.row, file: job.file, item: 0, items: 0, part: null, status: 'failed', quantity: job.quantity, units: null,
+    row: job.row, file: job.file, item: 0, items: 0, part: null, status: 'failed', quantity: job.quantity, units: null, unitSource: null, markingLength: null,
     material: null, thickness: null, density: null, densitySource: null, quantities: {}, verdict: null, counts: null,
     comparison: null, warnings: [], error: `internal error: the worker measuring this file stopped (${why})`,
   };

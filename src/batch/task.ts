@@ -36,6 +36,10 @@ export interface BatchRow {
   status: 'ok' | 'failed';
   quantity: number;
   units: string | null;
+  /** Where the length unit came from: 'file', 'option' or 'assumed' (then a warning is in the row too). */
+  unitSource: string | null;
+  /** Length of marking (etch) lines on the part, in its unit; null for part files (which hold none). */
+  markingLength: number | null;
   material: string | null;
   /** Thickness in the part's unit, density in kg/m³. */
   thickness: number | null;
@@ -53,7 +57,7 @@ export interface BatchRow {
 
 function failed(job: Job, error: string): BatchRow {
   return {
-    row: job.row, file: job.file, item: 0, items: 0, part: null, status: 'failed', quantity: job.quantity, units: null,
+    row: job.row, file: job.file, item: 0, items: 0, part: null, status: 'failed', quantity: job.quantity, units: null, unitSource: null, markingLength: null,
     material: null, thickness: null, density: null, densitySource: null, quantities: {}, verdict: null, counts: null,
     comparison: null, warnings: [], error,
   };
@@ -105,6 +109,8 @@ export function runJob(job: Job, settings: JobSettings): BatchRow[] {
       row.densitySource = p ? (p.densityFrom.kind === 'material' ? `${p.densityFrom.id}: ${p.densityFrom.source}` : 'given density') : null;
       row.quantities = f.quantities;
       row.warnings = f.warnings;
+      row.unitSource = f.unitSource;
+      row.markingLength = f.interpretation?.parts.find((q) => q.name === f.part)?.markingLength ?? null;
       const named = reference?.part;
       if (stated.length > 0 && (parts.length === 1 || named === undefined || named === part.name)) {
         const c = compareAll({ source: reference?.source ?? 'manifest', values: stated }, f.quantities, { lengthUnit: part.units, partSize: partSize(f) });

@@ -31,8 +31,8 @@ const VALUE_KEYS = [
 ] as const;
 
 export const BATCH_CSV_HEADER: readonly string[] = [
-  'row', 'file', 'item', 'part', 'status', 'quantity', 'units', 'material', 'thickness', 'density',
-  ...VALUE_KEYS, 'verdict', 'passes', 'fails', 'inconclusive', 'notPassed', 'error',
+  'row', 'file', 'item', 'part', 'status', 'quantity', 'units', 'unitsFrom', 'material', 'thickness', 'density',
+  ...VALUE_KEYS, 'markingLength', 'verdict', 'passes', 'fails', 'inconclusive', 'notPassed', 'error',
 ];
 
 function valueOf(r: BatchRow, key: string): number | null {
@@ -55,8 +55,8 @@ export function batchCsvHeader(): string {
 
 export function batchCsvRow(r: BatchRow): string {
   return formatCsvRow([
-    r.row, r.file, r.item, r.part, r.status, r.quantity, r.units, r.material, r.thickness, r.density,
-    ...VALUE_KEYS.map((k) => valueOf(r, k)),
+    r.row, r.file, r.item, r.part, r.status, r.quantity, r.units, r.unitSource, r.material, r.thickness, r.density,
+    ...VALUE_KEYS.map((k) => valueOf(r, k)), r.markingLength,
     r.verdict, r.counts?.pass ?? null, r.counts?.fail ?? null, r.counts?.inconclusive ?? null, notPassedText(r), r.error,
   ]) + '\r\n';
 }
@@ -64,7 +64,7 @@ export function batchCsvRow(r: BatchRow): string {
 export function batchJsonLine(r: BatchRow): string {
   const o = {
     row: r.row, file: r.file, item: r.item, items: r.items, part: r.part, status: r.status, quantity: r.quantity,
-    units: r.units, material: r.material, thickness: r.thickness, density: r.density, densitySource: r.densitySource,
+    units: r.units, unitsFrom: r.unitSource, markingLength: r.markingLength, material: r.material, thickness: r.thickness, density: r.density, densitySource: r.densitySource,
     quantities: r.quantities, verdict: r.verdict, counts: r.counts,
     comparison: r.comparison?.map((c) => ({
       quantity: c.quantity, stated: c.statedAsWritten, statedUnit: c.statedUnit, statedConverted: c.stated, unit: c.unit,

@@ -17,7 +17,11 @@ import type { SectionResult } from '../analysis/measure.js';
 import { InputError, OptionError } from '../base/errors.js';
 import { type Mesh, triangleCount } from '../mesh/mesh.js';
 import { formatError, formatNumber } from './text.js';
-import { type DrawingMap, loopPathData, mapX, mapY, num, segmentCommands } from './pathData.js';
+import { type DrawingMap, chainPathData, loopPathData, mapX, mapY, num, segmentCommands } from './pathData.js';
+import type { NotCut } from '../read/interpret.js';
+import type { UnitSource } from '../model/plate.js';
+import { type Segment, ops } from '../geometry/segments.js';
+import { unitSourceText } from './words.js';
 import { RAMP_STEPS, type TriangleValues, binValues, errorIndicator, functionValues, rampColour } from './shade.js';
 
 export interface DrawOptions {
@@ -29,6 +33,8 @@ export interface DrawOptions {
   degree?: number;
   /** Legend title for a shading function (default: the expression itself). */
   shadeTitle?: string;
+  /** How the drawing was read: marking and ignored geometry (muted), gaps closed when joining, the unit's source. */
+  reading?: { notCut?: NotCut; gapsClosed?: readonly { x: number; y: number }[]; unitSource?: UnitSource };
 }
 
 /** Our palette: chosen for contrast on white, distinct under colour-vision deficiencies, ordered in grey. */
@@ -38,6 +44,8 @@ export const PALETTE = {
   frame: '#5c6670',      // bounding box and dimensions
   axis: '#a33f00',       // principal axes and centroid accents (dark orange: distinct from the blue ramp)
   strip: '#eef1f4',      // title strip background
+  marking: '#5d7a93',    // marking (etch) lines: muted steel blue, dashed
+  ignored: '#a7aeb5',    // ignored geometry (hidden, skipped layers, borders): light grey, dotted
   meshLine: '#3d5a78',   // mesh overlay on the plain fill
   paper: '#ffffff',
 } as const;
@@ -127,7 +135,17 @@ function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: num
   const pw = k * w, ph = k * h;
   const legendW = shadeVals ? 250 : 0;
   const width = Math.max(640, left + pw + 110 + legendW);
-  const height = stripH + topPad + ph + 118;
+  // geometry that is not cut and lies over this part's box: drawn muted, with a key under the scale bar
+  const nc = opts.reading?.notCut;
+  const near = (segs: readonly Segment[]) => {
+    let b = [Infinity, Infinity, -Infinity, -Infinity];
+    for (const sg of segs) { const bb = ops(sg).bbox(sg); b = [Math.min(b[0], bb[0]), Math.min(b[1], bb[1]), Math.max(b[2], bb[2]), Math.max(b[3], bb[3])]; }
+    return b[0] <= xMax && b[2] >= xMin && b[1] <= yMax && b[3] >= yMin;
+  };
+  const ig = nc ? nc.ignored.filter(near) : [], mk = nc ? nc.marking.filter(near) : [];
+  const gaps = (opts.reading?.gapsClosed ?? []).filter((p) => p.x >= xMin && p.x <= xMax && p.y >= yMin && p.y <= yMax);
+  const keyRows = (mk.length > 0 ? 1 : 0) + (ig.length > 0 ? 1 : 0) + (gaps.length > 0 ? 1 : 0);
+  const height = stripH + topPad + ph + 118 + 18 * keyRows;
   const m: DrawingMap = { k, ox: left - k * xMin, oy: T + k * yMax };
 
   const g = root.group().attr({ 'data-role': 'part-drawing', 'data-part': r.part, 'data-scale': num(k), 'data-ox': num(m.ox), 'data-oy': num(m.oy) });
@@ -137,7 +155,8 @@ function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: num
   strip.rect(width, stripH).move(0, top).attr({ fill: PALETTE.strip });
   const fmt = (key: keyof typeof q, digits = 10) => `${formatNumber(q[key].value, digits)} ± ${formatError(q[key].error)}`;
   strip.plain(r.part).attr({ x: 14, y: top + 24, style: `font-size:17px;font-weight:600`, fill: PALETTE.ink });
-  strip.plain(`lengths in ${u} · area ${fmt('area')} ${u}² · centroid (${formatNumber(q.centroidX.value)}, ${formatNumber(q.centroidY.value)}) ± ${formatError(Math.max(q.centroidX.error, q.centroidY.error))} ${u}`)
+  const unitNote = opts.reading?.unitSource ? ` (${unitSourceText(opts.reading.unitSource)})` : '';
+  strip.plain(`lengths in ${u}${unitNote} · area ${fmt('area')} ${u}² · centroid (${formatNumber(q.centroidX.value)}, ${formatNumber(q.centroidY.value)}) ± ${formatError(Math.max(q.centroidX.error, q.centroidY.error))} ${u}`)
     .attr({ x: 14, y: top + 46, style: `font-size:12.5px`, fill: PALETTE.ink });
   strip.plain(`I1 ${fmt('I1')} ${u}⁴ · I2 ${fmt('I2')} ${u}⁴ (principal second moments)`)
     .attr({ x: 14, y: top + 64, style: `font-size:12.5px`, fill: PALETTE.ink });
@@ -173,6 +192,22 @@ function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: num
     for (const hole of reg.holes) { og.path(loopPathData(hole, m)).attr({ 'data-loop': 'cutout' }); nCut++; }
   }
   g.attr({ 'data-cutouts': String(nCut) });
+
+  // geometry that is not cut, in muted styles: ignored contours dotted grey, marking lines dashed
+  {
+    if (ig.length > 0) {
+      const gi = g.group().attr({ 'data-role': 'ignored', 'data-count': String(ig.length), fill: 'none', stroke: PALETTE.ignored, 'stroke-width': 0.9, 'stroke-dasharray': '1.5 3' });
+      for (const segs of ig) gi.path(chainPathData(segs, m));
+    }
+    if (mk.length > 0) {
+      const gm = g.group().attr({ 'data-role': 'marking', 'data-count': String(mk.length), fill: 'none', stroke: PALETTE.marking, 'stroke-width': 1.1, 'stroke-dasharray': '6 3' });
+      for (const segs of mk) gm.path(chainPathData(segs, m));
+    }
+  }
+  if (gaps.length > 0) {
+    const gg = g.group().attr({ 'data-role': 'joined-gaps', 'data-count': String(gaps.length), fill: 'none', stroke: PALETTE.axis, 'stroke-width': 1 });
+    for (const p of gaps) gg.circle(9).center(mapX(m, p.x), mapY(m, p.y));
+  }
 
   // bounding box and its dimensions
   const X0 = mapX(m, xMin), X1 = mapX(m, xMax), Y0 = mapY(m, yMax), Y1 = mapY(m, yMin);
@@ -230,6 +265,22 @@ function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: num
   sb.plain('0').attr({ x: left, y: sbY + 22, 'text-anchor': 'middle', style: `font-size:11px`, fill: PALETTE.ink });
   if (2 * bl >= 40) sb.plain(formatNumber(len / 2, 6)).attr({ x: left + 2 * bl, y: sbY + 22, 'text-anchor': 'middle', style: `font-size:11px`, fill: PALETTE.ink });
   sb.plain(`${formatNumber(len, 6)} ${u}`).attr({ x: left + 4 * bl, y: sbY + 22, 'text-anchor': 'middle', style: `font-size:11px`, fill: PALETTE.ink });
+
+  // key to the muted styles, beside the scale bar, when the drawing shows geometry that is not cut
+  const shown = [
+    ...(mk.length > 0 ? [{ dash: '6 3', colour: PALETTE.marking, text: `marking, not cut: ${mk.length} line${mk.length === 1 ? '' : 's'}` }] : []),
+    ...(ig.length > 0 ? [{ dash: '1.5 3', colour: PALETTE.ignored, text: `ignored: ${ig.length} contour${ig.length === 1 ? '' : 's'} (hidden, skipped layer or border)` }] : []),
+    ...(gaps.length > 0 ? [{ dash: '', colour: PALETTE.axis, text: `gap closed when joining loose ends: ${gaps.length}` }] : []),
+  ];
+  if (shown.length > 0) {
+    const kg = g.group().attr({ 'data-role': 'reading-key' });
+    shown.forEach((it, i) => {
+      const ky = sbY + 44 + 18 * i;
+      if (it.dash) kg.line(left, ky - 4, left + 26, ky - 4).attr({ stroke: it.colour, 'stroke-width': 1.2, 'stroke-dasharray': it.dash });
+      else kg.circle(9).center(left + 13, ky - 4).attr({ fill: 'none', stroke: it.colour, 'stroke-width': 1 });
+      kg.plain(it.text).attr({ x: left + 34, y: ky, style: 'font-size:11px', fill: PALETTE.ink });
+    });
+  }
 
   // legend of the shading
   if (shadeVals) {

@@ -16,7 +16,7 @@ import { GEOMETRY_CAUTION, MASS_CAUTION } from './cautions.js';
 import { formatError, formatNumber } from './text.js';
 import { type Quantity, SECTION_QUANTITIES, quantityInfo, unitText } from '../properties/quantities.js';
 import { convergencePlot, convergencePoints } from './convergence.js';
-import { drawPart } from './draw.js';
+import { type DrawOptions, drawPart } from './draw.js';
 import { num } from './pathData.js';
 import { stopText } from './stopText.js';
 
@@ -29,6 +29,8 @@ export interface ReportPart {
   mass?: MassResult;
   /** Why mass is not shown (printed instead of the mass table). */
   massNote?: string;
+  /** How the drawing was read: the interpretation's lines in words, and what the picture shows of it. */
+  reading?: { lines: string[]; draw: DrawOptions['reading'] };
 }
 
 export interface ReportInput {
@@ -161,7 +163,7 @@ function massBlock(p: ReportPart): string {
 
 async function partSection(p: ReportPart, index: number): Promise<string> {
   const r = p.result;
-  const drawing = await drawPart(r);
+  const drawing = await drawPart(r, { reading: p.reading?.draw });
   const q = r.quantities as Record<string, Quantity>;
   const keys = SECTION_QUANTITIES.map((i) => i.key);
   const levels = p.convergence ?? r.levels;
@@ -174,6 +176,7 @@ async function partSection(p: ReportPart, index: number): Promise<string> {
   const warn = r.warnings.map((w) => `<p class="warning">Warning: ${escapeHtml(warningText(w))}</p>`).join('\n');
   return `<section class="part" data-part="${escapeHtml(r.part)}" data-index="${index}">
 <h2>${escapeHtml(r.part)}</h2>
+${p.reading ? `<ul data-role="reading">${p.reading.lines.map((l) => `<li>${escapeHtml(l)}</li>`).join('')}</ul>` : ''}
 <p>Lengths in ${escapeHtml(r.units)}; ${r.geometry.part.regions.length} region${r.geometry.part.regions.length === 1 ? '' : 's'}, ${holes} cut-out${holes === 1 ? '' : 's'}.</p>
 <figure data-role="drawing">${drawing}<figcaption>Material shaded, cut-outs clear; centroid marked; solid line: I1 axis, dash-dot line: I2 axis; dashed frame: bounding box. Curves drawn exactly (SVG arcs and Béziers).</figcaption></figure>
 <h3>Quantities</h3>

@@ -66,3 +66,12 @@ export function loopPathData(loop: Loop, m: DrawingMap): string {
   for (const s of segs) d += segmentCommands(s, 0, 1, m);
   return d + 'Z';
 }
+
+/** Path data of an open or closed chain of segments (no closing command): marking and ignored lines. */
+export function chainPathData(segs: readonly Segment[], m: DrawingMap): string {
+  if (segs.length === 0) return '';
+  const [x, y] = segmentStart(segs[0]);
+  let d = `M${pt(m, x, y)}`;
+  for (const s of segs) d += segmentCommands(s, 0, 1, m);
+  return d;
+}

@@ -87,7 +87,10 @@ export interface InterpretationSummary {
   warnings: InterpretationWarning[];
 }
 
-export interface Interpretation { parts: Part[]; summary: InterpretationSummary }
+/** Geometry that is not cut, for drawings: marking lines and ignored contours (hidden, skipped, other layers, borders). */
+export interface NotCut { marking: Segment[][]; ignored: Segment[][] }
+
+export interface Interpretation { parts: Part[]; summary: InterpretationSummary; notCut: NotCut }
 
 /** Words that make a layer a marking layer by default (whole words of its name, any case). */
 export const DEFAULT_MARK_LAYER_WORDS: readonly string[] = ['etch', 'etching', 'mark', 'marking', 'marks', 'engrave', 'engraving', 'scribe', 'scribing'];
@@ -201,6 +204,7 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
   const markingBy: Partial<Record<MarkingReason, number>> = {};
   const warnings = new Set<InterpretationWarning>();
   const cut: Item[] = [], mark: Item[] = [];
+  const notCut: NotCut = { marking: [], ignored: [] };
 
   // 0. joints that almost meet: an outline with a gap just over the join tolerance is never taken silently as a
   //    marking line (that would drop the plate's material); a gap on a marking or skipped layer does not matter
@@ -220,12 +224,12 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
   drawing.contours.forEach((c, index) => {
     if (c.segments.length === 0) return;
     const lay = c.layer?.toLowerCase();
-    if (c.hidden !== undefined) { bump('hidden'); warnings.add('hidden-content'); return; }
-    if (lay !== undefined && skipLayers?.has(lay)) { bump('skipped-layer'); return; }
+    if (c.hidden !== undefined) { bump('hidden'); warnings.add('hidden-content'); notCut.ignored.push(c.segments); return; }
+    if (lay !== undefined && skipLayers?.has(lay)) { bump('skipped-layer'); notCut.ignored.push(c.segments); return; }
     const onMarkLayer = lay !== undefined && (markLayers ? markLayers.has(lay) : isDefaultMarkLayer(c.layer!));
     const inMarkColour = markColours !== undefined && c.colour !== undefined && markColours.has(normaliseColour(c.colour));
     const item: Item = { c, index, box: contourBox(c.segments) };
-    if (cutLayers && !onMarkLayer && !(lay !== undefined && cutLayers.has(lay)) && !inMarkColour) { bump('other-layer'); return; }
+    if (cutLayers && !onMarkLayer && !(lay !== undefined && cutLayers.has(lay)) && !inMarkColour) { bump('other-layer'); notCut.ignored.push(c.segments); return; }
     let reason: MarkingReason | undefined;
     if (onMarkLayer) reason = 'marking-layer';
     else if (inMarkColour) reason = 'marking-colour';
@@ -233,7 +237,7 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
       reason = 'open-contour';
       if (lay !== undefined && cutLayers?.has(lay)) warnings.add('open-contour-on-cut-layer');
     }
-    if (reason) { markingBy[reason] = (markingBy[reason] ?? 0) + 1; mark.push(item); } else cut.push(item);
+    if (reason) { markingBy[reason] = (markingBy[reason] ?? 0) + 1; mark.push(item); notCut.marking.push(c.segments); } else cut.push(item);
     if (lay !== undefined && !onMarkLayer && !inMarkColour && !cutLayers?.has(lay)) {
       if (c.closed) { if (!layerClosed.has(lay)) layerClosed.set(lay, c); } else if (!layerOpen.has(lay)) layerOpen.set(lay, c);
     }
@@ -380,7 +384,7 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
       }
       if (mode === 'skip') {
         const drop = new Set(enclosing);
-        for (let k = 0; k < enclosing.length; k++) bump('sheet-border');
+        for (let k = 0; k < enclosing.length; k++) { bump('sheet-border'); notCut.ignored.push(cutItems[enclosing[k]].c.segments); }
         warnings.add('sheet-border-skipped');
         loops = loops.filter((_, i) => !drop.has(i));
         cutItems = cutItems.filter((_, i) => !drop.has(i));
@@ -495,7 +499,7 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
     parts: partNotes,
     warnings: [...warnings].sort(),
   };
-  return { parts, summary };
+  return { parts, summary, notCut };
 }
 
 /**

@@ -7,12 +7,12 @@
 import { OptionError } from '../base/errors.js';
 import { type PlateModel, singleLayerModel } from '../model/plate.js';
 import { detectFormat } from './detect.js';
-import type { InterpretationSummary } from './interpret.js';
+import type { InterpretationSummary, NotCut } from './interpret.js';
 import { readPlateModel } from './partJson.js';
 import { type ReadOptions, readDrawing } from './read.js';
 
 /** A plate model with what reading its file established (for drawings: the interpretation summary). */
-export type ReadModel = PlateModel & { interpretation?: InterpretationSummary };
+export type ReadModel = PlateModel & { interpretation?: InterpretationSummary; notCut?: NotCut };
 
 export function readModels(text: string, label: string, options: ReadOptions = {}): ReadModel[] {
   const format = options.format ?? detectFormat(label === 'stdin' ? undefined : label, text);
@@ -21,5 +21,5 @@ export function readModels(text: string, label: string, options: ReadOptions = {
     return [readPlateModel(text, label)];
   }
   const r = readDrawing(text, label, { ...options, format });
-  return r.parts.map((p) => ({ ...singleLayerModel(p, r.units.source), interpretation: r.summary }));
+  return r.parts.map((p) => ({ ...singleLayerModel(p, r.units.source), interpretation: r.summary, notCut: r.notCut }));
 }

@@ -10,7 +10,7 @@ import { type LengthUnit, isLengthUnit, LENGTH_UNITS } from '../base/units.js';
 import { type InputFormat, detectFormat } from './detect.js';
 import type { Drawing, DrawingUnits } from './drawing.js';
 import { readGeoJsonDrawing } from './geojson.js';
-import { type InterpretOptions, type InterpretationSummary, interpretDrawing } from './interpret.js';
+import { type InterpretOptions, type InterpretationSummary, type NotCut, interpretDrawing } from './interpret.js';
 import { readPartJson } from './partJson.js';
 import { readSvgDrawing } from './svg.js';
 import { readWktDrawing } from './wkt.js';
@@ -37,6 +37,8 @@ export interface ReadResult {
   parts: Part[];
   units: DrawingUnits;
   summary: InterpretationSummary;
+  /** Marking and ignored geometry, for drawings (empty for part files). */
+  notCut: NotCut;
 }
 
 /** Check option values given as text (from the command line). */
@@ -83,11 +85,12 @@ export function readDrawing(text: string, label: string, options: ReadOptions = 
         ignored: {}, markingBy: {}, duplicates: [], united: [], markingOutside: [], tolerance: 0, gapsClosed: [],
         parts: [{ name: part.name, outlines: part.regions.length, cutouts, markings: 0, markingLength: 0 }], warnings: [],
       },
+      notCut: { marking: [], ignored: [] },
     };
   }
   const drawing = drawingOf(text, label, { ...options, format });
-  const { parts, summary } = interpretDrawing(drawing, options);
-  return { parts, units: drawing.units, summary };
+  const { parts, summary, notCut } = interpretDrawing(drawing, options);
+  return { parts, units: drawing.units, summary, notCut };
 }
 
 /** `label` is the file name (or "stdin"); it also drives detection by extension. Parts only (existing callers). */

@@ -1,0 +1,100 @@
+/**
+ * How a drawing was read, in every output: measure's text and JSON, draw (muted marking and ignored
+ * geometry with a key, the unit's source in the title), report, and batch rows. The sample
+ * samples/etched-plate-ep7.svg is invented demo data. Reference figures are closed forms:
+ * area 160·80 − 4·π·6² − (40·20 − (4 − π)·5²) (rectangle, circles πr², rounded rectangle b·h − (4 − π)r²);
+ * marking length 2·(40 + 10) + 25 (a rectangle's perimeter and a straight line).
+ */
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { ROOT, runCli } from '../helpers.js';
+
+const EP7 = join(ROOT, 'samples', 'etched-plate-ep7.svg');
+const AREA = 160 * 80 - 4 * Math.PI * 36 - (40 * 20 - (4 - Math.PI) * 25);
+const MARKING = 2 * (40 + 10) + 25;
+const dir = mkdtempSync(join(tmpdir(), 'pw-reading-'));
+
+describe('the interpretation in every output', () => {
+  it('measure text and JSON: counts with reasons, the unit source, the marking length', () => {
+    const t = runCli(['measure', EP7]);
+    expect(t.status, t.stderr).toBe(0);
+    expect(t.stdout).toMatch(/read as \(svg\): 1 outline, 5 cut-outs, 2 marking \(marking-layer 2\), 3 ignored \(text 1, hidden 2\)/);
+    expect(t.stdout).toMatch(/length unit mm: stated by the file/);
+    const j = runCli(['measure', EP7, '--json']);
+    const doc = JSON.parse(j.stdout);
+    expect(Math.abs(doc.quantities.area.value - AREA) / AREA).toBeLessThan(1e-13);
+    expect(doc.units.lengthSource).toBe('file');
+    expect(Math.abs(doc.markingLength - MARKING)).toBeLessThan(1e-9);
+    expect(doc.interpretation.cutouts).toBe(5);
+    expect(doc.interpretation.ignored).toEqual({ text: 1, hidden: 2 });
+  });
+
+  it('an SVG without units says the unit was assumed, in text and JSON', () => {
+    const f = join(dir, 'nounits.svg');
+    writeFileSync(f, '<svg xmlns="http://www.w3.org/2000/svg" width="160" height="80"><rect width="160" height="80"/></svg>');
+    const t = runCli(['measure', f]);
+    expect(t.status, t.stderr).toBe(0);
+    expect(t.stdout).toMatch(/length unit mm: ASSUMED/);
+    expect(t.stdout).toMatch(/warning: the drawing states no length unit/);
+    // 160 CSS px = 160 × 25.4 / 96 mm (CSS Values and Units, absolute lengths)
+    const doc = JSON.parse(runCli(['measure', f, '--json']).stdout);
+    expect(doc.units.lengthSource).toBe('assumed');
+    expect(Math.abs(doc.quantities.width.value - 160 * 25.4 / 96)).toBeLessThan(1e-9);
+  });
+
+  it('draw shows marking dashed and ignored geometry dotted, with a key, and the unit source in the title', () => {
+    const out = join(dir, 'ep7.svg');
+    const r = runCli(['draw', EP7, '-o', out]);
+    expect(r.status, r.stderr).toBe(0);
+    const svg = readFileSync(out, 'utf8');
+    expect(svg).toMatch(/data-role="marking" data-count="2"/);
+    expect(svg).toMatch(/data-role="ignored" data-count="2"/);
+    expect(svg).toMatch(/data-role="reading-key"/);
+    expect(svg).toMatch(/lengths in mm \(stated by the file\)/);
+    // the plain part file: no muted groups, no key
+    const out2 = join(dir, 'bp1.svg');
+    expect(runCli(['draw', join(ROOT, 'samples', 'base-plate-bp1.json'), '-o', out2]).status).toBe(0);
+    expect(readFileSync(out2, 'utf8')).not.toMatch(/data-role="(marking|ignored|reading-key)"/);
+  });
+
+  it('report lists how the drawing was read', () => {
+    const out = join(dir, 'ep7.html');
+    const r = runCli(['report', EP7, '-o', out]);
+    expect(r.status, r.stderr).toBe(0);
+    const html = readFileSync(out, 'utf8');
+    expect(html).toMatch(/<ul data-role="reading"><li>read as \(svg\): 1 outline, 5 cut-outs/);
+    expect(html).toMatch(/marking length of this part: 125 mm/);
+  });
+
+  it('batch rows carry the unit source and the marking length', () => {
+    const m = join(dir, 'job.csv');
+    writeFileSync(m, `file,thickness,material\n${EP7},6 mm,steel\n`);
+    const r = runCli(['batch', m, '--jsonl']);
+    expect(r.status, r.stderr).toBe(0);
+    const row = JSON.parse(r.stdout.trim().split('\n')[0]);
+    expect(row.unitsFrom).toBe('file');
+    expect(Math.abs(row.markingLength - MARKING)).toBeLessThan(1e-9);
+    const c = runCli(['batch', m]);
+    const [head, first] = c.stdout.trim().split(/\r?\n/);
+    const cols = head.split(','), vals = first.split(',');
+    expect(vals[cols.indexOf('unitsFrom')]).toBe('file');
+    expect(Number(vals[cols.indexOf('markingLength')])).toBeCloseTo(MARKING, 9);
+  });
+
+  it('a DXF outline with a gap over the join tolerance is refused with the place; --join-tolerance joins it and reports the gap', () => {
+    // tests/fixtures/dxf/loose-plate.dxf: layer GAPPY has a 1e-5 mm gap (invented, written by ezdxf)
+    const dxf = join(ROOT, 'tests', 'fixtures', 'dxf', 'loose-plate.dxf');
+    const bad = runCli(['measure', dxf]);
+    expect(bad.status).toBe(2);
+    expect(bad.stderr.trim().split('\n')).toHaveLength(1);
+    expect(bad.stderr).toMatch(/layer GAPPY.*the contour is open: two ends are 0\.00001 apart near \(310, 100\).*--join-tolerance/);
+    const ok = runCli(['measure', dxf, '--join-tolerance', '1e-4']);
+    expect(ok.status, ok.stderr).toBe(0);
+    expect(ok.stdout).toMatch(/joined: 1 gap between loose ends closed \(largest 1e-5 mm/);
+    const out = join(dir, 'gappy.svg');
+    expect(runCli(['draw', dxf, '--join-tolerance', '1e-4', '--sheet', '-o', out]).status).toBe(0);
+    expect(readFileSync(out, 'utf8')).toMatch(/data-role="joined-gaps" data-count="1"/);
+  });
+});
