@@ -22,6 +22,11 @@ export function decodeUtf8(bytes: Uint8Array, label: string): string {
   try {
     return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
   } catch {
+    const head = new TextDecoder('latin1').decode(bytes.subarray(0, 22));
+    if (head.startsWith('AutoCAD Binary DXF')) throw new InputError(label, 'is a binary DXF, which is not read; save the drawing as ASCII DXF');
+    // DXF before AutoCAD 2007 is written in the drawing's code page ($DWGCODEPAGE, mostly Windows-1252); its
+    // geometry is ASCII and its text is not read, so decoding it as Windows-1252 changes no figure
+    if (/\.dxf$/i.test(label)) return new TextDecoder('windows-1252').decode(bytes);
     throw new InputError(label, `is not UTF-8 text (invalid byte sequence at byte offset ${firstBadUtf8(bytes)})`);
   }
 }
