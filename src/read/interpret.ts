@@ -458,7 +458,8 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
   const nameBase = (ri: number): string | undefined => regions[ri].name;
   const groups: number[][] = options.onePart ? [regions.map((_, i) => i)] : regions.map((_, i) => [i]);
   const used = new Map<string, number>();
-  const fallback = drawing.name ?? drawing.label;
+  // a name from the drawing, else the file's own name (not the folders it was found in)
+  const fallback = drawing.name ?? (drawing.label.split(/[\\/]/).pop() || drawing.label);
   const parts: Part[] = [];
   const partNotes: InterpretationSummary['parts'] = [];
   groups.forEach((g, k) => {
