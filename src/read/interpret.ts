@@ -34,6 +34,7 @@ import { overlappingPairs } from '../geometry/boxgrid.js';
 import { type Nesting, locatePoints, nestContours } from '../geometry/nesting.js';
 import { type Loop, type Part, type Region, loopSignedArea, normalizePart } from '../geometry/part.js';
 import { type Segment, ops, segmentEnd, segmentPoint, segmentStart } from '../geometry/segments.js';
+import { mergedContour } from '../geometry/kinds/index.js';
 import { intersect } from '../geometry/validate.js';
 import type { Drawing, DrawingUnits, DrawnContour } from './drawing.js';
 
@@ -171,6 +172,21 @@ function sameContour(a: readonly Segment[], b: readonly Segment[], tol: number):
   return true;
 }
 
+/**
+ * The same closed contour drawn with other splits (a circle as two arcs or as four, an edge in two pieces):
+ * compare the contours with runs on one line or one circle merged. A contour that merges into one closed
+ * segment (a full circle or ellipse) is compared by its box (already equal), enclosed area and length.
+ */
+function sameMerged(a: readonly Segment[], b: readonly Segment[], tol: number): boolean {
+  const ma = mergedContour(a, tol), mb = mergedContour(b, tol);
+  if (ma.length === 1 && mb.length === 1) {
+    const sa = ma[0], sb = mb[0];
+    const la = ops(sa).length(sa), lb = ops(sb).length(sb);
+    return Math.abs(la - lb) <= 4 * tol && Math.abs(Math.abs(ops(sa).areaTerm(sa)) - Math.abs(ops(sb).areaTerm(sb))) <= 2 * tol * Math.max(la, lb);
+  }
+  return sameContour(ma, mb, tol);
+}
+
 function contourBox(segs: readonly Segment[]): [number, number, number, number] {
   let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
   for (const s of segs) {
@@ -280,7 +296,7 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
       for (const [i, j] of pairs) {
         if (gone[i] || gone[j]) continue;
         const a = items[i].c, b = items[j].c;
-        if (a.closed !== b.closed || !sameContour(a.segments, b.segments, tol)) continue;
+        if (a.closed !== b.closed || !(sameContour(a.segments, b.segments, tol) || (a.closed && sameMerged(a.segments, b.segments, tol)))) continue;
         gone[j] = 1;
         const [x, y] = segmentStart(b.segments[0]);
         const note: DuplicateNote = { where: b.where, duplicateOf: a.where, x, y };

@@ -190,6 +190,7 @@ export const arcOps: SegmentOps<ArcSegment, ArcSegment | EllipticalArcSegment> =
     return Math.max(p0, p1);
   },
   overlap: { arc: arcOverlap },
+  merge: { arc: arcMerge },
   crossings: {
     line: (a: ArcSegment, b: LineSegment, tol: number) => lineArcCrossings(b, a, tol).map(swapped),
     arc: arcArcCrossings,
@@ -221,4 +222,17 @@ function arcOverlap(s: ArcSegment, t: ArcSegment, tol: number): [number, number,
   }
   if (best * s.r <= tol) return undefined;
   return [s.cx + s.r * Math.cos(bestMid), s.cy + s.r * Math.sin(bestMid), best * s.r];
+}
+
+/** a then b as one arc, when both lie on one circle (within tol) and turn the same way, together at most a full turn. */
+function arcMerge(a: ArcSegment, b: ArcSegment, tol: number): ArcSegment | null {
+  if (Math.abs(a.cx - b.cx) > tol || Math.abs(a.cy - b.cy) > tol || Math.abs(a.r - b.r) > tol) return null;
+  const da = a.a1 - a.a0, db = b.a1 - b.a0;
+  if (da * db <= 0) return null;
+  // b's start angle, moved by whole turns to meet a's end
+  const start = b.a0 + 2 * Math.PI * Math.round((a.a1 - b.a0) / (2 * Math.PI));
+  if (Math.abs(start - a.a1) * a.r > tol) return null;
+  const sweep = da + db;
+  if (Math.abs(sweep) > 2 * Math.PI + tol / a.r) return null;
+  return { kind: 'arc', cx: a.cx, cy: a.cy, r: a.r, a0: a.a0, a1: a.a0 + sweep };
 }

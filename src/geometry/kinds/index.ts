@@ -82,3 +82,29 @@ export function exactOverlap(s: Segment, t: Segment, tol: number): [number, numb
   const f = ops(s).overlap?.[t.kind] as ((a: Segment, b: Segment, tol: number) => [number, number, number] | undefined) | undefined;
   return f?.(s, t, tol);
 }
+
+/** s followed by t as one segment, where their kinds say how (same line, same circle), else null. */
+export function exactMerge(s: Segment, t: Segment, tol: number): Segment | null {
+  const f = ops(s).merge?.[t.kind] as ((a: Segment, b: Segment, tol: number) => Segment | null) | undefined;
+  return f ? f(s, t, tol) : null;
+}
+
+/**
+ * A closed contour with every run of segments on one line or one circle merged into one segment, and the
+ * seam moved so that the first segment does not continue the last: the same shape drawn with other splits
+ * gives the same segments (start points aside).
+ */
+export function mergedContour(segs: readonly Segment[], tol: number): Segment[] {
+  const out: Segment[] = [];
+  for (const s of segs) {
+    const m = out.length > 0 ? exactMerge(out[out.length - 1], s, tol) : null;
+    if (m) out[out.length - 1] = m; else out.push(s);
+  }
+  while (out.length > 1) {
+    const m = exactMerge(out[out.length - 1], out[0], tol);
+    if (!m) break;
+    out[0] = m;
+    out.pop();
+  }
+  return out;
+}

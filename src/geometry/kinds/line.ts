@@ -82,6 +82,7 @@ export const lineOps: SegmentOps<LineSegment> = {
   support: (s, ux, uy) => Math.max(s.x0 * ux + s.y0 * uy, s.x1 * ux + s.y1 * uy),
   crossings: { line: lineLineCrossings },
   overlap: { line: lineOverlap },
+  merge: { line: lineMerge },
   pathCommands(s, _t0, t1) {
     const p: [number, number] = [0, 0];
     lineOps.point(s, t1, p);
@@ -102,4 +103,16 @@ function lineOverlap(s: LineSegment, t: LineSegment, tol: number): [number, numb
   if (hi - lo <= tol) return undefined;
   const mid = (lo + hi) / 2;
   return [s.x0 + ux * mid, s.y0 + uy * mid, hi - lo];
+}
+
+/** a then b as one line, when b continues a straight on (its far end within tol of a's line, same direction). */
+function lineMerge(a: LineSegment, b: LineSegment, tol: number): LineSegment | null {
+  if (Math.abs(a.x1 - b.x0) > tol || Math.abs(a.y1 - b.y0) > tol) return null;
+  const dx = b.x1 - a.x0, dy = b.y1 - a.y0, L = Math.hypot(dx, dy);
+  if (!(L > 0)) return null;
+  // the joint must lie on the chord from a's start to b's end, and between them
+  const off = Math.abs((a.x1 - a.x0) * dy - (a.y1 - a.y0) * dx) / L;
+  const along = ((a.x1 - a.x0) * dx + (a.y1 - a.y0) * dy) / L;
+  if (off > tol || along <= 0 || along >= L) return null;
+  return { kind: 'line', x0: a.x0, y0: a.y0, x1: b.x1, y1: b.y1 };
 }

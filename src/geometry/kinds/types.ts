@@ -97,6 +97,12 @@ export interface SegmentOps<S extends { kind: string }, Image extends { kind: st
    * Retraced stretch shared with a segment of the kind named (keyed by the other segment's kind), within tol:
    * [x, y of its middle, length], or undefined. Used to report entities drawn twice over (src/geometry/join.ts).
    */
+  /**
+   * The one segment that `a` followed by `b` (a's end at b's start) makes, when both lie on one line or one
+   * circle and run on in the same direction (within tol), else null. Used to compare contours drawn with
+   * different splits (a circle as two arcs or as four).
+   */
+  readonly merge?: { readonly [otherKind: string]: ((a: S, b: never, tol: number) => S | null) | undefined };
   readonly overlap?: { readonly [otherKind: string]: ((a: S, b: never, tol: number) => [number, number, number] | undefined) | undefined };
   readonly crossings?: { readonly [otherKind: string]: ((a: S, b: never, tol: number) => Crossing[]) | undefined };
 
