@@ -6,7 +6,8 @@
  * estimate is propagated through each derived quantity), plus a round-off floor. Because the coarse
  * result's error bounds the refined one's for a converging method, the estimate errs on the safe side.
  */
-import { type Part, allLoops, loopLength, normalizePart, partBox } from '../geometry/part.js';
+import { type Part, allLoops, normalizePart, partBox } from '../geometry/part.js';
+import { ops } from '../geometry/segments.js';
 import { validatePart } from '../geometry/validate.js';
 import { type MeshOptions, buildMesh, localOrigin } from '../mesh/build.js';
 import { boundaryMoments } from '../properties/boundary.js';
@@ -16,7 +17,7 @@ import { refineUniform, selectTriangles, splitByCurvature } from '../mesh/refine
 import { integrate } from '../quadrature/integrate.js';
 import { DEFAULT_DEGREE, getRule } from '../quadrature/rules.js';
 import { type Quantity, SECTION_QUANTITIES, type SectionKey, type SectionQuantities, type SectionValues } from '../properties/quantities.js';
-import { type ExactFigures, roundoffFloor, sectionFromMoments } from '../properties/section.js';
+import { type ExactFigures, REPRESENTATION_ULPS, propagateDerived, roundoffFloor, sectionFromMoments } from '../properties/section.js';
 import type { StopReason } from '../quadrature/stop.js';
 
 export interface MeasureOptions extends MeshOptions {
@@ -81,10 +82,27 @@ export function preparePart(part: Part): Part {
   return normalizePart(part);
 }
 
+/**
+ * Perimeter, bounding box and the representation allowance (src/properties/section.ts): each segment is
+ * taken to lie within δ_s = REPRESENTATION_ULPS·ε·m_s of the segment the input describes, where m_s is the
+ * largest coordinate magnitude its box reaches plus its size (an arc's centre may lie a radius away).
+ */
 export function exactFigures(part: Part): ExactFigures {
-  let perimeter = 0;
-  for (const l of allLoops(part)) perimeter += loopLength(l);
-  return { perimeter, box: partBox(part) };
+  let perimeter = 0, shiftLength = 0, maxShift = 0, shiftPerimeter = 0;
+  for (const l of allLoops(part)) {
+    for (const s of l.segments) {
+      const o = ops(s);
+      const len = o.length(s);
+      const [x0, y0, x1, y1] = o.bbox(s);
+      const mag = Math.max(Math.abs(x0), Math.abs(x1), Math.abs(y0), Math.abs(y1)) + Math.max(x1 - x0, y1 - y0);
+      const d = REPRESENTATION_ULPS * Number.EPSILON * mag;
+      perimeter += len;
+      shiftLength += d * len;
+      maxShift = Math.max(maxShift, d);
+      shiftPerimeter += d * (2 + (o.straight ? 0 : o.turning(s, 0, 1)));
+    }
+  }
+  return { perimeter, box: partBox(part), representation: { shiftLength, maxShift, perimeter: shiftPerimeter } };
 }
 
 /** principalAngle is undefined when I1 and I2 are equal within their estimates. */
@@ -103,7 +121,8 @@ function checkPrincipalAngle(q: SectionQuantities, warnings: SectionWarning[]): 
  */
 function boundaryResult(input: Part, moments: Float64Array, origin: [number, number], exact: ExactFigures, degree: number, options: MeasureOptions): SectionResult {
   const values = sectionFromMoments(moments, origin, exact);
-  const floor = roundoffFloor(moments, origin, values);
+  const floor = roundoffFloor(moments, origin, values, exact);
+  propagateDerived(values, floor);
   const quantities = {} as SectionQuantities;
   for (const info of SECTION_QUANTITIES) {
     const k = info.key as SectionKey;
@@ -143,6 +162,10 @@ function boundaryResult(input: Part, moments: Float64Array, origin: [number, num
     },
   };
 }
+
+/** Rule degrees below this one also estimate with a companion rule (COMPANION_DEGREE) on the same meshes. */
+const COMPANION_BELOW = 2;
+const COMPANION_DEGREE = 4;
 
 function allTriangles(m: Mesh): Uint32Array {
   const n = m.count;
@@ -188,6 +211,10 @@ export function measureSection(input: Part, options: MeasureOptions = {}): Secti
   let m = selectTriangles(mesh, curved);
   let minJac = Infinity;
   let lastMoments: Float64Array = new Float64Array(6);
+  // Degree 1 converges only as h² and its two-level difference is not an upper bound on coarse meshes
+  // (a quarter disc's centroid: true error 4× the difference), so its estimate also takes a companion
+  // rule of higher degree on the same two levels (see below).
+  const companion: SectionValues[] = [];
   for (let L = 0; L <= levelsWanted; L++) {
     if (L > 0) m = refineUniform(m);
     const r = integrate(m, { degree });
@@ -195,15 +222,30 @@ export function measureSection(input: Part, options: MeasureOptions = {}): Secti
     const sums = addSums(straightSums, r.sums);
     lastMoments = sums;
     levels.push({ level: L, triangles: straight.length + triangleCount(m), values: sectionFromMoments(sums, mesh.origin, exact) });
+    if (degree < COMPANION_BELOW && L >= levelsWanted - 1) {
+      companion.push(sectionFromMoments(addSums(straightSums, integrate(m, { degree: COMPANION_DEGREE }).sums), mesh.origin, exact));
+    }
   }
   const fine = levels[levels.length - 1].values;
   const coarse = levels[levels.length - 2].values;
-  const floor = roundoffFloor(lastMoments, mesh.origin, fine);
+  const floor = roundoffFloor(lastMoments, mesh.origin, fine, exact);
+  const errors = {} as Record<SectionKey, number>;
+  const dist = (k: SectionKey, a: SectionValues, b: SectionValues) => (k === 'principalAngle' ? angleDiff(a[k], b[k]) : Math.abs(a[k] - b[k]));
+  for (const info of SECTION_QUANTITIES) {
+    const k = info.key as SectionKey;
+    let diff = dist(k, fine, coarse);
+    if (companion.length === 2) {
+      // |Q − v| ≤ |v − w| + |w − Q| for the companion's value w on the finest mesh, whose own error is
+      // estimated by its two-level difference (honest at degree ≥ 2 in the sweep of tests/analysis)
+      diff = Math.max(diff, dist(k, fine, companion[1]) + dist(k, companion[1], companion[0]));
+    }
+    errors[k] = diff + floor[k];
+  }
+  propagateDerived(fine, errors);
   const quantities = {} as SectionQuantities;
   for (const info of SECTION_QUANTITIES) {
     const k = info.key as SectionKey;
-    const diff = k === 'principalAngle' ? angleDiff(fine[k], coarse[k]) : Math.abs(fine[k] - coarse[k]);
-    quantities[k] = { value: fine[k], error: diff + floor[k] } satisfies Quantity;
+    quantities[k] = { value: fine[k], error: errors[k] } satisfies Quantity;
   }
   const warnings: SectionWarning[] = [];
   checkPrincipalAngle(quantities, warnings);

@@ -185,9 +185,11 @@ export function svgArcToSegments(
   if (largeArc === sweep) coef = -coef;
   const cxp = (coef * rx * y1p) / ry;
   const cyp = (-coef * ry * x1p) / rx;
-  // step 3: centre
-  const cx = cp * cxp - sp * cyp + (x1 + x2) / 2;
-  const cy = sp * cxp + cp * cyp + (y1 + y2) / 2;
+  // step 3: centre, found about the start point as a local origin and then moved there: the offset
+  // (x1', y1', cx', cy' and the half chord) is small, so far from the origin only the final sum rounds
+  // (one half-ulp of the coordinate) instead of the half-sum of the two ends and the addition both
+  const cx = x1 + ((cp * cxp - sp * cyp) - dx);
+  const cy = y1 + ((sp * cxp + cp * cyp) - dy);
   // step 4: angles
   const ux = (x1p - cxp) / rx, uy = (y1p - cyp) / ry;
   const vx = (-x1p - cxp) / rx, vy = (-y1p - cyp) / ry;

@@ -34,6 +34,12 @@ const cases: Case[] = [
     part: { outline: { path: { start: [40, 0], segments: [{ to: [-40, 0], center: [0, 0], turn: 'ccw' }] } } },
     exact: { area: Math.PI * 800, centroidY: 160 / (3 * Math.PI), Ix: (Math.PI / 8 - 8 / (9 * Math.PI)) * 40 ** 4, Iy: Math.PI * 40 ** 4 / 8 },
   },
+  {
+    // issue 13, item 6: at degree 1 the two-level difference was 0.24× the centroid's true error here
+    name: 'quarter disc R = 30 (corner at the origin)',
+    part: { outline: { path: { start: [0, 0], segments: [{ to: [30, 0] }, { to: [0, 30], center: [0, 0], turn: 'ccw' }] } } },
+    exact: { area: Math.PI * 225, centroidX: 40 / Math.PI, centroidY: 40 / Math.PI, IxOrigin: Math.PI * 30 ** 4 / 16, IxyOrigin: 30 ** 4 / 8 },
+  },
 ];
 
 describe('error estimates never understate the true error', () => {
