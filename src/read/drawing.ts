@@ -56,6 +56,16 @@ export interface JoinGap {
   layer?: string;
 }
 
+/** Loose entities that retrace each other (a stretch drawn twice, an entity duplicated) or branch at a joint. */
+export interface JoinFinding {
+  kind: 'overlap' | 'duplicate' | 'branch';
+  x: number; y: number;
+  /** Length of the retraced stretch (overlap), in drawing units. */
+  length?: number;
+  where: string;
+  layer?: string;
+}
+
 export interface Drawing {
   format: 'svg' | 'dxf' | 'geojson' | 'wkt' | 'part-json';
   /** File name or "stdin". */
@@ -64,8 +74,8 @@ export interface Drawing {
   contours: DrawnContour[];
   /** Counts of what the reader skipped, by reason key ("text", "dimension", "hatch", "point", "paper-space", …). */
   ignored: Record<string, number>;
-  /** Joining of loose entities: tolerance used and every gap met. */
-  join?: { tolerance: number; gaps: JoinGap[] };
+  /** Joining of loose entities: tolerance used, every gap met, and entities drawn twice or branching. */
+  join?: { tolerance: number; gaps: JoinGap[]; findings?: JoinFinding[] };
   /** A name for the whole drawing (SVG <title> of the root), if any. */
   name?: string;
 }

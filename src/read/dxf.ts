@@ -17,7 +17,7 @@ import { type JoinIssue, type JoinPiece, joinPieces } from '../geometry/join.js'
 import type { Segment } from '../geometry/segments.js';
 import { type Affine, IDENTITY, composeAffine, transformSegment } from '../geometry/transform.js';
 import type { LengthUnit } from '../base/units.js';
-import type { Drawing, DrawingUnits, DrawnContour, HiddenReason, JoinGap } from './drawing.js';
+import type { Drawing, JoinFinding, DrawingUnits, DrawnContour, HiddenReason, JoinGap } from './drawing.js';
 import { type DxfEntity, type DxfFile, type DxfLayer, findValue, parseDxfStructure } from './dxfStructure.js';
 import { splineToSegments } from './dxfSpline.js';
 import { type DxfTags, tokenizeDxf } from './dxfTags.js';
@@ -112,7 +112,17 @@ export function readDxfFull(text: string, opts: ReadDxfOptions = {}): DxfReadRes
       gaps.push({ x: is.x, y: is.y, gap: 0, closed: false, where: a.where, layer: a.layer });
     }
   }
-  const drawing: Drawing = { format: 'dxf', label, units, contours, ignored, join: { tolerance: joined.tolerance, gaps } };
+  const findings: JoinFinding[] = [];
+  for (const is of joined.issues) {
+    if (is.kind === 'overlap' || is.kind === 'duplicate' || is.kind === 'branch') {
+      const ps = is.pieces.map((k) => pieces[k]);
+      const f: JoinFinding = { kind: is.kind, x: is.x, y: is.y, where: ps.map((q) => q.where).join(' / ') };
+      if (is.kind === 'overlap') f.length = is.length;
+      if (ps[0]?.layer !== undefined) f.layer = ps[0].layer;
+      findings.push(f);
+    }
+  }
+  const drawing: Drawing = { format: 'dxf', label, units, contours, ignored, join: { tolerance: joined.tolerance, gaps, findings } };
   return { drawing, issues: joined.issues, pieces };
 }
 

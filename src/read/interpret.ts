@@ -36,7 +36,7 @@ import { type Loop, type Part, type Region, loopSignedArea, normalizePart } from
 import { type Segment, ops, segmentEnd, segmentPoint, segmentStart } from '../geometry/segments.js';
 import { mergedContour } from '../geometry/kinds/index.js';
 import { intersect } from '../geometry/validate.js';
-import type { Drawing, DrawingUnits, DrawnContour } from './drawing.js';
+import type { Drawing, DrawingUnits, DrawnContour, JoinFinding } from './drawing.js';
 
 export interface InterpretOptions {
   /** Only contours on these layers are cut (names compared without case). */
@@ -84,6 +84,8 @@ export interface InterpretationSummary {
   tolerance: number;
   /** Gaps between loose ends that joining closed (DXF), each with its place and size. */
   gapsClosed: { x: number; y: number; gap: number; where: string; layer?: string }[];
+  /** Loose entities that retrace each other or branch (DXF joining), each with its place. */
+  joinFindings: JoinFinding[];
   parts: { name: string; outlines: number; cutouts: number; markings: number; markingLength: number }[];
   warnings: InterpretationWarning[];
 }
@@ -232,6 +234,15 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
     const tol = drawing.join!.tolerance;
     throw new InputError(g.where + (g.layer !== undefined ? ` (layer ${g.layer})` : ''),
       `the contour is open: two ends are ${fmt(g.gap)} apart near (${fmt(g.x)}, ${fmt(g.y)}), more than the join tolerance ${fmt(tol)}; close the gap in the drawing, or give --join-tolerance ${fmt(g.gap * 1.5)} to join it`);
+  }
+  // a stretch drawn twice over on a cut layer: the cut would be made twice and contours cannot be told apart
+  for (const f of drawing.join?.findings ?? []) {
+    if (f.kind !== 'overlap') continue;
+    const lay = f.layer?.toLowerCase();
+    if (lay !== undefined && (skipLayers?.has(lay) || (markLayers ? markLayers.has(lay) : isDefaultMarkLayer(f.layer!)))) continue;
+    if (cutLayers && !(lay !== undefined && cutLayers.has(lay))) continue;
+    throw new InputError(f.where + (f.layer !== undefined ? ` (layer ${f.layer})` : ''),
+      `drawn twice over: these entities retrace each other for ${fmt(f.length ?? 0)} near (${fmt(f.x)}, ${fmt(f.y)}); delete the extra entity in the drawing, or move it to a layer you skip`);
   }
   const gapsClosed = (drawing.join?.gaps ?? []).filter((g) => g.closed);
 
@@ -513,6 +524,7 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
     markingOutside,
     tolerance: tol,
     gapsClosed: gapsClosed.map((g) => ({ x: g.x, y: g.y, gap: g.gap, where: g.where, layer: g.layer })),
+    joinFindings: drawing.join?.findings ?? [],
     parts: partNotes,
     warnings: [...warnings].sort(),
   };

@@ -82,7 +82,7 @@ export function readDrawing(text: string, label: string, options: ReadOptions = 
       units,
       summary: {
         format: 'part-json', units, contours: part.regions.length + cutouts, outlines: part.regions.length, cutouts, marking: 0,
-        ignored: {}, markingBy: {}, duplicates: [], united: [], markingOutside: [], tolerance: 0, gapsClosed: [],
+        ignored: {}, markingBy: {}, duplicates: [], united: [], markingOutside: [], tolerance: 0, gapsClosed: [], joinFindings: [],
         parts: [{ name: part.name, outlines: part.regions.length, cutouts, markings: 0, markingLength: 0 }], warnings: [],
       },
       notCut: { marking: [], ignored: [] },

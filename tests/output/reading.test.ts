@@ -97,4 +97,30 @@ describe('the interpretation in every output', () => {
     expect(runCli(['draw', dxf, '--join-tolerance', '1e-4', '--sheet', '-o', out]).status).toBe(0);
     expect(readFileSync(out, 'utf8')).toMatch(/data-role="joined-gaps" data-count="1"/);
   });
+
+  it('loose DXF lines: a stretch drawn twice over is refused naming both entities; an exact duplicate is left out and reported', () => {
+    // invented drawings: a 100 × 50 plate of loose LINEs (area b·h = 5000, closed form)
+    const dxf = (extra: number[][]) => {
+      const L = ['0', 'SECTION', '2', 'HEADER', '9', '$INSUNITS', '70', '4', '0', 'ENDSEC', '0', 'SECTION', '2', 'ENTITIES'];
+      let h = 0x30;
+      for (const [a, b, c, d] of [[0, 0, 100, 0], [100, 0, 100, 50], [100, 50, 0, 50], [0, 50, 0, 0], ...extra]) {
+        L.push('0', 'LINE', '5', (h++).toString(16).toUpperCase(), '8', 'CUT', '10', String(a), '20', String(b), '30', '0', '11', String(c), '21', String(d), '31', '0');
+      }
+      L.push('0', 'ENDSEC', '0', 'EOF', '');
+      return L.join('\n');
+    };
+    const f1 = join(dir, 'retraced.dxf');
+    writeFileSync(f1, dxf([[20, 0, 60, 0]]));
+    const bad = runCli(['measure', f1]);
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toMatch(/^platewise: dxf LINE #30 layer CUT \/ dxf LINE #34 layer CUT \(layer CUT\): drawn twice over: these entities retrace each other for 40 near \(40, 0\)/);
+    const f2 = join(dir, 'duplicated.dxf');
+    writeFileSync(f2, dxf([[100, 0, 100, 50]]));
+    const ok = runCli(['measure', f2, '--json']);
+    expect(ok.status, ok.stderr).toBe(0);
+    const doc = JSON.parse(ok.stdout);
+    expect(Math.abs(doc.quantities.area.value - 5000)).toBeLessThan(1e-9);
+    expect(doc.interpretation.ignored.duplicate).toBe(1);
+    expect(doc.interpretation.joinFindings.map((x: { kind: string }) => x.kind)).toContain('duplicate');
+  });
 });
