@@ -64,6 +64,8 @@ export interface JoinFinding {
   length?: number;
   where: string;
   layer?: string;
+  /** Entity handles (as in DrawnContour.sources) of the pieces involved. */
+  sources?: string[];
 }
 
 export interface Drawing {

@@ -223,6 +223,7 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
   const warnings = new Set<InterpretationWarning>();
   const cut: Item[] = [], mark: Item[] = [];
   const notCut: NotCut = { marking: [], ignored: [] };
+  const markingReasonOf = new Map<Item, MarkingReason>();
 
   // 0. joints that almost meet: an outline with a gap just over the join tolerance is never taken silently as a
   //    marking line (that would drop the plate's material); a gap on a marking or skipped layer does not matter
@@ -234,15 +235,6 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
     const tol = drawing.join!.tolerance;
     throw new InputError(g.where + (g.layer !== undefined ? ` (layer ${g.layer})` : ''),
       `the contour is open: two ends are ${fmt(g.gap)} apart near (${fmt(g.x)}, ${fmt(g.y)}), more than the join tolerance ${fmt(tol)}; close the gap in the drawing, or give --join-tolerance ${fmt(g.gap * 1.5)} to join it`);
-  }
-  // a stretch drawn twice over on a cut layer: the cut would be made twice and contours cannot be told apart
-  for (const f of drawing.join?.findings ?? []) {
-    if (f.kind !== 'overlap') continue;
-    const lay = f.layer?.toLowerCase();
-    if (lay !== undefined && (skipLayers?.has(lay) || (markLayers ? markLayers.has(lay) : isDefaultMarkLayer(f.layer!)))) continue;
-    if (cutLayers && !(lay !== undefined && cutLayers.has(lay))) continue;
-    throw new InputError(f.where + (f.layer !== undefined ? ` (layer ${f.layer})` : ''),
-      `drawn twice over: these entities retrace each other for ${fmt(f.length ?? 0)} near (${fmt(f.x)}, ${fmt(f.y)}); delete the extra entity in the drawing, or move it to a layer you skip`);
   }
   const gapsClosed = (drawing.join?.gaps ?? []).filter((g) => g.closed);
 
@@ -264,11 +256,20 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
       reason = 'open-contour';
       if (lay !== undefined && cutLayers?.has(lay)) warnings.add('open-contour-on-cut-layer');
     }
-    if (reason) { markingBy[reason] = (markingBy[reason] ?? 0) + 1; mark.push(item); notCut.marking.push(c.segments); } else cut.push(item);
+    if (reason) { markingBy[reason] = (markingBy[reason] ?? 0) + 1; mark.push(item); markingReasonOf.set(item, reason); notCut.marking.push(c.segments); } else cut.push(item);
     if (lay !== undefined && !onMarkLayer && !inMarkColour && !cutLayers?.has(lay)) {
       if (c.closed) { if (!layerClosed.has(lay)) layerClosed.set(lay, c); } else if (!layerOpen.has(lay)) layerOpen.set(lay, c);
     }
   });
+  // a stretch of loose entities drawn twice over leaves an open piece behind on a cut layer: that is a drawing
+  // fault, not a marking line (a whole contour drawn twice is no open piece: it is removed as a duplicate below)
+  for (const f of drawing.join?.findings ?? []) {
+    if (f.kind !== 'overlap' || !f.sources) continue;
+    const hit = mark.find((it) => !it.c.closed && markingReasonOf.get(it) === 'open-contour' && it.c.sources?.some((h) => f.sources!.includes(h)));
+    if (!hit) continue;
+    throw new InputError(f.where + (f.layer !== undefined ? ` (layer ${f.layer})` : ''),
+      `drawn twice over: these entities retrace each other for ${fmt(f.length ?? 0)} near (${fmt(f.x)}, ${fmt(f.y)}); delete the extra entity in the drawing, or move it to a layer you skip`);
+  }
   for (const [lay, open] of layerOpen) {
     const closed = layerClosed.get(lay);
     if (closed) {

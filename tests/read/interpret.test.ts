@@ -134,7 +134,40 @@ describe('duplicates (a CAD export drawing an outline twice)', () => {
       }
     }
   });
+  it('DXF: a rounded plate (LWPOLYLINE with bulges) drawn twice, once as loose LINE/ARC entities the other way round, is caught at the same 48 scales; overlapping and touching plates are refused', () => {
+    // DXF written here by hand (group codes per the DXF reference): $INSUNITS 4 (mm)
+    const head = ['0', 'SECTION', '2', 'HEADER', '9', '$INSUNITS', '70', '4', '0', 'ENDSEC', '0', 'SECTION', '2', 'ENTITIES'];
+    const tail = ['0', 'ENDSEC', '0', 'EOF', ''];
+    let h = 0x40;
+    const ent = (kind: string, codes: (string | number)[]) => ['0', kind, '5', (h++).toString(16).toUpperCase(), '8', 'CUT', ...codes.map(String)];
+    const b = Math.tan(Math.PI / 8); // bulge of a quarter arc, counter-clockwise (DXF reference: bulge = tan(θ/4))
+    for (const { s, x, y } of scales) {
+      const w = 120 * s, hh = 70 * s, rr = 9 * s, X = x * 1e3 * s + 5 * s, Y = y * 1e3 * s + 5 * s;
+      // counter-clockwise LWPOLYLINE: each vertex, then the bulge of the segment that follows it
+      const v: [number, number, number][] = [[X + rr, Y, 0], [X + w - rr, Y, b], [X + w, Y + rr, 0], [X + w, Y + hh - rr, b], [X + w - rr, Y + hh, 0], [X + rr, Y + hh, b], [X, Y + hh - rr, 0], [X, Y + rr, b]];
+      const poly = ent('LWPOLYLINE', ['90', v.length, '70', 1, ...v.flatMap(([px, py, bu]) => ['10', px, '20', py, '42', bu])]);
+      // the same outline as loose entities, listed clockwise: lines and ARCs (ARC angles in degrees, counter-clockwise)
+      const arc = (cx: number, cy: number, a0: number, a1: number) => ent('ARC', ['10', cx, '20', cy, '30', 0, '40', rr, '50', a0, '51', a1]);
+      const line = (x0: number, y0: number, x1: number, y1: number) => ent('LINE', ['10', x0, '20', y0, '30', 0, '11', x1, '21', y1, '31', 0]);
+      const loose = [
+        line(X, Y + rr, X, Y + hh - rr), arc(X + rr, Y + hh - rr, 90, 180), line(X + rr, Y + hh, X + w - rr, Y + hh), arc(X + w - rr, Y + hh - rr, 0, 90),
+        line(X + w, Y + hh - rr, X + w, Y + rr), arc(X + w - rr, Y + rr, 270, 360), line(X + w - rr, Y, X + rr, Y), arc(X + rr, Y + rr, 180, 270),
+      ].flat();
+      const text = [...head, ...poly, ...loose, ...tail].join('\n');
+      const r = readDrawing(text, 'r.dxf');
+      expect(r.parts, `dxf scale ${s}`).toHaveLength(1);
+      expect(r.summary.duplicates, `dxf scale ${s}`).toHaveLength(1);
+      // rounded rectangle: w·h − (4 − π) r² (closed form)
+      expect(rel(Math.abs(area(r.parts[0])), w * hh - (4 - Math.PI) * rr * rr), `dxf scale ${s}`).toBeLessThan(1e-9);
+      for (const shift of [w / 4, w]) {
+        const rect = (dx: number) => ent('LWPOLYLINE', ['90', 4, '70', 1, '10', X + dx, '20', Y, '10', X + dx + w, '20', Y, '10', X + dx + w, '20', Y + hh, '10', X + dx, '20', Y + hh]);
+        const t2 = [...head, ...rect(0), ...rect(shift), ...tail].join('\n');
+        expect(() => readDrawing(t2, 'x.dxf'), `dxf ${s} ${shift}`).toThrow(InputError);
+      }
+    }
+  });
 });
+
 
 describe('sheet border around the drawing', () => {
   const body = `<g inkscape:groupmode="layer" inkscape:label="Frame"><rect id="border" x="1" y="1" width="198" height="98"/></g>
