@@ -96,7 +96,7 @@ export function interpretationText(s: InterpretationSummary, part?: string): str
     lines.push(`joined: ${plural(s.gapsClosed.length, 'gap')} between loose ends closed (largest ${formatNumber(big, 3)} ${s.units.unit}, join tolerance ${formatNumber(s.tolerance, 3)} ${s.units.unit})`);
   }
   const FINDING = { overlap: 'drawn twice over', duplicate: 'entity duplicated (left out of joining)', branch: 'more than two ends meet' } as const;
-  s.joinFindings.slice(0, 10).forEach((f) => lines.push(`${FINDING[f.kind]}: ${f.where}${f.layer !== undefined ? ` (layer ${f.layer})` : ''} near (${formatNumber(f.x, 8)}, ${formatNumber(f.y, 8)})${f.length !== undefined ? `, ${formatNumber(f.length, 4)} ${s.units.unit} long` : ''}`));
+  s.joinFindings.slice(0, 10).forEach((f) => lines.push(`${FINDING[f.finding]}: ${f.where}${f.layer !== undefined ? ` (layer ${f.layer})` : ''} near (${formatNumber(f.x, 8)}, ${formatNumber(f.y, 8)})${f.length !== undefined ? `, ${formatNumber(f.length, 4)} ${s.units.unit} long` : ''}`));
   if (s.joinFindings.length > 10) lines.push(`… and ${s.joinFindings.length - 10} more places where loose entities retrace each other or branch`);
   for (const d of s.duplicates) lines.push(`duplicate removed: ${d.where}${d.layer ? ` (layer ${d.layer})` : ''} repeats ${d.duplicateOf}`);
   for (const w of s.warnings) lines.push(`warning: ${interpretationWarningText(w)}`);

@@ -58,7 +58,7 @@ export interface JoinGap {
 
 /** Loose entities that retrace each other (a stretch drawn twice, an entity duplicated) or branch at a joint. */
 export interface JoinFinding {
-  kind: 'overlap' | 'duplicate' | 'branch';
+  finding: 'overlap' | 'duplicate' | 'branch';
   x: number; y: number;
   /** Length of the retraced stretch (overlap), in drawing units. */
   length?: number;

@@ -116,7 +116,7 @@ export function readDxfFull(text: string, opts: ReadDxfOptions = {}): DxfReadRes
   for (const is of joined.issues) {
     if (is.kind === 'overlap' || is.kind === 'duplicate' || is.kind === 'branch') {
       const ps = is.pieces.map((k) => pieces[k]);
-      const f: JoinFinding = { kind: is.kind, x: is.x, y: is.y, where: ps.map((q) => q.where).join(' / '), sources: ps.flatMap((q) => q.sources ?? []) };
+      const f: JoinFinding = { finding: is.kind, x: is.x, y: is.y, where: ps.map((q) => q.where).join(' / '), sources: ps.flatMap((q) => q.sources ?? []) };
       if (is.kind === 'overlap') f.length = is.length;
       if (ps[0]?.layer !== undefined) f.layer = ps[0].layer;
       findings.push(f);

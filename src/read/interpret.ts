@@ -264,7 +264,7 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
   // a stretch of loose entities drawn twice over leaves an open piece behind on a cut layer: that is a drawing
   // fault, not a marking line (a whole contour drawn twice is no open piece: it is removed as a duplicate below)
   for (const f of drawing.join?.findings ?? []) {
-    if (f.kind !== 'overlap' || !f.sources) continue;
+    if (f.finding !== 'overlap' || !f.sources) continue;
     const hit = mark.find((it) => !it.c.closed && markingReasonOf.get(it) === 'open-contour' && it.c.sources?.some((h) => f.sources!.includes(h)));
     if (!hit) continue;
     throw new InputError(f.where + (f.layer !== undefined ? ` (layer ${f.layer})` : ''),

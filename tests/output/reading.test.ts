@@ -121,6 +121,6 @@ describe('the interpretation in every output', () => {
     const doc = JSON.parse(ok.stdout);
     expect(Math.abs(doc.quantities.area.value - 5000)).toBeLessThan(1e-9);
     expect(doc.interpretation.ignored.duplicate).toBe(1);
-    expect(doc.interpretation.joinFindings.map((x: { kind: string }) => x.kind)).toContain('duplicate');
+    expect(doc.interpretation.joinFindings.map((x: { finding: string }) => x.finding)).toContain('duplicate');
   });
 });
