@@ -23,7 +23,9 @@ export function materials(flags: { json?: boolean; materialsFile?: string }): st
   const lines = [`${'id'.padEnd(w)}  ${'name'.padEnd(wn)}  ${'kg/m³'.padStart(8)}  source`];
   for (const m of list) {
     lines.push(`${m.id.padEnd(w)}  ${m.name.padEnd(wn)}  ${String(m.density).padStart(8)}  ${m.source}${m.origin === 'built-in' ? '' : ` [${m.origin}]`}`);
+    if (m.aliases.length > 0) lines.push(`${''.padEnd(w)}  also: ${m.aliases.join(', ')}`);
   }
+  lines.push('', 'Designations with quality or delivery suffixes are understood (S355J2+N is s355, EN AW-6082-T6 is aluminium); "stainless" alone is refused: name the grade.');
   lines.push('', 'Densities are nominal. ' + MASS_CAUTION);
   return lines.join('\n') + '\n';
 }

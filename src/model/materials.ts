@@ -33,7 +33,7 @@ const BUILT_IN: readonly Omit<Material, 'origin'>[] = [
     name: 'structural steel (carbon steel)',
     density: 7850,
     source: 'EN 1993-1-1:2005, 3.2.6 (design value of density for steel)',
-    aliases: ['structural-steel', 'carbon-steel', 'mild-steel', 's235', 's275', 's355', 's460'],
+    aliases: ['structural-steel', 'carbon-steel', 'mild-steel', 's235', 's275', 's355', 's420', 's460', 's500', 's550', 's690'],
   },
   {
     id: 'aluminium',
@@ -48,7 +48,7 @@ const BUILT_IN: readonly Omit<Material, 'origin'>[] = [
     name: 'austenitic stainless steel 1.4301 (X5CrNi18-10)',
     density: 7900,
     source: 'EN 10088-1 (per-grade density table), from memory',
-    aliases: ['1.4301', 'x5crni18-10', '304', 'aisi-304', 'stainless'],
+    aliases: ['1.4301', 'x5crni18-10', '304', 'aisi-304'],
     note: '"stainless" finds this grade; name the grade when it matters',
   },
   {
@@ -114,6 +114,18 @@ export function findMaterial(name: string, userTable?: MaterialTable): Material 
   const key = normalizeMaterialName(String(name));
   const found = userTable?.get(key) ?? BUILT_IN_TABLE.get(key);
   if (found !== undefined) return found;
+  // a designation with a quality or delivery suffix the density does not depend on
+  const base = designationBase(key);
+  if (base !== undefined) {
+    const m = userTable?.get(base) ?? BUILT_IN_TABLE.get(base);
+    if (m !== undefined) return m;
+  }
+  // a general name that fits several grades of different density: refuse with the choices
+  const choices = Object.prototype.hasOwnProperty.call(AMBIGUOUS, key) ? AMBIGUOUS[key] : undefined;
+  if (choices !== undefined && userTable?.get(key) === undefined) {
+    const opts = choices.map((id) => MATERIALS.find((m) => m.id === id)!).map((m) => `${m.id} (${m.name}, ${m.density} kg/m³)`);
+    throw new InputError('material', `"${name}" could be ${opts.join(' or ')}; name the grade`);
+  }
   const ids = new Set<string>();
   for (const m of userTable?.values() ?? []) ids.add(m.id);
   for (const m of MATERIALS) ids.add(m.id);
@@ -130,6 +142,27 @@ export function findMaterial(name: string, userTable?: MaterialTable): Material 
   const limit = Math.max(2, Math.floor(key.length / 3));
   const guess = best !== undefined && bestD <= limit ? `; did you mean "${best}"?` : '';
   throw new InputError('material', `unknown material "${name}"; known: ${[...ids].join(', ')}${guess}`);
+}
+
+/** General names that fit several built-in grades of different density (refused with the choices). */
+const AMBIGUOUS: Readonly<Record<string, readonly string[]>> = {
+  stainless: ['stainless-1.4301', 'stainless-1.4404'],
+  'stainless-steel': ['stainless-1.4301', 'stainless-1.4404'],
+  inox: ['stainless-1.4301', 'stainless-1.4404'],
+};
+
+/**
+ * The grade behind a designation with suffixes that do not change the density (common practice, no source:
+ * the EN 10025 designation system writes strength grade, then quality and delivery condition):
+ * S355J2+N, S355JR, S275J0, S460ML, S355MC → s355 …; EN AW-6082-T6, 5754-H22 → aluminium (EN 1999-1-1 gives
+ * one design density for aluminium alloys).
+ */
+function designationBase(key: string): string | undefined {
+  let m = /^(s(?:235|275|355|420|460|500|550|690))(?:j[r0-2]|k2|n|nl|m|ml|mc|q|ql|g\d+)?(?:[+-](?:n|ar|m|qt|z\d*))*$/.exec(key);
+  if (m) return m[1];
+  m = /^(?:en-?aw-?)?[1-8]\d{3}[a-z]?(?:-(?:[ofhtw]\d*))?$/.exec(key);
+  if (m && !/^1\.\d{4}/.test(key)) return 'aluminium';
+  return undefined;
 }
 
 /** All materials visible with an optional user table: user ones first, then built-ins not overridden. */

@@ -135,3 +135,20 @@ describe('user material files', () => {
     expect(e.detail).toMatch(/name "b" is already used by materials\.a\.aliases\[0\]/);
   });
 });
+
+describe('designations and general names (common practice, no source: EN 10025 writes grade, then quality and delivery)', () => {
+  it('structural steel designations with quality and delivery suffixes find steel', async () => {
+    const { findMaterial } = await import('../../src/model/materials.js');
+    for (const d of ['S355J2+N', 'S355JR', 'S275J0', 'S460ML', 'S355MC', 's235jr+ar', 'S690QL']) expect(findMaterial(d).id, d).toBe('steel');
+  });
+  it('aluminium alloy designations with temper find aluminium; a stainless number is not taken for one', async () => {
+    const { findMaterial } = await import('../../src/model/materials.js');
+    for (const d of ['EN AW-6082-T6', '5754-H22', '6061']) expect(findMaterial(d).id, d).toBe('aluminium');
+    expect(findMaterial('1.4404').id).toBe('stainless-1.4404');
+  });
+  it('"stainless" alone is refused with the grades it could be', async () => {
+    const { findMaterial } = await import('../../src/model/materials.js');
+    expect(() => findMaterial('stainless')).toThrow(/"stainless" could be stainless-1\.4301 .* or stainless-1\.4404 .*; name the grade/);
+    expect(() => findMaterial('S999J2')).toThrow(/unknown material/);
+  });
+});
