@@ -16,7 +16,8 @@ program
   .description('Area and mass properties of flat plates with cut-outs, each value with an error estimate.')
   .version(VERSION)
   // one line on standard error, like every other bad-input message: "platewise: <what> (run with --help for usage)"
-  .configureOutput({ outputError: (str, write) => write(`platewise: ${str.replace(/^error: /, '').trim().split('\n')[0]} (run with --help for usage)\n`) })
+  // commander's suggestion ("(Did you mean --thickness?)") stays on the same line
+  .configureOutput({ outputError: (str, write) => write(`platewise: ${str.replace(/^error: /, '').trim().split('\n').map((l) => l.trim()).filter(Boolean).join(' ').replace(/\s*\(Did you mean (.*)\?\)/, '; did you mean $1?')} (run with --help for usage)\n`) })
   .addHelpText('after', `
 Exit status:
   0  success

@@ -48,6 +48,9 @@ export async function batch(source: string, flags: BatchFlags): Promise<string> 
   if (isFolder) {
     jobs = folderJobs(source);
   } else {
+    if (/\.(json|svg|dxf|geojson|wkt)$/i.test(source) && !/\.csv$/i.test(source)) {
+      throw new InputError(source, 'is a part file; batch takes a folder of part files or a manifest (CSV with a header naming the column "file"); to measure one part use platewise measure');
+    }
     const m = readInputText(source);
     jobs = parseManifest(m.text, m.label, manifestBase(source));
   }

@@ -22,6 +22,7 @@ export const CONVERGENCE_LEVELS = 3;
 export async function report(file: string, flags: ReportFlags): Promise<string> {
   const section = checkSectionOptions({ degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation });
   if (flags.output !== undefined && flags.output.trim() === '') throw new InputError('--output', 'expected a file name, got an empty text');
+  if (flags.output !== undefined && !/\.html?$/i.test(flags.output)) throw new InputError('--output', `the report is an HTML page; name the file .html (got "${flags.output}"); for a PDF, open the page in a browser and print it`);
   const input = readInputText(file);
   const models = readModels(input.text, input.label, readOptions(flags));
   const given = plateSettings(flags);
