@@ -21,4 +21,14 @@ describe('README', () => {
     expect(README).toContain('npm install && npx platewise measure samples/base-plate-bp1.json');
     expect(README).toMatch(/```sh\nnpm test\n```/);
   });
+
+  it('the quick starts of "Where to start" run as written (designer, fabricator: exit 0; inspector: 1 for the deliberate mismatch)', async () => {
+    const { runCli } = await import('../helpers.js');
+    const table = /### Where to start[\s\S]*?\n\n([\s\S]*?)\n\n/.exec(README)![1];
+    const cmds = [...table.matchAll(/`npx platewise ([^`]+)`/g)].map((m) => m[1]);
+    expect(cmds.length).toBeGreaterThanOrEqual(3);
+    const statuses = cmds.map((c) => runCli(c.split(' ')).status);
+    // designer, fabricator (measure), the job batch (one deliberate pierce mismatch), inspector (compare)
+    expect(statuses).toEqual([0, 0, 1, 1]);
+  });
 });
