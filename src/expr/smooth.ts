@@ -106,7 +106,12 @@ function powerIv(a: Iv, exponent: ExprNode, e: Iv, w: Walk): Iv {
     const p = powIv(a, -k);
     return out(Math.min(1 / p[0], 1 / p[1]), Math.max(1 / p[0], 1 / p[1]));
   }
-  if (!(a[0] > 0)) { w.rough = true; return ALL; }
+  if (!(a[0] > 0)) {
+    w.rough = true;
+    // defined only where the base is ≥ 0: with a constant positive exponent the values stay in [0^e, hi^e]
+    if (e[0] === e[1] && e[0] > 0 && !usesXY(exponent) && a[1] >= 0) return out(Math.pow(Math.max(a[0], 0), e[0]), Math.pow(a[1], e[0]));
+    return ALL;
+  }
   // b^e = exp(e·ln b), monotone pieces
   const l = out(Math.log(a[0]), Math.log(a[1]));
   const m = mulIv(l, e);
@@ -137,25 +142,31 @@ function callIv(n: Extract<ExprNode, { kind: 'call' }>, w: Walk): Iv {
       return out(Math.tan(a[0]), Math.tan(a[1]));
     }
     case 'asin': case 'acos':
-      if (!(a[0] > -1 && a[1] < 1)) return rough();
+      if (!(a[0] > -1 && a[1] < 1)) {
+        // defined on [−1, 1] only: the values stay within the function's range there
+        w.rough = true;
+        return n.name === 'asin' ? [-Math.PI / 2, Math.PI / 2] : [0, Math.PI];
+      }
       return n.name === 'asin' ? out(Math.asin(a[0]), Math.asin(a[1])) : out(Math.acos(a[1]), Math.acos(a[0]));
     case 'atan': return out(Math.atan(a[0]), Math.atan(a[1]));
     case 'atan2': {
       // atan2(y, x) jumps across the negative x axis and is singular at the origin
       const [yv, xv] = args;
-      if (!(xv[0] > 0 || yv[0] > 0 || yv[1] < 0)) return rough();
+      // (the values stay within [−π, π] either way)
+      if (!(xv[0] > 0 || yv[0] > 0 || yv[1] < 0)) w.rough = true;
       return [-Math.PI, Math.PI];
     }
     case 'exp': return out(Math.exp(a[0]), Math.exp(a[1]));
     case 'log':
-      if (!(a[0] > 0)) return rough();
+      if (!(a[0] > 0)) { w.rough = true; return a[1] > 0 ? [-Infinity, Math.log(a[1]) + 1e-15 * Math.abs(Math.log(a[1]))] : ALL; }
       return out(Math.log(a[0]), Math.log(a[1]));
     case 'sqrt':
-      if (!(a[0] > 0)) return rough();
+      // defined where the argument is ≥ 0: the values stay in [0, √hi]
+      if (!(a[0] > 0)) { w.rough = true; return a[1] >= 0 ? out(0, Math.sqrt(a[1])) : ALL; }
       return out(Math.sqrt(a[0]), Math.sqrt(a[1]));
     case 'pow': return powerIv(a, n.args[1]!, args[1], w);
     case 'hypot': {
-      if (args.every((v) => v[0] <= 0 && v[1] >= 0)) return rough();
+      if (args.every((v) => v[0] <= 0 && v[1] >= 0)) w.rough = true;
       let hi = 0;
       for (const v of args) hi += Math.max(v[0] * v[0], v[1] * v[1]);
       return out(0, Math.sqrt(hi));
