@@ -22,9 +22,10 @@
  * interval enclosure's oscillation) bounds a leaf's error, but overstated it 10⁵–10⁶ times on a kink tangent to
  * a hole and on √(R² − r²) at its rim, and drove every run to the triangle cap.) On a leaf proved smooth the estimate follows the observed convergence: the
  * companion-rule difference on the parent (dRp) and on the children (dRc) give the contraction r = dRc/dRp
- * of one halving; in the asymptotic range (r ≤ 1/8 and the rule's own refinement difference dP ≤ 2·dRp)
- * the children's error is about dP·ρ/(1 − ρ) with ρ ≤ r (the rule converges at least as fast as its
- * companion), and the indicator is RICHARDSON_SAFETY·r·max(dP, dRc); elsewhere max(dP, dRc) as above.
+ * of one halving; in the asymptotic range (r ≤ 1/8, and dRc ≤ dP: the children's rules agree better than
+ * parent and children, so P and C did not agree by chance) the children's error is about dP·ρ/(1 − ρ) with
+ * ρ ≤ r (the rule converges at least as fast as its companion), and the indicator is
+ * RICHARDSON_SAFETY·max(r, 2^−(p+1))·max(dP, dRc); elsewhere max(dP, dRc) as above.
  * Without this the estimate was that of the coarse value, 10³–10⁵ times the fine value's error.
  *
  * Without a tolerance the leaves are the base mesh: the same two levels (mesh and its uniform refinement) as
@@ -116,7 +117,7 @@ const ROUNDOFF = 64 * Number.EPSILON;
 /** Widening of the indicator of a leaf where smoothness is not proved (see the file comment). */
 export const UNVERIFIED_WIDEN = 4;
 /** Safety factor on the observed contraction in the asymptotic estimate (see the file comment). */
-export const RICHARDSON_SAFETY = 8;
+export const RICHARDSON_SAFETY = 4;
 
 /**
  * Integrate K components over the mesh (see the file comment). Throws whatever `f` throws (an InputError
@@ -200,7 +201,7 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
     let size = 0;
     for (let j = 0; j < 4; j++) size += Math.abs(vals[(c + j) * K + k]);
     const noise = 16 * ROUNDOFF * size;
-    if (dRp > noise && dRc <= dRp / 8 && dP <= 2 * dRp) {
+    if (dRp > noise && dRc <= dRp / 8 && dRc <= dP) {
       return Math.min(plain, RICHARDSON_SAFETY * Math.max(dRc / dRp, rho) * plain);
     }
     return plain;
