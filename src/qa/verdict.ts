@@ -186,6 +186,7 @@ function rowFor(sv: StatedValue, quantities: Readonly<Record<string, Quantity | 
   const j = judge(stated, tol, q, { angle: (info?.dimension ?? sv.dimension) === 'angle', relativeBase: base });
   const row: ComparisonRow = { ...common, computed: q.value, error: q.error, difference: j.difference, tolerance: j.tolerance, verdict: j.verdict };
   if (!Number.isFinite(q.value) || !Number.isFinite(q.error)) row.note = 'computed value or its error is not finite';
+  else if (q.errorIsBound === false) row.note = 'the computed error is an estimate, not a bound';
   return row;
 }
 

@@ -111,6 +111,7 @@ describe('compareAll', () => {
     const ref = parseReferenceCsv('quantity,value,unit,tolerance\nIx,2.5e6,mm^4,10 mm^4\n', 'ref.csv');
     const c = compareAll(ref, { ...computed, Ix: { value: 2.5e6, error: 1, errorIsBound: false } }, ctx);
     expect(c.rows[0].verdict).toBe('inconclusive');
+    expect(c.rows[0].note).toMatch(/not a bound/);
     expect(c.verdict).toBe('inconclusive');
     // nor can it fail: far off, the difference could still be within an unbounded error
     const far = parseReferenceCsv('quantity,value,unit,tolerance\nIx,3e6,mm^4,10 mm^4\n', 'ref.csv');
