@@ -68,8 +68,10 @@ function halfPlaneLoop(l: KinkLine, box: readonly number[], keepPositive: boolea
       outPts.push([a[0] + (b[0] - a[0]) * t, a[1] + (b[1] - a[1]) * t]);
     }
   }
-  if (outPts.length < 3) return null;
-  return polygonLoop(outPts, 'kink cut');
+  // a line through a corner of the square gives that corner twice
+  const pts = outPts.filter((q, i) => { const n = outPts[(i + 1) % outPts.length]; return q[0] !== n[0] || q[1] !== n[1]; });
+  if (pts.length < 3) return null;
+  return polygonLoop(pts, 'kink cut');
 }
 
 function cutRegion(r: Region, l: KinkLine): Region[] | null {

@@ -102,10 +102,10 @@ export function meshForIntegrands(part: Part, trees: readonly ExprNode[], opts: 
   const meshOpts: MeshOptions = { ...opts, origin, maxStraight: polynomial ? undefined : integrandChordLength(part, opts) };
   let mesh: Mesh | null = null, pieces = 1;
   if (cuttable && lines.length > 0) {
-    const cut = cutAlongLines(part, lines);
-    // a piece the mesher cannot take (a line tangent to a hole leaves a pinch point) drops the cut: the whole
-    // part is integrated and the triangles across the lines stay unverified
+    // a piece the mesher cannot take (a line tangent to a hole leaves a pinch point), or a cut the booleans
+    // refuse, drops the cut: the whole part is integrated and the triangles across the lines stay unverified
     try {
+      const cut = cutAlongLines(part, lines);
       if (cut !== null) { mesh = joinMeshes(cut.map((p) => buildMesh(preparePart(p), meshOpts).mesh)); pieces = cut.length; }
     } catch (e) {
       if (!(e instanceof InputError || e instanceof MethodError)) throw e;

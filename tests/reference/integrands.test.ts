@@ -28,6 +28,7 @@ const ref = (key: string): number => {
 const rect = (x: number, y: number, w: number, h: number) => ({ rectangle: { corner: [x, y], size: [w, h] } });
 const circleHole = () => partFromObject({ outline: rect(0, 0, 300, 100), cutouts: [{ circle: { center: [100, 50], diameter: 40 } }] });
 const rectHole = () => partFromObject({ outline: rect(0, 0, 300, 100), cutouts: [rect(150, 20, 50, 60)] });
+const squareHole = () => partFromObject({ outline: rect(0, 0, 100, 100), cutouts: [{ circle: { center: [50, 50], diameter: 30 } }] });
 const disc = (d: number) => partFromObject({ outline: { circle: { center: [0, 0], diameter: d } } });
 const gaussPart = () => partFromObject({ outline: rect(0, 0, 300, 200) });
 const gaussExpr = (s: number) => `exp(-((x-120)^2 + (y-90)^2)/${2 * s * s})`;
@@ -55,6 +56,10 @@ const CASES: Case[] = [
     { name: `kink |x − ${c}|, square hole x = 150…200`, part: rectHole, expr: `abs(x - ${c})`, exact: ref(`kink-rect-hole abs c=${c}`), bounded: true },
     { name: `kink 2·max(x − ${c}, 0), square hole`, part: rectHole, expr: `2*max(x - ${c}, 0)`, exact: ref(`kink-rect-hole max c=${c}`), bounded: true },
   ]),
+  // kink lines through the corners of the outline (and through the hole), alone and two at once
+  ...[['|x − y|', 'abs(x - y)', 'diagonal abs'], ['|x − y|·|x + y − 100|', 'abs(x-y)*abs(x+y-100)', 'diagonal product']].map(([n, e, key]) => ({
+    name: `kink ${n} through the square's corners`, part: squareHole, expr: e, exact: ref(key), bounded: true,
+  })),
   { name: 'near-singular 1/√(r² + 1e-6)', part: () => partFromObject({ outline: rect(0, 0, 100, 60) }), expr: '1/sqrt((x-37.3)^2 + (y-21.7)^2 + 1e-6)', exact: ref('near-singular'), bounded: true },
   { name: 'boundary-singular punch 1/√(R² − r²)', part: () => disc(200), expr: '1/sqrt(10000 - x^2 - y^2)', exact: ref('punch R=100'), bounded: false },
   { name: 'only inside √(R² − r²)', part: () => disc(80), expr: 'sqrt(1600 - x^2 - y^2)', exact: ref('hemisphere R=40'), bounded: false },

@@ -103,6 +103,40 @@ put('panel cos20', mp.nstr(panel('cos', 20), 30), 'mpmath', 'cos((x+y)/20) over 
 put('panel exp', mp.nstr(panel('exp', 1000), 30), 'mpmath', 'exp((x+y)/1000) over the 1,250-hole panel: rectangle closed form minus discs via I1')
 put('panel area', sp.N(2000 * 1000 - 1250 * sp.pi * 100, 25), 'sympy', 'area of the 1,250-hole panel: 2e6 - 1250*pi*10^2')
 
+# 8. Kink lines through the corners of the 100 x 100 square with a Ø30 hole at its centre: |x - y| and
+#    |x - y|·|x + y - 100|. In u = (x − y)/√2, v = (x + y − 100)/√2 the square is the diamond |u| + |v| ≤ 50√2 and
+#    the hole the disc of radius 15 about the origin: ∫|x − y| = 100³/3 − √2·(4/3)·15³ and
+#    ∫|x − y||x + y − 100| = (50√2)⁴/3 − 15⁴ (sympy below), checked by scipy dblquad on the square (x, y) split
+#    along both diagonals, minus the disc in polar coordinates.
+uu, vv, a = sp.symbols('u v a', positive=True)
+Yv = sp.Symbol('y', real=True)
+sq1 = 2 * sp.integrate(sp.integrate(X - Yv, (Yv, 0, X)), (X, 0, 100))  # symmetric about y = x
+disc1 = sp.sqrt(2) * sp.Rational(4, 3) * 15**3
+sq2 = 2 * 4 * sp.integrate(sp.integrate(uu * vv, (vv, 0, a - uu)), (uu, 0, a)).subs(a, 50 * sp.sqrt(2))
+disc2 = 2 * 4 * sp.integrate(sp.integrate(uu * vv, (vv, 0, sp.sqrt(225 - uu**2))), (uu, 0, 15))
+d1, d2 = sp.N(sq1 - disc1, 25), sp.N(sq2 - disc2, 25)
+def sq_part(f):
+    # four triangles between the diagonals of the square, f smooth on each
+    tot = 0.0
+    tot += integrate.dblquad(lambda y, x: f(x, y), 0, 50, lambda x: x, lambda x: 100 - x, epsabs=1e-10, epsrel=1e-13)[0]
+    tot += integrate.dblquad(lambda y, x: f(x, y), 50, 100, lambda x: 100 - x, lambda x: x, epsabs=1e-10, epsrel=1e-13)[0]
+    tot += integrate.dblquad(lambda x, y: f(x, y), 0, 50, lambda y: y, lambda y: 100 - y, epsabs=1e-10, epsrel=1e-13)[0]
+    tot += integrate.dblquad(lambda x, y: f(x, y), 50, 100, lambda y: 100 - y, lambda y: y, epsabs=1e-10, epsrel=1e-13)[0]
+    return tot
+def disc_part(f):
+    tot = 0.0
+    for k in range(4):
+        lo = -math.pi / 4 + k * math.pi / 2
+        tot += integrate.dblquad(lambda rho, th: f(50 + rho * math.cos(th), 50 + rho * math.sin(th)) * rho, lo, lo + math.pi / 2, 0, 15, epsabs=1e-10, epsrel=1e-13)[0]
+    return tot
+f1 = lambda x, y: abs(x - y)
+f2 = lambda x, y: abs(x - y) * abs(x + y - 100)
+for f, d in [(f1, d1), (f2, d2)]:
+    q = sq_part(f) - disc_part(f)
+    assert abs(q - float(d)) <= 1e-9 * float(d), (q, d)
+put('diagonal abs', d1, 'sympy', '|x - y| over the 100 x 100 square minus the disc centre (50,50) radius 15; scipy dblquad agrees')
+put('diagonal product', d2, 'sympy', '|x - y|*|x + y - 100| over the same part; scipy dblquad agrees')
+
 with open(os.path.join(os.path.dirname(os.path.abspath(__file__)), 'references.json'), 'w') as fh:
     json.dump(out, fh, indent=2)
     fh.write('\n')
