@@ -1,6 +1,7 @@
 /**
  * The built command line (dist/cli/main.js): integrate, materials and the mass flags of measure.
  */
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { runCli as platewise } from '../helpers.js';
 
@@ -110,6 +111,24 @@ describe('platewise materials and measure with mass', () => {
     const trueErr = Math.abs(m.quantities.mass.value - exact);
     expect(trueErr).toBeLessThanOrEqual(1e-9 * exact);
     expect(m.quantities.mass.error).toBeGreaterThanOrEqual(trueErr);
+  });
+
+  it('a non-polynomial thickness at default settings: 1 ≤ estimate / true error ≤ 1000 (issue 13 item 7)', () => {
+    // thickness 10 mm + a Gaussian bump of width s at (120, 90) on a 300 × 200 mm plate, steel 7850 kg/m³; the bump's
+    // integral is the mpmath erf closed form in tests/reference/integrands/references.json.
+    // Before (453840a): estimate / true error 49, 6.9e3, 1.6e6 for s = 12, 30, 60.
+    const refs = JSON.parse(readFileSync(new URL('../reference/integrands/references.json', import.meta.url), 'utf8')).cases;
+    const plate = JSON.stringify({ part: 'r', units: 'mm', outline: { rectangle: { corner: [0, 0], size: [300, 200] } } });
+    for (const s of [12, 30, 60]) {
+      const exact = 7850e-9 * (10 * 60000 + refs[s === 12 ? 'gauss' : `gauss s=${s}`].value);
+      const out = platewise(['measure', '-', '--format', 'part-json', '--thickness', `10 + exp(-((x-120)^2 + (y-90)^2)/${2 * s * s})`, '--density', '7850', '--json'], plate);
+      expect(out.status, out.stderr).toBe(0);
+      const q = JSON.parse(out.stdout).massProperties.quantities.mass;
+      const trueErr = Math.abs(q.value - exact);
+      expect(trueErr).toBeGreaterThan(1e-14 * exact); // above round-off
+      expect(q.error / trueErr).toBeGreaterThanOrEqual(1);
+      expect(q.error / trueErr).toBeLessThanOrEqual(1000);
+    }
   });
 
   it('thickness going negative is an error with its place', () => {
