@@ -7,12 +7,13 @@
  * positive and finite stops the run with an InputError naming where the field was given and the part
  * coordinates of the first such point.
  */
-import { InputError } from '../base/errors.js';
+import { InputError, MethodError } from '../base/errors.js';
 import type { Mesh } from '../mesh/mesh.js';
-import { compileExpression } from '../expr/index.js';
-import type { Part } from '../geometry/part.js';
+import { type ExprNode, compileExpression, polynomialDegree } from '../expr/index.js';
+import { kinkLines, smoothOnBox, type KinkLine } from '../expr/smooth.js';
+import { type Part, partBox } from '../geometry/part.js';
 import { type DensityOrigin, type ResolvedLayer, fieldError } from '../model/plate.js';
-import { type MeshOptions, buildMesh } from '../mesh/build.js';
+import { type MeshOptions, buildMesh, integrandChordLength, joinMeshes, localOrigin } from '../mesh/build.js';
 import { MASS_KEYS, MASS_SUMS, type MassKey, type MassValues, massFromSums, propagateErrors, shiftMassSums } from '../properties/mass.js';
 import type { Quantity } from '../properties/quantities.js';
 import { DEFAULT_DEGREE } from '../quadrature/rules.js';
@@ -21,6 +22,7 @@ import { type AdaptiveResult, integrateAdaptive } from './adaptive.js';
 import { type StopReason, combineStops } from '../quadrature/stop.js';
 import { preparePart } from './measure.js';
 import { checkPoles } from './singular.js';
+import { cutAlongLines } from './kinks.js';
 
 export interface IntegrationOptions extends MeshOptions {
   degree?: number;
@@ -46,9 +48,15 @@ export interface IntegrationMethod {
   points: number;
   millis: number;
   minJacobianRatio: number;
+  /** False when smoothness was not proved on every triangle: the ± of every value is then not a bound. */
+  errorIsBound: boolean;
+  /** Triangles (leaves) on which the integrand was not proved smooth. */
+  unverifiedTriangles: number;
+  /** Straight kink or jump lines of the integrand the part was cut along (0: none, or cutting failed). */
+  kinkCuts: number;
 }
 
-function methodOf(results: AdaptiveResult[], tolerance: number | undefined): IntegrationMethod {
+function methodOf(results: AdaptiveResult[], tolerance: number | undefined, kinkCuts: number[]): IntegrationMethod {
   const worst = combineStops(results.map((r) => r.stopped));
   return {
     degree: results[0].degree,
@@ -62,7 +70,62 @@ function methodOf(results: AdaptiveResult[], tolerance: number | undefined): Int
     points: results.reduce((n, r) => n + r.points, 0),
     millis: results.reduce((n, r) => n + r.millis, 0),
     minJacobianRatio: Math.min(...results.map((r) => r.minJacobianRatio)),
+    errorIsBound: results.every((r) => r.errorIsBound),
+    unverifiedTriangles: results.reduce((n, r) => n + r.unverifiedLeaves, 0),
+    kinkCuts: kinkCuts.reduce((a, b) => a + b, 0),
   };
+}
+
+/**
+ * How to mesh a part for integrands given as expression trees (a constant field gives no tree): the straight
+ * kink and jump lines of all trees (src/expr/smooth.ts) cut the part into pieces meshed separately and joined
+ * (src/analysis/kinks.ts), long straight edges are split when an integrand is not a polynomial
+ * (integrandChordLength), and `smoothOn` proves smoothness box by box for the adaptive stopping rule.
+ */
+export interface IntegrandMesh {
+  mesh: Mesh;
+  smoothOn: (x0: number, y0: number, x1: number, y1: number) => boolean;
+  /** Lines cut along. */
+  cuts: number;
+}
+
+export function meshForIntegrands(part: Part, trees: readonly ExprNode[], opts: MeshOptions): IntegrandMesh {
+  const b = partBox(part);
+  const polynomial = trees.every((t) => polynomialDegree(t) !== null);
+  const lines: KinkLine[] = [];
+  let cuttable = true;
+  for (const t of trees) {
+    const l = kinkLines(t, b);
+    if (l === null) cuttable = false; else lines.push(...l);
+  }
+  const origin = localOrigin(part);
+  const meshOpts: MeshOptions = { ...opts, origin, maxStraight: polynomial ? undefined : integrandChordLength(part, opts) };
+  let mesh: Mesh | null = null, pieces = 1;
+  if (cuttable && lines.length > 0) {
+    // a piece the mesher cannot take (a line tangent to a hole leaves a pinch point), or a cut the booleans
+    // refuse, drops the cut: the whole part is integrated and the triangles across the lines stay unverified
+    try {
+      const cut = cutAlongLines(part, lines);
+      if (cut !== null) { mesh = joinMeshes(cut.map((p) => buildMesh(preparePart(p), meshOpts).mesh)); pieces = cut.length; }
+    } catch (e) {
+      if (!(e instanceof InputError || e instanceof MethodError)) throw e;
+    }
+    if (mesh === null) cuttable = false;
+  }
+  mesh ??= buildMesh(part, meshOpts).mesh;
+  const linearCut = cuttable;
+  return {
+    mesh,
+    smoothOn: (x0, y0, x1, y1) => trees.every((t) => smoothOnBox(t, [x0, y0, x1, y1], linearCut)),
+    cuts: cuttable && pieces > 1 ? lines.length : 0,
+  };
+}
+
+/** The quantities with the fact that their ± is not a bound, when it is not. */
+function markBound<K extends string>(q: Record<K, Quantity>, bound: boolean): Record<K, Quantity> {
+  if (bound) return q;
+  for (const k of Object.keys(q) as K[]) q[k] = { ...q[k], errorIsBound: false };
+  return q;
 }
 
 export interface LayerMass {
@@ -100,9 +163,20 @@ function boxSize(mesh: { coords: ArrayLike<number> }): [number, number] {
 }
 
 /** Integrate one layer's raw mass sums (about its mesh origin). */
-function layerSums(layer: ResolvedLayer, index: number, opts: IntegrationOptions): { result: AdaptiveResult; origin: [number, number] } {
-  const mesh = opts.meshOf ? opts.meshOf(index) : buildMesh(opts.prepared ? layer.part : preparePart(layer.part), opts).mesh;
+function layerSums(layer: ResolvedLayer, index: number, opts: IntegrationOptions): { result: AdaptiveResult; origin: [number, number]; cuts: number } {
   const T = layer.thickness, R = layer.density, z0 = layer.z0;
+  // fields given as expressions: their trees decide smoothness and the mesh shape; constant fields are smooth
+  const trees = [T, R].filter((fld) => fld.constant === undefined).map((fld) => compileExpression(fld.text, fld.where).tree);
+  const plain = trees.every((t) => polynomialDegree(t) !== null);
+  let mesh: Mesh, cuts = 0;
+  let smoothOn: (x0: number, y0: number, x1: number, y1: number) => boolean = () => true;
+  if (plain) {
+    // polynomial fields: smooth everywhere, and the shared mesh serves
+    mesh = opts.meshOf ? opts.meshOf(index) : buildMesh(opts.prepared ? layer.part : preparePart(layer.part), opts).mesh;
+  } else {
+    const im = meshForIntegrands(opts.prepared ? layer.part : preparePart(layer.part), trees, opts);
+    mesh = im.mesh; smoothOn = im.smoothOn; cuts = im.cuts;
+  }
   const f = (x: number, y: number, lx: number, ly: number, out: Float64Array) => {
     const t = T.evaluate(x, y);
     if (!(t > 0) || !Number.isFinite(t)) throw fieldError(T, t, x, y);
@@ -125,9 +199,9 @@ function layerSums(layer: ResolvedLayer, index: number, opts: IntegrationOptions
       const e2 = tol * Math.sqrt(Math.abs(s[3] * s[5]));
       return [undefined, e1, e1, undefined, e2, undefined, undefined, e6, e6, undefined];
     },
-    maxTriangles: opts.maxTriangles, maxMillis: opts.maxMillis,
+    maxTriangles: opts.maxTriangles, maxMillis: opts.maxMillis, smoothOn,
   });
-  return { result, origin: mesh.origin };
+  return { result, origin: mesh.origin, cuts };
 }
 
 /** Mass properties of every layer and of the whole stack, each value with an error estimate. */
@@ -139,9 +213,11 @@ export function measureMass(name: string, units: LengthUnit, layers: ResolvedLay
   const out: LayerMass[] = [];
   runs.forEach(({ result, origin }, i) => {
     const derive = (s: Float64Array) => massFromSums(s, origin, units);
-    const { values, errors } = propagateErrors(derive, result.fine, result.coarse, result.estimate, result.scale);
+    // the estimate bounds the fine value's error by itself (src/analysis/adaptive.ts); the coarse value's
+    // difference would only add the coarse value's error (10³–10⁵ times larger on smooth integrands)
+    const { values, errors } = propagateErrors(derive, result.fine, result.fine, result.estimate, result.scale);
     const l = layers[i];
-    out.push({ name: l.name, z0: l.z0, densityFrom: l.densityFrom, material: l.material, thickness: l.thickness.text, quantities: toQuantities(values, errors) });
+    out.push({ name: l.name, z0: l.z0, densityFrom: l.densityFrom, material: l.material, thickness: l.thickness.text, quantities: markBound(toQuantities(values, errors), result.errorIsBound) });
     const dx = origin[0] - ref[0], dy = origin[1] - ref[1];
     const f = shiftMassSums(result.fine, dx, dy), c = shiftMassSums(result.coarse, dx, dy);
     // estimates and scales shift with absolute values (bounds, not signed sums)
@@ -150,8 +226,9 @@ export function measureMass(name: string, units: LengthUnit, layers: ResolvedLay
       total.fine[k] += f[k]; total.coarse[k] += c[k]; total.estimate[k] += e[k]; total.scale[k] += s[k];
     }
   });
-  const { values, errors } = propagateErrors((s) => massFromSums(s, ref, units), total.fine, total.coarse, total.estimate, total.scale);
-  return { part: name, units, quantities: toQuantities(values, errors), layers: out, method: methodOf(runs.map((r) => r.result), opts.tolerance) };
+  const { values, errors } = propagateErrors((s) => massFromSums(s, ref, units), total.fine, total.fine, total.estimate, total.scale);
+  const method = methodOf(runs.map((r) => r.result), opts.tolerance, runs.map((r) => r.cuts));
+  return { part: name, units, quantities: markBound(toQuantities(values, errors), method.errorIsBound), layers: out, method };
 }
 
 /** Warnings of a user integral, as facts (src/output/words.ts words them). */
@@ -184,7 +261,8 @@ export function integrateExpression(input: Part, text: string, opts: Integration
   const expr = compileExpression(text, where);
   const ev = expr.evaluate;
   const part = preparePart(input);
-  const { mesh } = buildMesh(part, opts);
+  const im = expr.isConstant ? null : meshForIntegrands(part, [expr.tree], opts);
+  const mesh = im ? im.mesh : buildMesh(part, opts).mesh;
   if (!expr.isConstant) checkPoles(mesh, ev, where);
   const f = (x: number, y: number, lx: number, ly: number, out: Float64Array) => {
     const v = ev(x, y);
@@ -196,14 +274,15 @@ export function integrateExpression(input: Part, text: string, opts: Integration
     degree: opts.degree ?? DEFAULT_DEGREE, tolerance: opts.tolerance,
     // first moments: the point of action to within tolerance × part size
     absTolerance: (s, tol) => [undefined, tol * Math.abs(s[0]) * size, tol * Math.abs(s[0]) * size],
-    maxTriangles: opts.maxTriangles, maxMillis: opts.maxMillis,
+    maxTriangles: opts.maxTriangles, maxMillis: opts.maxMillis, smoothOn: im ? im.smoothOn : () => true,
   });
   const [ox, oy] = mesh.origin;
   const derive = (s: Float64Array) => ({
     integral: s[0], momentX: s[1] + ox * s[0], momentY: s[2] + oy * s[0], pointX: ox + s[1] / s[0], pointY: oy + s[2] / s[0],
   });
-  const { values, errors } = propagateErrors(derive, r.fine, r.coarse, r.estimate, r.scale);
-  const q = (k: keyof typeof values): Quantity => ({ value: values[k], error: errors[k] });
+  // the estimate bounds the fine value's error by itself (see measureMass)
+  const { values, errors } = propagateErrors(derive, r.fine, r.fine, r.estimate, r.scale);
+  const q = (k: keyof typeof values): Quantity => (r.errorIsBound ? { value: values[k], error: errors[k] } : { value: values[k], error: errors[k], errorIsBound: false });
   const warnings: IntegralWarning[] = [];
   const definedPoint = Math.abs(values.integral) > errors.integral && Number.isFinite(values.pointX) && Number.isFinite(values.pointY);
   if (!definedPoint) {
@@ -211,7 +290,7 @@ export function integrateExpression(input: Part, text: string, opts: Integration
   } else if (errors.integral > 1e-3 * Math.abs(values.integral)) {
     warnings.push({ code: 'integral-estimate-large', value: values.integral, estimate: errors.integral });
   }
-  const method = methodOf([r], opts.tolerance);
+  const method = methodOf([r], opts.tolerance, [im?.cuts ?? 0]);
   // a cap (method.stopped) is a fact of the method; the writers in src/output say it in words
   return {
     part: part.name, units: part.units, expression: text,

@@ -17,6 +17,14 @@ export interface MeshOptions {
   triangulation?: Triangulator;
   /** Largest allowed ratio of a curved edge's deviation from its chord to the triangle's height over it. */
   maxBulge?: number;
+  /**
+   * Longest straight chord, in the part's unit (default: no limit, a straight segment is one chord). Set for
+   * integrands that are not polynomials (see `integrandChordLength`): a long straight outline edge left whole
+   * becomes the base of sliver fans, whose quadrature error dominates.
+   */
+  maxStraight?: number;
+  /** Local origin (part coordinates); default the bounding-box centre. Meshes that are joined share one. */
+  origin?: [number, number];
 }
 
 export const DEFAULT_MAX_TURN = Math.PI / 4;
@@ -32,7 +40,7 @@ export function localOrigin(part: Part): [number, number] {
 export interface MeshReport { mesh: Mesh; chordSplits: number; passes: number }
 
 /** Segments of all loops (regions' outer loops then holes) and their initial chord vertices. */
-function initialChords(local: Part, maxTurn: number): { segments: Segment[]; loops: BVert[][] } {
+function initialChords(local: Part, maxTurn: number, maxStraight = Infinity): { segments: Segment[]; loops: BVert[][] } {
   const segments: Segment[] = [];
   const loops: BVert[][] = [];
   for (const r of local.regions) {
@@ -41,7 +49,8 @@ function initialChords(local: Part, maxTurn: number): { segments: Segment[]; loo
       for (const s of loop.segments) {
         const si = segments.length;
         segments.push(s);
-        const n = piecesForTurning(s, maxTurn);
+        const o = ops(s);
+        const n = o.straight ? Math.max(1, Math.ceil(o.length(s) / maxStraight)) : piecesForTurning(s, maxTurn);
         for (let i = 0; i < n; i++) verts.push({ seg: si, t: i / n });
       }
       loops.push(verts);
@@ -72,8 +81,8 @@ export function chordedBoundary(part: Part, options: MeshOptions = {}): { coords
  */
 export function buildMesh(part: Part, options: MeshOptions = {}): MeshReport {
   const maxBulge = options.maxBulge ?? DEFAULT_MAX_BULGE;
-  const origin = localOrigin(part);
-  const { segments, loops } = initialChords(translatePart(part, -origin[0], -origin[1]), options.maxTurn ?? DEFAULT_MAX_TURN);
+  const origin = options.origin ?? localOrigin(part);
+  const { segments, loops } = initialChords(translatePart(part, -origin[0], -origin[1]), options.maxTurn ?? DEFAULT_MAX_TURN, options.maxStraight);
 
   let splits = 0;
   splits += separateChords(loops, segments);
@@ -234,4 +243,57 @@ function badCurvedEdges(m: Mesh, maxBulge: number): Set<string> {
     }
   }
   return bad;
+}
+
+/**
+ * Straight-chord length for integrands that are not polynomials: a quarter of the median chord of the
+ * curves (the size the holes give the mesh), at most 1/16 of the part's box diagonal, so that no straight
+ * outline edge is much longer than the triangles next to it. Measured on the 2000 × 1000 panel with 1,250
+ * Ø20 holes and exp((x + y)/1000): see tests/analysis/meshShape.test.ts.
+ */
+export function integrandChordLength(part: Part, options: MeshOptions = {}): number {
+  const b = partBox(part);
+  const diag = Math.hypot(b[2] - b[0], b[3] - b[1]);
+  const lens: number[] = [];
+  const maxTurn = options.maxTurn ?? DEFAULT_MAX_TURN;
+  for (const r of part.regions) for (const loop of [r.outer, ...r.holes]) for (const s of loop.segments) {
+    const o = ops(s);
+    if (!o.straight) lens.push(o.length(s) / piecesForTurning(s, maxTurn));
+  }
+  lens.sort((p, q) => p - q);
+  const curved = lens.length > 0 ? 4 * lens[lens.length >> 1] : Infinity;
+  return Math.min(diag / 16, curved);
+}
+
+/**
+ * One mesh made of several meshes with the same origin (pieces of a part cut along lines): vertices,
+ * triangles and curve records are appended; vertices on shared cuts are repeated (harmless for
+ * integration: every triangle lies in one piece).
+ */
+export function joinMeshes(meshes: readonly Mesh[]): Mesh {
+  if (meshes.length === 1) return meshes[0];
+  const origin = meshes[0].origin;
+  let nv = 0, nt = 0, nc = 0;
+  for (const m of meshes) {
+    if (m.origin[0] !== origin[0] || m.origin[1] !== origin[1]) throw new Error('joinMeshes: meshes with different origins');
+    nv += m.coords.length / 2; nt += m.count; nc += m.curveSeg.length;
+  }
+  const coords = new Float64Array(2 * nv), triangles = new Uint32Array(3 * nt), edgeCurve = new Int32Array(3 * nt);
+  const curveSeg = new Uint32Array(nc), curveS0 = new Float64Array(nc), curveS1 = new Float64Array(nc);
+  const segments: Segment[] = [];
+  let v = 0, t = 0, c = 0;
+  for (const m of meshes) {
+    coords.set(m.coords, 2 * v);
+    for (let i = 0; i < 3 * m.count; i++) {
+      triangles[3 * t + i] = m.triangles[i] + v;
+      edgeCurve[3 * t + i] = m.edgeCurve[i] < 0 ? -1 : m.edgeCurve[i] + c;
+    }
+    for (let i = 0; i < m.curveSeg.length; i++) {
+      curveSeg[c + i] = m.curveSeg[i] + segments.length;
+      curveS0[c + i] = m.curveS0[i]; curveS1[c + i] = m.curveS1[i];
+    }
+    segments.push(...m.segments);
+    v += m.coords.length / 2; t += m.count; c += m.curveSeg.length;
+  }
+  return { origin, coords, triangles, edgeCurve, curveSeg, curveS0, curveS1, segments, count: nt, level: 0 };
 }

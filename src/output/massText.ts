@@ -9,7 +9,7 @@
  */
 import type { ExpressionResult, MassResult } from '../analysis/plate.js';
 import { isCap } from '../quadrature/stop.js';
-import { stopText } from './stopText.js';
+import { notBoundText, stopText } from './stopText.js';
 import { GEOMETRY_CAUTION, MASS_CAUTION } from './cautions.js';
 import { type MassMomentUnit, type MassUnit, massFromKg, massMomentFromSI } from '../model/massUnits.js';
 import { MASS_QUANTITIES, type MassKey } from '../properties/mass.js';
@@ -25,9 +25,9 @@ export interface MassUnits {
 function convert(key: MassKey, q: Quantity, u: MassUnits): Quantity {
   const info = MASS_QUANTITIES.find((i) => i.key === key)!;
   switch (info.dimension) {
-    case 'mass': return { value: massFromKg(q.value, u.mass), error: massFromKg(q.error, u.mass) };
-    case 'massMoment': return { value: massMomentFromSI(q.value, u.inertia), error: massMomentFromSI(q.error, u.inertia) };
-    default: return { value: q.value, error: q.error };
+    case 'mass': return { ...q, value: massFromKg(q.value, u.mass), error: massFromKg(q.error, u.mass) };
+    case 'massMoment': return { ...q, value: massMomentFromSI(q.value, u.inertia), error: massMomentFromSI(q.error, u.inertia) };
+    default: return { ...q };
   }
 }
 
@@ -63,6 +63,7 @@ export function massText(r: MassResult, u: MassUnits): string {
   }
   const m = r.method;
   out.push('', `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on ${m.triangles} triangles (from ${m.baseTriangles}); ${stopText(m)}; estimate = refinement and companion-rule differences, propagated through each quantity, + round-off allowance`);
+  if (!m.errorIsBound) out.push(`note: ${notBoundText(m)}`);
   out.push('', MASS_CAUTION);
   return out.join('\n') + '\n';
 }
@@ -102,6 +103,7 @@ export function integralText(r: ExpressionResult, fUnit?: string): string {
     `${r.part} — f(x, y) = ${r.expression}; x, y in ${L}`, '', renderRows(rowsOut), '',
     `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on ${m.triangles} triangles (from ${m.baseTriangles}); ${stopText(m)}`,
   ];
+  if (!m.errorIsBound) out.push(`note: ${notBoundText(m)}`);
   for (const w of warningsOf(r)) out.push(`warning: ${w}`);
   out.push('', GEOMETRY_CAUTION);
   return out.join('\n') + '\n';

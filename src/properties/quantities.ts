@@ -9,6 +9,11 @@ export interface Quantity {
   value: number;
   /** Estimated absolute error, in the value's units; never negative. */
   error: number;
+  /**
+   * Present and false when the error is an estimate that is not known to bound the true error (an integrand
+   * not proved smooth: a kink, jump or singularity); verdicts on such a value are inconclusive.
+   */
+  errorIsBound?: false;
 }
 
 /**

@@ -6,7 +6,8 @@
  *   pass          when d + e ≤ T   (even in the worst case allowed by our estimate the value is within T)
  *   fail          when d − e > T   (even in the best case it is outside T)
  *   inconclusive  otherwise        (our own uncertainty is too large to decide), and whenever the computed
- *                                  value or its error is not a finite number, or the quantity was not computed.
+ *                                  value or its error is not a finite number, the error is not a bound
+ *                                  (errorIsBound: false), or the quantity was not computed.
  * A relative tolerance f means T = f·|stated| (the stated value is the reference), so a relative tolerance
  * on a stated zero is zero; the defaults below avoid that where zero is a normal value.
  *
@@ -66,7 +67,8 @@ export function judge(stated: number, tolerance: Tolerance, computed: Quantity, 
   const T = toleranceValue(tolerance, stated, options.relativeBase);
   const e = computed.error;
   const diff = options.angle ? angleDifference(computed.value, stated) : computed.value - stated;
-  if (!Number.isFinite(diff) || !Number.isFinite(e) || !(e >= 0) || !(T >= 0)) {
+  // an error that is not a bound (computed.errorIsBound === false) cannot decide anything
+  if (!Number.isFinite(diff) || !Number.isFinite(e) || !(e >= 0) || !(T >= 0) || computed.errorIsBound === false) {
     return { verdict: 'inconclusive', difference: diff, tolerance: T, error: e };
   }
   const d = Math.abs(diff);
@@ -184,6 +186,7 @@ function rowFor(sv: StatedValue, quantities: Readonly<Record<string, Quantity | 
   const j = judge(stated, tol, q, { angle: (info?.dimension ?? sv.dimension) === 'angle', relativeBase: base });
   const row: ComparisonRow = { ...common, computed: q.value, error: q.error, difference: j.difference, tolerance: j.tolerance, verdict: j.verdict };
   if (!Number.isFinite(q.value) || !Number.isFinite(q.error)) row.note = 'computed value or its error is not finite';
+  else if (q.errorIsBound === false) row.note = 'the computed error is an estimate, not a bound';
   return row;
 }
 

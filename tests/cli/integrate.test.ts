@@ -1,6 +1,7 @@
 /**
  * The built command line (dist/cli/main.js): integrate, materials and the mass flags of measure.
  */
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { runCli as platewise } from '../helpers.js';
 
@@ -32,6 +33,21 @@ describe('platewise integrate', () => {
     const cap = platewise(['integrate', '-', '--format', 'part-json', '--expr', expr, '--tolerance', '1e-12', '--max-triangles', '1000'], gate);
     expect(cap.status).toBe(0);
     expect(cap.stdout).toMatch(/stopped at cap \(triangle limit reached/);
+  });
+
+  it('a rim-singular integrand: the ± is marked "not a bound" in JSON and in words (issue 13 item 5)', () => {
+    const disc = JSON.stringify({ part: 'punch', units: 'mm', outline: { circle: { center: [0, 0], diameter: 200 } } });
+    const j = JSON.parse(platewise(['integrate', '-', '--format', 'part-json', '--expr', '1/sqrt(10000 - x^2 - y^2)', '--json'], disc).stdout);
+    expect(j.method.errorIsBound).toBe(false);
+    expect(j.method.unverifiedTriangles).toBeGreaterThan(0);
+    expect(j.quantities.integral.errorIsBound).toBe(false);
+    const t = platewise(['integrate', '-', '--format', 'part-json', '--expr', '1/sqrt(10000 - x^2 - y^2)', '--tolerance', '1e-4', '--max-triangles', '20000'], disc);
+    expect(t.stdout).toMatch(/^note: the ± values are estimates, not bounds/m);
+    expect(t.stdout).not.toMatch(/tolerance met/);
+    // negative control: a smooth integrand on the same disc keeps its bound and says nothing of the kind
+    const s = platewise(['integrate', '-', '--format', 'part-json', '--expr', 'exp(x/100)', '--json'], disc);
+    expect(JSON.parse(s.stdout).method.errorIsBound).toBe(true);
+    expect(JSON.parse(s.stdout).quantities.integral.errorIsBound).toBeUndefined();
   });
 
   it('bad input: one line, exit 2', () => {
@@ -76,6 +92,43 @@ describe('platewise materials and measure with mass', () => {
     const doubler = (200 * 150 - Math.PI * 400) * 12 * 7850e-9;
     const got = d.massProperties.layers[1].quantities.mass;
     expect(Math.abs(got.value - doubler)).toBeLessThanOrEqual(got.error + 1e-12);
+  });
+
+  it('a thickness that jumps across a hole: the part is cut along the jump, the mass meets its closed form', () => {
+    // 2000 × 1000 mm plate, Ø300 hole at (1000, 500); thickness 10 mm left of x = 1010, 12 mm right; steel 7850 kg/m³.
+    // Closed form: the disc's area left of x = 1000 + d is r²(π/2 + asin(d/r)) + d·√(r² − d²) (circular segment).
+    // Before (453840a) with --tolerance 1e-9: triangle cap, true error 4.9e-4 kg, estimate 4.9e-5 kg (0.1 of it).
+    const plate = JSON.stringify({ part: 'pk', units: 'mm', outline: { rectangle: { corner: [0, 0], size: [2000, 1000] } }, cutouts: [{ circle: { center: [1000, 500], diameter: 300 } }] });
+    const r = 150, d = 10;
+    const left = r * r * (Math.PI / 2 + Math.asin(d / r)) + d * Math.sqrt(r * r - d * d);
+    const exact = 7850e-9 * (10 * (1010 * 1000 - left) + 12 * (990 * 1000 - (Math.PI * r * r - left)));
+    const out = platewise(['measure', '-', '--format', 'part-json', '--thickness', 'if(x < 1010, 10, 12)', '--density', '7850', '--tolerance', '1e-9', '--json'], plate);
+    expect(out.status, out.stderr).toBe(0);
+    const m = JSON.parse(out.stdout).massProperties;
+    expect(m.method.kinkCuts).toBe(1);
+    expect(m.method.stopped).toBe('tolerance');
+    expect(m.method.errorIsBound).toBe(true);
+    const trueErr = Math.abs(m.quantities.mass.value - exact);
+    expect(trueErr).toBeLessThanOrEqual(1e-9 * exact);
+    expect(m.quantities.mass.error).toBeGreaterThanOrEqual(trueErr);
+  });
+
+  it('a non-polynomial thickness at default settings: 1 ≤ estimate / true error ≤ 1000 (issue 13 item 7)', () => {
+    // thickness 10 mm + a Gaussian bump of width s at (120, 90) on a 300 × 200 mm plate, steel 7850 kg/m³; the bump's
+    // integral is the mpmath erf closed form in tests/reference/integrands/references.json.
+    // Before (453840a): estimate / true error 49, 6.9e3, 1.6e6 for s = 12, 30, 60.
+    const refs = JSON.parse(readFileSync(new URL('../reference/integrands/references.json', import.meta.url), 'utf8')).cases;
+    const plate = JSON.stringify({ part: 'r', units: 'mm', outline: { rectangle: { corner: [0, 0], size: [300, 200] } } });
+    for (const s of [12, 30, 60]) {
+      const exact = 7850e-9 * (10 * 60000 + refs[s === 12 ? 'gauss' : `gauss s=${s}`].value);
+      const out = platewise(['measure', '-', '--format', 'part-json', '--thickness', `10 + exp(-((x-120)^2 + (y-90)^2)/${2 * s * s})`, '--density', '7850', '--json'], plate);
+      expect(out.status, out.stderr).toBe(0);
+      const q = JSON.parse(out.stdout).massProperties.quantities.mass;
+      const trueErr = Math.abs(q.value - exact);
+      expect(trueErr).toBeGreaterThan(1e-14 * exact); // above round-off
+      expect(q.error / trueErr).toBeGreaterThanOrEqual(1);
+      expect(q.error / trueErr).toBeLessThanOrEqual(1000);
+    }
   });
 
   it('thickness going negative is an error with its place', () => {

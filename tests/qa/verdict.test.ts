@@ -107,6 +107,18 @@ describe('compareAll', () => {
     expect(c2.verdict).toBe('inconclusive');
   });
 
+  it('a value whose ± is not a bound (errorIsBound: false) is inconclusive, however close (issue 13 item 5)', () => {
+    const ref = parseReferenceCsv('quantity,value,unit,tolerance\nIx,2.5e6,mm^4,10 mm^4\n', 'ref.csv');
+    const c = compareAll(ref, { ...computed, Ix: { value: 2.5e6, error: 1, errorIsBound: false } }, ctx);
+    expect(c.rows[0].verdict).toBe('inconclusive');
+    expect(c.rows[0].note).toMatch(/not a bound/);
+    expect(c.verdict).toBe('inconclusive');
+    // nor can it fail: far off, the difference could still be within an unbounded error
+    const far = parseReferenceCsv('quantity,value,unit,tolerance\nIx,3e6,mm^4,10 mm^4\n', 'ref.csv');
+    expect(compareAll(far, { ...computed, Ix: { value: 2.5e6, error: 1, errorIsBound: false } }, ctx).rows[0].verdict).toBe('inconclusive');
+    expect(compareAll(far, computed, ctx).rows[0].verdict).toBe('fail');
+  });
+
   it('default length tolerance scales with the part unit', () => {
     const dIn = defaultTolerance('centroidX', 'length', { lengthUnit: 'in', partSize: 10 });
     expect(dIn.tolerance).toEqual({ kind: 'absolute', value: 0.01 / 25.4 + 1e-3 });
