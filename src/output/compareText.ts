@@ -31,6 +31,41 @@ function withUnit(v: string, unit: string): string {
 
 const VERDICT_WORD = { pass: 'pass', fail: 'FAIL', inconclusive: 'inconclusive' } as const;
 
+const SLIP_UNITS: Record<number, string> = { 1: 'in for mm', 2: 'in² for mm²', 3: 'in³ for mm³', 4: 'in⁴ for mm⁴' };
+
+/** Words for a row's hint, its reference note, and what would decide an inconclusive row. */
+export function rowAdvice(r: ComparisonRow): string[] {
+  const out: string[] = [];
+  if (r.note) out.push(r.note);
+  if (r.statedNote) out.push(`the reference notes: "${r.statedNote}"`);
+  const h = r.hint;
+  if (h?.code === 'opposite-sign') out.push('the stated value is the computed one with the opposite sign: the reference may use the other sign convention for the product of inertia');
+  else if (h?.code === 'other-principal-axis') out.push('the stated angle differs by a right angle: it may be the angle of the other principal axis (I2)');
+  else if (h?.code === 'unit-slip') {
+    const what = h.base === 25.4 ? `a factor 25.4${Math.abs(h.power) === 1 ? '' : `^${Math.abs(h.power)}`} (${SLIP_UNITS[Math.abs(h.power)] ?? 'inches for millimetres'}${h.power < 0 ? ', or the other way round' : ''})` : `a factor 10^${h.power}`;
+    out.push(`stated = computed × ${formatNumber(h.factor, 6)}: ${what} — a unit slip in the reference or the drawing?`);
+  }
+  if (r.verdict === 'inconclusive' && r.computed !== null) {
+    out.push(r.note === 'the computed error is an estimate, not a bound'
+      ? 'cannot be decided here: the ± of this value is an estimate, not a bound (see the method notes)'
+      : `our estimate (± ${formatError(r.error ?? NaN)}) is too large to decide against the tolerance: raise --degree or --levels (or, for mass values, give --tolerance), or widen the tolerance if the drawing allows`);
+  } else if (r.verdict === 'inconclusive' && r.computed === null && !r.note?.startsWith('not computed:')) {
+    out.push('not computed in this run: give what it needs (a thickness and a material for mass values)');
+  }
+  return out;
+}
+
+/** Word-wrap a line at `width` columns; continuation lines start with `indent`. */
+function wrap(text: string, width: number, indent = ''): string[] {
+  const out: string[] = [];
+  let line = '';
+  for (const w of text.split(' ')) {
+    if (line !== '' && line.length + 1 + w.length > width) { out.push(line); line = indent + w; } else line = line === '' ? w : `${line} ${w}`;
+  }
+  if (line !== '') out.push(line);
+  return out;
+}
+
 export function comparisonText(c: Comparison, meta: ComparisonMeta): string {
   const head = [
     `${meta.part} (${meta.file}) against ${meta.reference} — computed values in ${meta.lengthUnit}, degrees, kg`,
@@ -44,19 +79,24 @@ export function comparisonText(c: Comparison, meta: ComparisonMeta): string {
     r.quantity,
     statedText(r),
     r.computed === null ? '—' : `${withUnit(formatNumber(r.computed), r.unit)} ± ${formatError(r.error ?? NaN)}`,
-    r.difference === null ? '—' : withUnit(formatNumber(r.difference, 4), r.unit),
-    `${withUnit(formatNumber(r.tolerance, 4), r.unit)} (${r.toleranceSource === 'default' ? r.toleranceText : 'stated: ' + r.toleranceText})`,
-    VERDICT_WORD[r.verdict] + (r.note ? ` (${r.note})` : ''),
+    r.difference === null ? '—' : formatNumber(r.difference, 4),
+    `${formatNumber(r.tolerance, 4)}${r.toleranceSource === 'default' ? ' *' : ''}`,
+    VERDICT_WORD[r.verdict],
   ]);
+  // difference and tolerance are in the computed value's unit; defaults are listed once under the table
+  const defaults = [...new Set(c.rows.filter((r) => r.toleranceSource === 'default').map((r) => `${r.quantity} ${r.toleranceText.replace(/^default: /, '')}`))];
   const titles = ['quantity', 'stated', 'computed ± estimate', 'difference', 'tolerance', 'verdict'];
   const widths = titles.map((t, k) => Math.max(t.length, ...table.map((row) => row[k].length)));
   const line = (cells: string[]) => cells.map((s, k) => (k === 0 || k === 5 ? s.padEnd(widths[k]) : s.padStart(widths[k]))).join('  ').trimEnd();
-  const lines = [...head, '', line(titles), ...table.map(line), ''];
+  const lines = [...head.flatMap((h) => wrap(h, 100, '  ')), '', line(titles), ...table.map(line)];
+  lines.push(...wrap(`difference and tolerance in the computed value's unit${defaults.length ? `; * default tolerance: ${defaults.join(', ')}` : ''}`, 100, '  '), '');
+  for (const r of c.rows) for (const a of rowAdvice(r)) lines.push(...wrap(`${r.quantity}: ${a}`, 100, '  '));
+  if (c.rows.some((r) => rowAdvice(r).length > 0)) lines.push('');
   const n = c.counts;
   lines.push(`verdict: ${VERDICT_WORD[c.verdict]} — ${n.pass} pass, ${n.fail} fail, ${n.inconclusive} inconclusive`);
-  lines.push('rule: pass when |difference| + estimate ≤ tolerance; fail when |difference| − estimate > tolerance; otherwise inconclusive');
-  lines.push('', c.caution);
-  for (const x of meta.cautions ?? []) lines.push(x);
+  lines.push(...wrap('rule: pass when |difference| + estimate ≤ tolerance; fail when |difference| − estimate > tolerance; otherwise inconclusive', 100, '  '));
+  lines.push('', ...wrap(c.caution, 100));
+  for (const x of meta.cautions ?? []) lines.push(...wrap(x, 100));
   return lines.join('\n') + '\n';
 }
 
@@ -83,6 +123,9 @@ export function comparisonJson(c: Comparison, meta: ComparisonMeta): Record<stri
       toleranceSource: r.toleranceSource,
       verdict: r.verdict,
       ...(r.note ? { note: r.note } : {}),
+      ...(r.statedNote !== undefined ? { referenceNote: r.statedNote } : {}),
+      ...(r.hint ? { hint: { ...r.hint } } : {}),
+      advice: rowAdvice(r),
     })),
     caution: c.caution,
     cautions: meta.cautions ?? [],
@@ -91,7 +134,7 @@ export function comparisonJson(c: Comparison, meta: ComparisonMeta): Record<stri
 
 export const COMPARISON_CSV_HEADER = [
   'quantity', 'stated', 'statedUnit', 'statedConverted', 'unit', 'computed', 'error', 'difference',
-  'tolerance', 'toleranceSource', 'toleranceText', 'verdict', 'note',
+  'tolerance', 'toleranceSource', 'toleranceText', 'verdict', 'note', 'referenceNote', 'advice',
 ] as const;
 
 export function comparisonCsv(c: Comparison): string {
@@ -99,7 +142,7 @@ export function comparisonCsv(c: Comparison): string {
     [...COMPARISON_CSV_HEADER],
     ...c.rows.map((r) => [
       r.quantity, r.statedAsWritten, r.statedUnit, r.stated, r.unit, r.computed, r.error, r.difference,
-      r.tolerance, r.toleranceSource, r.toleranceText, r.verdict, r.note ?? '',
+      r.tolerance, r.toleranceSource, r.toleranceText, r.verdict, r.note ?? '', r.statedNote ?? '', rowAdvice(r).filter((a) => !a.startsWith('the reference notes')).join('; '),
     ]),
   ]);
 }

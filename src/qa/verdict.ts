@@ -29,6 +29,7 @@ import type { LengthUnit } from '../base/units.js';
 import { type Dimension, type Quantity, quantityInfo, unitText } from '../properties/quantities.js';
 import type { Reference, StatedValue } from './reference.js';
 import { factorToReport } from './units.js';
+import { type RowHint, hintFor } from './hints.js';
 
 export type Verdict = 'pass' | 'fail' | 'inconclusive';
 
@@ -142,6 +143,10 @@ export interface ComparisonRow {
   verdict: Verdict;
   /** Why a row is inconclusive when that is not the error estimate (not computed, not finite). */
   note?: string;
+  /** The reference's own note on this value, as written. */
+  statedNote?: string;
+  /** A failed row whose difference matches a common slip (src/qa/hints.ts). */
+  hint?: RowHint;
   where: string;
 }
 
@@ -178,7 +183,7 @@ function rowFor(sv: StatedValue, quantities: Readonly<Record<string, Quantity | 
   const q = quantities[sv.quantity];
   const common = {
     quantity: sv.quantity, stated, statedAsWritten: sv.value, statedUnit: sv.unit.text, unit,
-    toleranceText: text, toleranceSource: source, where: sv.where,
+    toleranceText: text, toleranceSource: source, where: sv.where, ...(sv.note !== undefined ? { statedNote: sv.note } : {}),
   };
   if (!q) {
     return { ...common, computed: null, error: null, difference: null, tolerance: toleranceValue(tol, stated, base), verdict: 'inconclusive', note: 'not computed for this run' };
@@ -187,6 +192,8 @@ function rowFor(sv: StatedValue, quantities: Readonly<Record<string, Quantity | 
   const row: ComparisonRow = { ...common, computed: q.value, error: q.error, difference: j.difference, tolerance: j.tolerance, verdict: j.verdict };
   if (!Number.isFinite(q.value) || !Number.isFinite(q.error)) row.note = 'computed value or its error is not finite';
   else if (q.errorIsBound === false) row.note = 'the computed error is an estimate, not a bound';
+  const hint = hintFor(row, sv.dimension);
+  if (hint) row.hint = hint;
   return row;
 }
 
