@@ -8,6 +8,7 @@ import { defineIntegrate } from './integrate.def.js';
 import { defineMaterials } from './materials.def.js';
 import { defineDraw } from './draw.def.js';
 import { defineReport } from './report.def.js';
+import { defineMember } from './member.def.js';
 
 export const COMMANDS: ((program: Command) => void)[] = [
   defineMeasure,
@@ -18,4 +19,5 @@ export const COMMANDS: ((program: Command) => void)[] = [
   defineMaterials,
   defineDraw,
   defineReport,
+  defineMember,
 ];

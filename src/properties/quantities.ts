@@ -21,16 +21,16 @@ export interface Quantity {
  * 'angle' is in degrees, 'count' is a plain number.
  */
 export type Dimension =
-  | 'length' | 'area' | 'length3' | 'length4'
+  | 'length' | 'area' | 'length3' | 'length4' | 'length6'
   | 'angle' | 'count' | 'ratio'
   | 'mass' | 'massMoment' | 'force';
 
 /** Powers of length in each length-based dimension (for unit conversion). */
 export const LENGTH_POWER: Partial<Record<Dimension, number>> = {
-  length: 1, area: 2, length3: 3, length4: 4,
+  length: 1, area: 2, length3: 3, length4: 4, length6: 6,
 };
 
-export type QuantityGroup = 'section' | 'mass' | 'fabrication';
+export type QuantityGroup = 'section' | 'mass' | 'fabrication' | 'torsion' | 'plastic';
 
 export interface QuantityInfo {
   readonly key: string;
@@ -93,6 +93,26 @@ export const QUANTITIES = [
   { key: 'scrapFraction', group: 'fabrication', dimension: 'ratio', description: '1 − net area / blank area' },
   { key: 'netMass', group: 'fabrication', dimension: 'mass', description: 'mass of the part: net area × thickness × density' },
   { key: 'blankMass', group: 'fabrication', dimension: 'mass', description: 'mass of the blank: blank area × thickness × density' },
+  { key: 'J', group: 'torsion', dimension: 'length4', description: 'Saint-Venant torsion constant (shape as the cross-section of a prismatic member), finite elements on the exact curved mesh' },
+  { key: 'shearCentreX', group: 'torsion', dimension: 'length', description: 'shear centre, x (Trefftz: warping orthogonal to x and y)' },
+  { key: 'shearCentreY', group: 'torsion', dimension: 'length', description: 'shear centre, y' },
+  { key: 'Iw', group: 'torsion', dimension: 'length6', description: 'warping constant ∫ω² dA, ω about the shear centre with ∫ω dA = 0' },
+  { key: 'Zx', group: 'plastic', dimension: 'length3', description: 'plastic section modulus for bending about an axis parallel to x, ∫|y − y_p| dA' },
+  { key: 'Zy', group: 'plastic', dimension: 'length3', description: 'plastic section modulus for bending about an axis parallel to y, ∫|x − x_p| dA' },
+  { key: 'Z1', group: 'plastic', dimension: 'length3', description: 'plastic section modulus for bending about the major principal axis' },
+  { key: 'Z2', group: 'plastic', dimension: 'length3', description: 'plastic section modulus for bending about the minor principal axis' },
+  { key: 'plasticAxisY', group: 'plastic', dimension: 'length', description: 'plastic neutral axis parallel to x (equal areas): y = y_p' },
+  { key: 'plasticAxisX', group: 'plastic', dimension: 'length', description: 'plastic neutral axis parallel to y (equal areas): x = x_p' },
+  { key: 'plasticAxis1', group: 'plastic', dimension: 'length', description: 'plastic neutral axis parallel to the major principal axis: offset from the centroid along its normal' },
+  { key: 'plasticAxis2', group: 'plastic', dimension: 'length', description: 'plastic neutral axis parallel to the minor principal axis: offset from the centroid along its normal' },
+  { key: 'S1', group: 'plastic', dimension: 'length3', description: 'elastic section modulus about the major principal axis, I1 / largest fibre distance' },
+  { key: 'S2', group: 'plastic', dimension: 'length3', description: 'elastic section modulus about the minor principal axis, I2 / largest fibre distance' },
+  { key: 'fibre1', group: 'plastic', dimension: 'length', description: 'largest distance of the boundary from the major principal axis' },
+  { key: 'fibre2', group: 'plastic', dimension: 'length', description: 'largest distance of the boundary from the minor principal axis' },
+  { key: 'shapeFactorX', group: 'plastic', dimension: 'ratio', description: 'Zx / min(SxTop, SxBottom)' },
+  { key: 'shapeFactorY', group: 'plastic', dimension: 'ratio', description: 'Zy / min(SyRight, SyLeft)' },
+  { key: 'shapeFactor1', group: 'plastic', dimension: 'ratio', description: 'Z1 / S1' },
+  { key: 'shapeFactor2', group: 'plastic', dimension: 'ratio', description: 'Z2 / S2' },
 ] as const satisfies readonly QuantityInfo[];
 
 export type QuantityKey = (typeof QUANTITIES)[number]['key'];
@@ -107,6 +127,10 @@ const inGroup = <G extends QuantityGroup>(g: G): readonly (QuantityInfo & { key:
 export const SECTION_QUANTITIES = inGroup('section');
 export const MASS_QUANTITIES = inGroup('mass');
 export const FABRICATION_QUANTITIES = inGroup('fabrication');
+export const TORSION_QUANTITIES = inGroup('torsion');
+export const PLASTIC_QUANTITIES = inGroup('plastic');
+export type TorsionQuantityKey = KeyOf<'torsion'>;
+export type PlasticKey = KeyOf<'plastic'>;
 
 export type SectionValues = Record<SectionKey, number>;
 export type SectionQuantities = Record<SectionKey, Quantity>;
@@ -128,6 +152,7 @@ export function unitText(dim: Dimension, length: string, mass = 'kg'): string {
     case 'area': return `${length}²`;
     case 'length3': return `${length}³`;
     case 'length4': return `${length}⁴`;
+    case 'length6': return `${length}⁶`;
     case 'angle': return '°';
     case 'count': return '';
     case 'ratio': return '';

@@ -44,8 +44,8 @@ const ANGLE_SCALE: Record<string, number> = {
   deg: 1, degree: 1, degrees: 1, '°': 1, rad: 180 / Math.PI, radian: 180 / Math.PI, radians: 180 / Math.PI,
 };
 
-const POWER_OF: Record<number, Dimension> = { 1: 'length', 2: 'area', 3: 'length3', 4: 'length4' };
-const SUPERSCRIPT: Record<string, string> = { '¹': '1', '²': '2', '³': '3', '⁴': '4' };
+const POWER_OF: Record<number, Dimension> = { 1: 'length', 2: 'area', 3: 'length3', 4: 'length4', 6: 'length6' };
+const SUPERSCRIPT: Record<string, string> = { '¹': '1', '²': '2', '³': '3', '⁴': '4', '⁶': '6' };
 
 /** Examples of units for each dimension, for error messages. */
 export const UNIT_EXAMPLES: Record<Dimension, string> = {
@@ -53,6 +53,7 @@ export const UNIT_EXAMPLES: Record<Dimension, string> = {
   area: 'mm², cm², m², in², ft² (or mm2, mm^2)',
   length3: 'mm³, cm³, in³ (or mm3, mm^3)',
   length4: 'mm⁴, cm⁴, in⁴ (or mm4, mm^4)',
+  length6: 'mm⁶, cm⁶, in⁶ (or mm6, mm^6)',
   angle: 'deg (or °), rad',
   count: 'no unit',
   ratio: 'no unit, or %',
@@ -63,7 +64,7 @@ export const UNIT_EXAMPLES: Record<Dimension, string> = {
 
 /** "mm²", "mm2", "mm^2", "in ^ 3" → { name, power }; null if not of that form. */
 function splitPower(s: string): { name: string; power: number } | null {
-  const t = s.replace(/[¹²³⁴]/g, (c) => '^' + SUPERSCRIPT[c]).replace(/\s+/g, '');
+  const t = s.replace(/[¹²³⁴⁶]/g, (c) => '^' + SUPERSCRIPT[c]).replace(/\s+/g, '');
   const m = /^([a-z]+)(?:\^?([1-4]))?$/.exec(t);
   if (!m) return null;
   return { name: m[1], power: m[2] ? Number(m[2]) : 1 };
@@ -105,6 +106,7 @@ export function reportScale(dim: Dimension, lengthUnit: LengthUnit): number {
     case 'area': return PART_TICKS[lengthUnit] ** 2;
     case 'length3': return PART_TICKS[lengthUnit] ** 3;
     case 'length4': return PART_TICKS[lengthUnit] ** 4;
+    case 'length6': return PART_TICKS[lengthUnit] ** 6;
     case 'angle': return 1;
     case 'count': return 1;
     case 'ratio': return 100; // a plain fraction is 100 ticks of %

@@ -1,0 +1,262 @@
+/**
+ * Saint-Venant torsion on one mesh: the warping function by Lagrange finite elements of order k on the
+ * exact curved mesh, and the torsion constant, shear centre and warping constant it gives.
+ *
+ * Conventions and derivation (elasticity of prismatic bars, Saint-Venant's semi-inverse method; written
+ * from memory, e.g. as in Timoshenko & Goodier, "Theory of Elasticity", chapter on torsion). Twist rate θ
+ * about the z axis through the point O (here the mesh's local origin); displacements
+ *   u = −θ z y,  v = θ z x,  w = θ ω(x, y).
+ * Shear strains γxz = θ(∂ω/∂x − y), γyz = θ(∂ω/∂y + x). Equilibrium without body forces gives ∇²ω = 0 in
+ * the section; a traction-free mantle gives, on every boundary loop (outer and holes),
+ *   ∂ω/∂n = y·nx − x·ny.
+ * The torque is T = G θ J with
+ *   J = ∫(x² + y²) dA + ∫(x ∂ω/∂y − y ∂ω/∂x) dA.
+ * (The brief for this work wrote "− ∫(x ∂ω/∂y − y ∂ω/∂x)"; with the boundary condition above the sign is
+ * "+": the "−" form belongs to the opposite-signed warping function ψ = −ω. Checked numerically: the "+"
+ * form gives πd⁴/32 and √3a⁴/80, the other exceeds the polar moment.)
+ *
+ * Weak form: for every test function v, ∫∇ω·∇v dA = ∮ v (y nx − x ny) ds = ∫(y ∂v/∂x − x ∂v/∂y) dA
+ * (divergence theorem with the divergence-free field (y, −x)), so the load is a domain integral and needs
+ * no boundary quadrature on the curves. With v = ω: ∫(x ω_y − y ω_x) dA = −∫|∇ω|² dA, hence
+ *   J = Ip_O − ∫|∇ω|² dA ≤ Ip_O.
+ * The discrete problem minimises ½ a(v, v) − f(v); with ωh its minimiser, J_h = Ip_O − a(ωh, ωh) and
+ * J_h − J = a(ω − ωh, ω − ωh) ≥ 0 (Galerkin orthogonality): the finite-element J is an upper bound that
+ * converges like the energy error squared, O(h^2k) for smooth ω. We evaluate J from the stationary form
+ * Ip_O − (2 fᵀω̃ − ω̃ᵀKω̃), whose error in an inexact algebraic solution ω̃ is quadratic.
+ *
+ * Multiply-connected sections: the warping function is single valued (the displacement w must be), and
+ * the Neumann condition above holds on every loop, holes included; no extra condition is needed, unlike the
+ * Prandtl stress function, which takes an unknown constant on each hole fixed by Bredt-type circulation
+ * conditions. So the same weak form on the holed mesh is the whole problem.
+ *
+ * The Neumann problem fixes ω up to a constant: one unknown is set to zero (the constant has no effect on
+ * J or on the shear centre; the warping constant removes it by normalisation).
+ *
+ * Shear centre (Trefftz's definition, independent of Poisson's ratio; it is the one the thin-walled
+ * formulas give). Moving the twist axis to a pole P = (xp, yp) changes the warping function to
+ *   ω_P = ω_O − yp·x + xp·y + c
+ * (it satisfies the boundary condition written about P). With centroidal coordinates x̄, ȳ, second moments
+ * Ix = ∫ȳ², Iy = ∫x̄², Ixy = ∫x̄ȳ, and Iωx = ∫ω_C x̄, Iωy = ∫ω_C ȳ for the warping function about the
+ * centroid, the shear centre S is the pole whose warping is orthogonal to x̄ and ȳ:
+ *   Iωx − ȳs·Iy + x̄s·Ixy = 0,  Iωy − ȳs·Ixy + x̄s·Ix = 0,
+ *   x̄s = (Ixy·Iωx − Iy·Iωy)/D,  ȳs = (Ix·Iωx − Ixy·Iωy)/D,  D = Ix·Iy − Ixy².
+ * Warping constant Iw = ∫ω_S² dA with ω_S about the shear centre and normalised to ∫ω_S dA = 0.
+ */
+import { type MeshView, isCurved } from '../mesh/mesh.js';
+import { TriangleMapJacobian } from '../mesh/mapJacobian.js';
+import { TripletBuilder, fixUnknown } from '../numeric/sparse.js';
+import { solveSpd } from '../numeric/sparseSolve.js';
+import { addCompensated } from '../numeric/sum.js';
+import { getRule, safeDegreeAtLeast } from '../quadrature/rules.js';
+import { type LagrangeTable, lagrangeTable } from './torsionBasis.js';
+
+export interface TorsionLevelValues {
+  triangles: number;
+  curvedTriangles: number;
+  unknowns: number;
+  /** torsion constant */
+  J: number;
+  /** shear centre in the mesh's local coordinates */
+  shearCentre: [number, number];
+  /** warping constant about the shear centre, ∫ω_S² dA with ∫ω_S dA = 0 */
+  Iw: number;
+  /** centroid (local) and area, from the same quadrature (for the round-off allowances) */
+  centroid: [number, number];
+  area: number;
+  /** polar moment about the local origin, ∫(x² + y²) dA */
+  polarAtOrigin: number;
+  /** sums whose rounding bounds the round-off of J: Ip_O + |2 fᵀω| + |ωᵀKω| */
+  jMagnitude: number;
+  /** largest |ω_S| met at a quadrature point plus its linear part's size (round-off of Iw) */
+  warpingMagnitude: number;
+  /** D / (Ix·Iy): near 0 when the second-moment matrix is ill-conditioned */
+  shearCentreConditioning: number;
+  iterations: number;
+  residual: number;
+  converged: boolean;
+  /** IC(0) diagonal shift that was needed (0 = none) */
+  preconditionerShift: number;
+}
+
+export interface TorsionSolveOptions {
+  /** element order k (2–4) */
+  order: number;
+  /** Dunavant degree used on curved triangles */
+  curvedDegree: number;
+  /** relative residual target of the conjugate-gradient solve */
+  tol: number;
+}
+
+/**
+ * Numbering of the order-k unknowns: every vertex, k − 1 per edge (ordered from the lower vertex index to
+ * the higher, so neighbours agree), (k − 1)(k − 2)/2 per triangle; numbered in order of first use while
+ * walking the triangles (keeps neighbours' numbers close, which helps IC(0)).
+ */
+function numberUnknowns(mesh: MeshView, k: number): { dofs: Int32Array; total: number; nodes: number } {
+  const nodes = ((k + 1) * (k + 2)) / 2;
+  const nT = mesh.count;
+  const dofs = new Int32Array(nT * nodes);
+  let maxV = 0;
+  for (let i = 0; i < 3 * nT; i++) if (mesh.triangles[i] > maxV) maxV = mesh.triangles[i];
+  const nV = maxV + 1;
+  const vDof = new Int32Array(nV).fill(-1);
+  const edgeFirst = new Map<number, number>();
+  let next = 0;
+  const inner = ((k - 1) * (k - 2)) / 2;
+  for (let t = 0; t < nT; t++) {
+    const base = t * nodes;
+    const v = [mesh.triangles[3 * t], mesh.triangles[3 * t + 1], mesh.triangles[3 * t + 2]];
+    for (let j = 0; j < 3; j++) {
+      if (vDof[v[j]] < 0) vDof[v[j]] = next++;
+      dofs[base + j] = vDof[v[j]];
+    }
+    for (let e = 0; e < 3; e++) {
+      const a = v[e], b = v[(e + 1) % 3];
+      const key = a < b ? a * nV + b : b * nV + a;
+      let first = edgeFirst.get(key);
+      if (first === undefined) { first = next; next += k - 1; edgeFirst.set(key, first); }
+      for (let j = 1; j < k; j++) {
+        // local inner node j lies j/k of the way from a to b; global order runs from min(a,b)
+        dofs[base + 3 + e * (k - 1) + (j - 1)] = a < b ? first + j - 1 : first + (k - 1 - j);
+      }
+    }
+    for (let j = 0; j < inner; j++) dofs[base + 3 + 3 * (k - 1) + j] = next++;
+  }
+  return { dofs, total: next, nodes };
+}
+
+interface Tables { straight: { w: Float64Array; l1: Float64Array; l2: Float64Array; tab: LagrangeTable }; curved: { w: Float64Array; l1: Float64Array; l2: Float64Array; tab: LagrangeTable } }
+
+function tables(k: number, curvedDegree: number): Tables {
+  // straight triangles: the Jacobian is constant, every integrand is a polynomial of degree ≤ 2k (ω²)
+  const rs = getRule(safeDegreeAtLeast(2 * k));
+  const rc = getRule(Math.max(curvedDegree, safeDegreeAtLeast(2 * k)));
+  return {
+    straight: { w: rs.w, l1: rs.l1, l2: rs.l2, tab: lagrangeTable(k, rs.l1, rs.l2) },
+    curved: { w: rc.w, l1: rc.l1, l2: rc.l2, tab: lagrangeTable(k, rc.l1, rc.l2) },
+  };
+}
+
+/** Solve the warping problem on one mesh and derive J, the shear centre and Iw (local coordinates). */
+export function solveTorsionOnMesh(mesh: MeshView, opts: TorsionSolveOptions): TorsionLevelValues {
+  const k = opts.order;
+  const { dofs, total, nodes } = numberUnknowns(mesh, k);
+  const T = tables(k, opts.curvedDegree);
+  const nT = mesh.count;
+  const B = new TripletBuilder(total, nT * nodes * nodes);
+  const f = new Float64Array(total);
+  const map = new TriangleMapJacobian();
+  const Ke = new Float64Array(nodes * nodes), fe = new Float64Array(nodes);
+  const gx = new Float64Array(nodes), gy = new Float64Array(nodes);
+  // moments: A, ∫x, ∫y, ∫x², ∫xy, ∫y² (local)
+  const mom = new Float64Array(6), momC = new Float64Array(6);
+  let curvedCount = 0;
+  for (let t = 0; t < nT; t++) {
+    map.load(mesh, t);
+    const c = isCurved(mesh, t);
+    if (c) curvedCount++;
+    const R = c ? T.curved : T.straight;
+    const tab = R.tab;
+    Ke.fill(0); fe.fill(0);
+    let a = 0, sx = 0, sy = 0, sxx = 0, sxy = 0, syy = 0;
+    for (let q = 0; q < R.w.length; q++) {
+      map.at(R.l1[q], R.l2[q]);
+      const det = map.jac, x = map.x, y = map.y;
+      const w = R.w[q] * det * 0.5;
+      const off = q * nodes;
+      for (let i = 0; i < nodes; i++) {
+        const du = tab.du[off + i], dv = tab.dv[off + i];
+        gx[i] = (map.yv * du - map.yu * dv) / det;
+        gy[i] = (map.xu * dv - map.xv * du) / det;
+      }
+      for (let i = 0; i < nodes; i++) {
+        const wgx = w * gx[i], wgy = w * gy[i];
+        fe[i] += y * wgx - x * wgy;
+        for (let j = i; j < nodes; j++) Ke[i * nodes + j] += wgx * gx[j] + wgy * gy[j];
+      }
+      a += w; sx += w * x; sy += w * y; sxx += w * x * x; sxy += w * x * y; syy += w * y * y;
+    }
+    addCompensated(mom, momC, 0, a); addCompensated(mom, momC, 1, sx); addCompensated(mom, momC, 2, sy);
+    addCompensated(mom, momC, 3, sxx); addCompensated(mom, momC, 4, sxy); addCompensated(mom, momC, 5, syy);
+    const base = t * nodes;
+    for (let i = 0; i < nodes; i++) {
+      const gi = dofs[base + i];
+      f[gi] += fe[i];
+      B.add(gi, gi, Ke[i * nodes + i]);
+      for (let j = i + 1; j < nodes; j++) {
+        const gj = dofs[base + j], v = Ke[i * nodes + j];
+        B.add(gi, gj, v); B.add(gj, gi, v);
+      }
+    }
+  }
+  for (let i = 0; i < 6; i++) mom[i] += momC[i];
+  const A = B.toCsr();
+  fixUnknown(A, f, 0, 0);
+  const sol = solveSpd(A, f, { tol: opts.tol });
+  const omega = sol.x;
+  // J from the stationary form
+  let fw = 0, wKw = 0;
+  {
+    const { rowPtr, col, val } = A;
+    for (let i = 0; i < total; i++) {
+      fw += f[i] * omega[i];
+      let s = 0;
+      for (let p = rowPtr[i]; p < rowPtr[i + 1]; p++) s += val[p] * omega[col[p]];
+      wKw += omega[i] * s;
+    }
+  }
+  const area = mom[0];
+  const polarAtOrigin = mom[3] + mom[5];
+  const J = polarAtOrigin - (2 * fw - wKw);
+
+  // second pass: ∫ω, ∫ωx, ∫ωy (ω about the local origin)
+  const wm = new Float64Array(3), wmC = new Float64Array(3);
+  forEachPoint(mesh, T, dofs, nodes, omega, map, (w, x, y, om) => {
+    addCompensated(wm, wmC, 0, w * om); addCompensated(wm, wmC, 1, w * om * x); addCompensated(wm, wmC, 2, w * om * y);
+  });
+  for (let i = 0; i < 3; i++) wm[i] += wmC[i];
+  const cx = mom[1] / area, cy = mom[2] / area;
+  const Iy = mom[3] - area * cx * cx, Ix = mom[5] - area * cy * cy, Ixy = mom[4] - area * cx * cy;
+  // ω_C = ω_O − cy·x + cx·y; Iωx = ∫ω_C (x − cx), Iωy = ∫ω_C (y − cy)
+  const Iwx = (wm[1] - cx * wm[0]) - cy * Iy + cx * Ixy;
+  const Iwy = (wm[2] - cy * wm[0]) - cy * Ixy + cx * Ix;
+  const D = Ix * Iy - Ixy * Ixy;
+  const xs = cx + (Ixy * Iwx - Iy * Iwy) / D;
+  const ys = cy + (Ix * Iwx - Ixy * Iwy) / D;
+  // third pass: Iw = ∫(ω_S − mean)², ω_S = ω_O − ys·x + xs·y
+  const mean = (wm[0] - ys * mom[1] + xs * mom[2]) / area;
+  const iw = new Float64Array(1), iwC = new Float64Array(1);
+  let big = 0;
+  forEachPoint(mesh, T, dofs, nodes, omega, map, (w, x, y, om) => {
+    const v = om - ys * x + xs * y - mean;
+    const mag = Math.abs(om) + Math.abs(ys * x) + Math.abs(xs * y) + Math.abs(mean);
+    if (mag > big) big = mag;
+    addCompensated(iw, iwC, 0, w * v * v);
+  });
+  return {
+    triangles: nT, curvedTriangles: curvedCount, unknowns: total,
+    J, shearCentre: [xs, ys], Iw: iw[0] + iwC[0],
+    centroid: [cx, cy], area, polarAtOrigin,
+    jMagnitude: Math.abs(polarAtOrigin) + Math.abs(2 * fw) + Math.abs(wKw),
+    warpingMagnitude: big,
+    shearCentreConditioning: D / (Ix * Iy),
+    iterations: sol.iterations, residual: sol.residual, converged: sol.converged, preconditionerShift: sol.shift,
+  };
+}
+
+/** Visit every quadrature point with its weight (area element), local point and ω value. */
+function forEachPoint(mesh: MeshView, T: Tables, dofs: Int32Array, nodes: number, omega: Float64Array, map: TriangleMapJacobian,
+  visit: (w: number, x: number, y: number, om: number) => void): void {
+  for (let t = 0; t < mesh.count; t++) {
+    map.load(mesh, t);
+    const R = isCurved(mesh, t) ? T.curved : T.straight;
+    const base = t * nodes;
+    for (let q = 0; q < R.w.length; q++) {
+      map.at(R.l1[q], R.l2[q]);
+      let om = 0;
+      const off = q * nodes;
+      for (let i = 0; i < nodes; i++) om += R.tab.phi[off + i] * omega[dofs[base + i]];
+      visit(R.w[q] * map.jac * 0.5, map.x, map.y, om);
+    }
+  }
+}

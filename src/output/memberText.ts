@@ -1,0 +1,98 @@
+/**
+ * Words and layout for member-section results (`platewise member`): a table for people and JSON for
+ * programs, in a chosen length unit (I in cm⁴ or in⁴, S and Z in cm³ or in³; the input is not changed).
+ * Every output carries the geometry caution and, with torsion, the prismatic-member note.
+ */
+import { type LengthUnit, lengthFactor } from '../base/units.js';
+import type { MemberResult } from '../analysis/torsionMember.js';
+import type { TorsionFact } from '../analysis/torsion.js';
+import { LENGTH_POWER, type Quantity, quantityInfo, unitText } from '../properties/quantities.js';
+import { GEOMETRY_CAUTION } from './cautions.js';
+import { formatError, formatNumber } from './numbers.js';
+
+export const PRISMATIC_NOTE =
+  'Torsion constant, shear centre and warping constant treat the shape as the cross-section of a long prismatic member ' +
+  '(Saint-Venant torsion, linear elastic, isotropic); they say nothing about the plate loaded in its own plane.';
+
+const SECTION_KEYS = ['area', 'centroidX', 'centroidY', 'Ix', 'Iy', 'Ixy', 'I1', 'I2', 'principalAngle', 'SxTop', 'SxBottom', 'SyRight', 'SyLeft'] as const;
+const PLASTIC_KEYS = ['Zx', 'Zy', 'Z1', 'Z2', 'plasticAxisY', 'plasticAxisX', 'plasticAxis1', 'plasticAxis2', 'S1', 'S2', 'fibre1', 'fibre2', 'shapeFactorX', 'shapeFactorY', 'shapeFactor1', 'shapeFactor2'] as const;
+const TORSION_KEYS = ['J', 'shearCentreX', 'shearCentreY', 'Iw'] as const;
+
+function convert(key: string, q: Quantity, from: LengthUnit, to: LengthUnit): { value: number; error: number; unit: string } {
+  const info = quantityInfo(key)!;
+  const p = LENGTH_POWER[info.dimension] ?? 0;
+  const f = lengthFactor(from, to) ** p;
+  return { value: q.value * f, error: q.error * f, unit: unitText(info.dimension, to) };
+}
+
+export function torsionFactText(f: TorsionFact): string {
+  switch (f.code) {
+    case 'reentrant-corners':
+      return `The section has ${f.count} re-entrant corner${f.count === 1 ? '' : 's'} (largest interior angle ${formatNumber(f.largestAngle, 4)}°): the torsion estimates rest on the asymptotic convergence rate there and may understate the error (the mesh is not graded toward corners).`;
+    case 'solve-not-converged':
+      return `The linear solve stopped at relative residual ${formatError(f.residual)} above its target; the torsion values may be less accurate than their estimates say.`;
+    case 'upper-bound-violated':
+      return `The finer mesh gave a larger torsion constant (${formatNumber(f.fine)}) than the coarser (${formatNumber(f.coarse)}); expected the reverse: treat the torsion estimate with suspicion.`;
+    case 'shear-centre-ill-conditioned':
+      return `The second-moment matrix is nearly singular (conditioning ${formatError(f.conditioning)}): the shear centre is poorly determined.`;
+  }
+}
+
+function rows(r: MemberResult, keys: readonly string[], src: Record<string, Quantity>, to: LengthUnit, out: string[]): void {
+  for (const k of keys) {
+    const c = convert(k, src[k], r.units, to);
+    out.push(`  ${k.padEnd(14)} ${formatNumber(c.value).padStart(18)} ± ${formatError(c.error).padEnd(8)} ${c.unit}`);
+  }
+}
+
+export function memberText(results: readonly MemberResult[], to?: LengthUnit): string {
+  const out: string[] = [];
+  for (const r of results) {
+    const u = to ?? r.units;
+    out.push(`${r.part} (values in ${u}; input in ${r.units})`);
+    out.push(' section');
+    rows(r, SECTION_KEYS, r.section.quantities, u, out);
+    out.push(' plastic and principal moduli');
+    rows(r, PLASTIC_KEYS, r.plastic, u, out);
+    if (!r.exactFibres) out.push('  (fibre distances of elliptical arcs and Béziers found numerically, to round-off)');
+    if (r.torsion) {
+      const t = r.torsion;
+      out.push(` torsion (order-${t.method.order} finite elements, ${t.method.triangles} triangles, ${t.method.unknowns} unknowns; estimate ${t.method.safety} × the change from ${t.method.coarseTriangles} triangles)`);
+      rows(r, TORSION_KEYS, t.quantities, u, out);
+      for (const f of t.facts) out.push(`  note: ${torsionFactText(f)}`);
+    }
+    if (r.boltGroup) {
+      const g = r.boltGroup, f = lengthFactor(r.units, u);
+      out.push(` bolt group: ${g.count} of ${g.selectedFrom} circular holes, each counted as a unit area at its centre; sums about the group centroid, in ${u}²`);
+      out.push(`  centroid       (${formatNumber(g.centroid[0] * f)}, ${formatNumber(g.centroid[1] * f)}) ${u}`);
+      out.push(`  Σx² ${formatNumber(g.sumXX * f * f)}  Σy² ${formatNumber(g.sumYY * f * f)}  Σxy ${formatNumber(g.sumXY * f * f)}  Σr² ${formatNumber(g.sumRR * f * f)}`);
+      out.push(`  principal sums ${formatNumber(g.principal[0] * f * f)}, ${formatNumber(g.principal[1] * f * f)}; larger along ${formatNumber(g.principalAngle, 6)}° from +x`);
+      for (const b of g.bolts) out.push(`  bolt Ø${formatNumber(b.diameter * f, 6)} at (${formatNumber(b.x * f)}, ${formatNumber(b.y * f)}): ${formatNumber(b.distance * f)} ${u} from the centroid`);
+    }
+    out.push('');
+  }
+  out.push(GEOMETRY_CAUTION);
+  if (results.some((r) => r.torsion)) out.push(PRISMATIC_NOTE);
+  return out.join('\n') + '\n';
+}
+
+export function memberJson(results: readonly MemberResult[], to?: LengthUnit): string {
+  const parts = results.map((r) => {
+    const u = to ?? r.units;
+    const group = (keys: readonly string[], src: Record<string, Quantity>) => Object.fromEntries(keys.map((k) => [k, convert(k, src[k], r.units, u)]));
+    const f = lengthFactor(r.units, u);
+    return {
+      part: r.part, inputUnit: r.units, unit: u,
+      section: group(SECTION_KEYS, r.section.quantities),
+      plastic: group(PLASTIC_KEYS, r.plastic), exactFibres: r.exactFibres,
+      torsion: r.torsion ? { ...group(TORSION_KEYS, r.torsion.quantities), method: r.torsion.method, facts: r.torsion.facts, notes: r.torsion.facts.map(torsionFactText) } : undefined,
+      boltGroup: r.boltGroup ? {
+        count: r.boltGroup.count, selectedFrom: r.boltGroup.selectedFrom, convention: 'unit area per bolt at its centre; sums about the group centroid',
+        centroid: r.boltGroup.centroid.map((v) => v * f), sumXX: r.boltGroup.sumXX * f * f, sumYY: r.boltGroup.sumYY * f * f, sumXY: r.boltGroup.sumXY * f * f,
+        sumRR: r.boltGroup.sumRR * f * f, principal: r.boltGroup.principal.map((v) => v * f * f), principalAngle: r.boltGroup.principalAngle,
+        sumUnit: `${u}²`, bolts: r.boltGroup.bolts.map((b) => ({ x: b.x * f, y: b.y * f, diameter: b.diameter * f, distance: b.distance * f })),
+      } : undefined,
+    };
+  });
+  return JSON.stringify({ parts, cautions: [GEOMETRY_CAUTION, ...(results.some((r) => r.torsion) ? [PRISMATIC_NOTE] : [])] }, null, 2) + '\n';
+}
