@@ -73,10 +73,10 @@ export function runJob(job: Job, settings: JobSettings): BatchRow[] {
   let reference: Reference | null = null;
   let parts: PlateModel[];
   try {
-    const input = readInputText(job.path);
+    const input = readInputText(job.path, { regularOnly: true });
     parts = readModels(input.text, job.file, { ...settings.read, format: job.format ?? settings.read?.format, units: job.units ?? settings.read?.units });
     if (job.reference) {
-      const rt = readInputText(job.reference.path);
+      const rt = readInputText(job.reference.path, { regularOnly: true });
       reference = readReference(rt.text, job.reference.label);
     }
   } catch (e) {
