@@ -1,7 +1,7 @@
 import { closeSync, rmSync, statSync, writeSync } from 'node:fs';
 import { availableParallelism, freemem } from 'node:os';
 import { performance } from 'node:perf_hooks';
-import { EXIT, InputError, OutputError } from '../../src/base/errors.js';
+import { EXIT, InputError, OutputError, jsonTerminalText, terminalText } from '../../src/base/errors.js';
 import { checkOutputTarget, createTemp, publish, readInputText, writeFileAtomic } from '../../src/base/files.js';
 import { acquireLock } from '../../src/batch/lock.js';
 import { type Job, folderJobs, manifestBase, parseManifest } from '../../src/batch/manifest.js';
@@ -91,7 +91,11 @@ export async function batch(source: string, flags: BatchFlags): Promise<string> 
         const code = (e as NodeJS.ErrnoException).code ?? (e as Error).message;
         throw new OutputError(where, `cannot be written (${code}${code === 'ENOSPC' ? ': no space left on the device' : ''}); nothing was written`);
       }
-    } else process.stdout.write(text);
+    } else {
+      // to a terminal or a pipe: JSON lines with every unsafe character as \uXXXX (the same text when read);
+      // CSV to a terminal escaped too (a CSV file or pipe keeps the exact text)
+      process.stdout.write(jsonl ? jsonTerminalText(text) : process.stdout.isTTY ? terminalText(text) : text);
+    }
   };
 
   const cap = workerCap();

@@ -36,6 +36,22 @@ export function oneLine(s: string): string {
   return s.replace(UNSAFE_TEXT, escapeChar);
 }
 
+/**
+ * Text for a terminal (tables, lists): every unsafe character but the line break becomes a visible escape, so
+ * a part, feature or material name cannot clear the screen, set the window title, hide text or reverse it.
+ */
+export function terminalText(s: string): string {
+  return s.replace(UNSAFE_TEXT, (c) => (c === '\n' ? c : escapeChar(c)));
+}
+
+/**
+ * JSON text for a terminal: JSON.stringify already escapes C0 controls; DEL, C1, the line separators and the
+ * bidirectional controls are written as \uXXXX escapes too, which JSON reads back as the exact same text.
+ */
+export function jsonTerminalText(s: string): string {
+  return s.replace(/[\u007f-\u009f\u2028\u2029\u202a-\u202e\u2066-\u2069]/g, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`);
+}
+
 /** Longest piece of quoted user text echoed in a message; longer pieces are cut with an ellipsis. */
 export const ECHO_LIMIT = 80;
 
@@ -47,7 +63,7 @@ export function safeText(s: string, max = Infinity): string {
 
 /** Cap what a message echoes: quoted pieces to ECHO_LIMIT characters, the whole to a few lines' worth. */
 function capEcho(s: string, whole: number): string {
-  const t = s.replace(/"([^"]{81,})"/g, (_m, inner: string) => `"${inner.slice(0, ECHO_LIMIT)}…" (${inner.length} characters)`);
+  const t = s.replace(/"([^"]{82,})"/g, (_m, inner: string) => `"${inner.slice(0, ECHO_LIMIT)}…" (${inner.length} characters)`);
   return t.length > whole ? `${t.slice(0, whole)}… (message cut at ${whole} characters)` : t;
 }
 

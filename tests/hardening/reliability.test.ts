@@ -6,11 +6,10 @@
  * SIGINT / SIGTERM end a batch with one line and an incomplete summary, no row torn. Every spawned process
  * has a timeout; every temporary file is removed in afterAll. Nothing here asserts on time.
  */
-import { spawn, spawnSync } from 'node:child_process';
+import { execFileSync, spawn, spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import { execFileSync } from 'node:child_process';
 import { existsSync, linkSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { availableParallelism, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import { CLI, runCli } from '../helpers.js';
@@ -241,4 +240,78 @@ describe('SIGINT and SIGTERM end a batch with one line; the summary is marked in
       expect(leftovers()).toEqual([]);
     }, 240000);
   }
+});
+
+describe('text: escaped for terminals, neutralised in CSV, exact in JSON', () => {
+  const EVIL = '=HYPERLINK("x")\u001b[2J\u009b31m\u202eevil\u2066';
+  const evilPart = JSON.stringify({ part: EVIL, outline: { rectangle: { corner: [-10, -5], size: [100, 60] } } }) + '\n';
+  const UNSAFE = /[\u0000-\u0009\u000b-\u001f\u007f-\u009f\u202a-\u202e\u2066-\u2069]/;
+
+  it('measure: the table shows escapes, never the raw controls; --json reads back to the exact name', () => {
+    writeFileSync(join(dir, 'e.json'), evilPart);
+    const t = cli(['measure', 'e.json']);
+    expect(t.status, t.stderr).toBe(0);
+    expect(t.stdout).not.toMatch(UNSAFE);
+    expect(t.stdout).toContain('\\u001b[2J\\u009b31m\\u202eevil\\u2066');
+    const j = cli(['measure', 'e.json', '--json']);
+    expect(j.stdout).not.toMatch(UNSAFE);
+    expect(JSON.parse(j.stdout).part).toBe(EVIL);
+  });
+
+  it('an error line escapes C1 and bidirectional controls too', () => {
+    writeFileSync(join(dir, 'e.json'), JSON.stringify({ part: 'p', material: 'st\u009b2J\u202eeel', thickness: 2, outline: { rectangle: { corner: [0, 0], size: [10, 10] } } }));
+    const r = cli(['measure', 'e.json']);
+    expect(r.status).toBe(2);
+    oneLine(r.stderr);
+    expect(r.stderr).not.toMatch(UNSAFE);
+    expect(r.stderr).toContain('st\\u009b2J\\u202eeel');
+  });
+
+  it('batch CSV: text cells starting with = + - @ tab CR get a leading quote; numbers (negative ones too) stay numbers; JSONL keeps the text', () => {
+    writeFileSync(join(dir, 'e.json'), evilPart);
+    writeFileSync(join(dir, '-minus.json'), evilPart.replace(JSON.stringify(EVIL), '"@SUM(1)"'));
+    writeFileSync(join(dir, 'job.csv'), 'file,quantity\ne.json,1\n-minus.json,1\n');
+    const r = cli(['batch', 'job.csv', '-o', 'out.csv', '--quiet']);
+    expect(r.status, r.stderr).toBe(0);
+    const lines = readFileSync(join(dir, 'out.csv'), 'utf8').trim().split(/\r?\n/);
+    const header = lines[0].split(',');
+    const cx = header.indexOf('centroidX');
+    const e = lines.find((l) => l.startsWith('1,'))!;
+    expect(e).toContain(`"'=HYPERLINK(""x"")`);
+    expect(e.split(',')[cx]).toBe('40'); // -10 + 50: a number, no quote
+    const m = lines.find((l) => l.startsWith('2,'))!;
+    expect(m.startsWith("2,'-minus.json,1,'@SUM(1),ok,")).toBe(true);
+    const neg = cli(['batch', 'job.csv', '-o', 'out.jsonl', '--quiet']);
+    expect(neg.status).toBe(0);
+    const first = JSON.parse(readFileSync(join(dir, 'out.jsonl'), 'utf8').split('\n')[0]);
+    expect(first.part).toBe(EVIL);
+    expect(first.quantities.Ixy.value).toBeTypeOf('number');
+  });
+});
+
+describe('numbers and workers in a batch', () => {
+  it('a row whose mass overflows fails with the cause; the totals stay finite', () => {
+    writeFileSync(join(dir, 'p.json'), PART);
+    writeFileSync(join(dir, 'o.json'), JSON.stringify({ part: 'o', thickness: '1e200*(x+1)', density: '1e200*(x+1)', outline: { rectangle: { corner: [0, 0], size: [100, 60] } } }));
+    writeFileSync(join(dir, 'job.csv'), 'file,quantity,thickness,density\no.json,1,,\np.json,3,2,7850\n');
+    const r = cli(['batch', 'job.csv', '-o', 'out.csv']);
+    expect(r.status).toBe(1);
+    expect(r.stderr).not.toMatch(/NaN|Infinity/);
+    const rows = readFileSync(join(dir, 'out.csv'), 'utf8');
+    expect(rows).toMatch(/part ""o"": the mass properties overflow the range of numbers/);
+    const s = JSON.parse(readFileSync(join(dir, 'out.summary.json'), 'utf8')).summary;
+    expect(Number.isFinite(s.netMassKg) && s.netMassKg > 0).toBe(true);
+    expect(s.partsFailed).toBe(1);
+  });
+
+  it('--jobs 256 is capped by cores and memory, said in one line', () => {
+    writeFileSync(join(dir, 'p.json'), PART);
+    writeFileSync(join(dir, 'job.csv'), manifest(300));
+    const r = cli(['batch', 'job.csv', '-o', 'out.csv', '--jobs', '256']);
+    expect(r.status, r.stderr).toBe(0);
+    const m = /^platewise: --jobs 256 capped at (\d+) workers? \(/.exec(r.stderr);
+    expect(m, r.stderr).not.toBeNull();
+    expect(Number(m![1])).toBeLessThanOrEqual(availableParallelism());
+    expect(JSON.parse(readFileSync(join(dir, 'out.summary.json'), 'utf8')).summary.jobs).toBe(Number(m![1]));
+  });
 });
