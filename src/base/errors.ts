@@ -63,7 +63,8 @@ export function safeText(s: string, max = Infinity): string {
 
 /** Cap what a message echoes: quoted pieces to ECHO_LIMIT characters, the whole to a few lines' worth. */
 function capEcho(s: string, whole: number): string {
-  const t = s.replace(/"([^"]{82,})"/g, (_m, inner: string) => `"${inner.slice(0, ECHO_LIMIT)}…" (${inner.length} characters)`);
+  // quotes pair up left to right (each match consumes both), so text between two quoted pieces is never cut
+  const t = s.replace(/"([^"]*)"/g, (m, inner: string) => (inner.length > ECHO_LIMIT + 1 ? `"${inner.slice(0, ECHO_LIMIT)}…" (${inner.length} characters)` : m));
   return t.length > whole ? `${t.slice(0, whole)}… (message cut at ${whole} characters)` : t;
 }
 
