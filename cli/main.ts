@@ -8,7 +8,10 @@
  */
 import { Command, CommanderError } from 'commander';
 import { COMMANDS } from './commands/index.js';
+import { guardStandardStreams } from './run.js';
 import { VERSION } from './version.js';
+
+guardStandardStreams();
 
 const program = new Command();
 program
@@ -24,7 +27,10 @@ Exit status:
   1  a check found a difference (compare or batch: a stated value fails or is inconclusive)
   2  bad input: the file or an option (one line on standard error naming where; nothing written)
   3  a method gave up on valid input (mesher, clipper): the line says what was tried and what to do
-  4  an internal fault: one line and a request to report it (PLATEWISE_DEBUG=1 shows the stack)`)
+  4  an internal fault: one line and a request to report it (PLATEWISE_DEBUG=1 shows the stack)
+  5  an output could not be written (full disk, quota, I/O error): one line; nothing half-written is left
+  130, 143  batch interrupted by SIGINT, SIGTERM: one line; finished rows kept, summary marked incomplete
+  141  standard output was closed by its reader (| head): the run stops quietly, like a Unix tool on SIGPIPE`)
   .exitOverride();
 
 for (const define of COMMANDS) define(program);

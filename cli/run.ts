@@ -10,13 +10,33 @@ export function flagOf(option: string): string {
   return '--' + option.replace(/[A-Z]/g, (c) => '-' + c.toLowerCase());
 }
 
+/**
+ * Standard output and error failures end the run in one line with a documented status (README "Exit
+ * status"): a reader that closed the pipe (`platewise batch … | head`) stops the run quietly with 141, as a
+ * Unix tool killed by SIGPIPE; a full disk or an I/O error on standard output prints one line and exits 5.
+ * Errors on standard error itself are ignored (there is nowhere left to say anything).
+ */
+export function guardStandardStreams(): void {
+  process.stderr.on('error', () => { /* nowhere to report */ });
+  process.stdout.on('error', (e: NodeJS.ErrnoException) => {
+    if (e.code === 'EPIPE') process.exit(141);
+    try {
+      process.stderr.write(`platewise: standard output: cannot be written (${e.code ?? e.message}${e.code === 'ENOSPC' ? ': no space left on the device' : ''})\n`);
+    } catch { /* ignore */ }
+    process.exit(5);
+  });
+}
+
 export async function run(body: () => Promise<string | void>): Promise<void> {
   try {
     const out = await body();
     if (out) process.stdout.write(out);
   } catch (e) {
-    const { isInputError, isMethodError, OptionError, oneLine, EXIT } = await import('../src/base/errors.js');
-    if (e instanceof OptionError) {
+    const { isInputError, isMethodError, OptionError, OutputError, oneLine, EXIT } = await import('../src/base/errors.js');
+    if (e instanceof OutputError) {
+      process.stderr.write(`platewise: ${e.message}\n`);
+      process.exitCode = EXIT.outputFailed;
+    } else if (e instanceof OptionError) {
       process.stderr.write(`platewise: ${flagOf(e.option)}: ${e.detail}\n`);
       process.exitCode = EXIT.badInput;
     } else if (isInputError(e)) {

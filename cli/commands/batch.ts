@@ -1,9 +1,9 @@
-import { closeSync, existsSync, openSync, realpathSync, statSync, writeSync } from 'node:fs';
-import { availableParallelism } from 'node:os';
-import { resolve } from 'node:path';
+import { closeSync, rmSync, statSync, writeSync } from 'node:fs';
+import { availableParallelism, freemem } from 'node:os';
 import { performance } from 'node:perf_hooks';
-import { InputError } from '../../src/base/errors.js';
-import { readInputText, writeFileAtomic } from '../../src/base/files.js';
+import { EXIT, InputError, OutputError, jsonTerminalText, terminalText } from '../../src/base/errors.js';
+import { checkOutputTarget, createTemp, publish, readInputText, writeFileAtomic } from '../../src/base/files.js';
+import { acquireLock } from '../../src/batch/lock.js';
 import { type Job, folderJobs, manifestBase, parseManifest } from '../../src/batch/manifest.js';
 import { runPool } from '../../src/batch/pool.js';
 import { type BatchSummary, SummaryBuilder, batchCsvHeader, batchCsvRow, batchJsonLine, summaryText } from '../../src/output/batchRows.js';
@@ -16,26 +16,23 @@ export interface BatchFlags extends DrawingFlags {
   thickness?: string; material?: string; density?: string; degree?: number; levels?: number; quiet?: boolean;
 }
 
-function real(p: string): string {
-  try { return realpathSync(p); } catch { return resolve(p); }
-}
-
 /** The summary file beside a CSV output: results.csv → results.summary.json. */
 export function summaryPath(output: string): string {
   return /\.[^./\\]+$/.test(output) ? output.replace(/\.[^./\\]+$/, '.summary.json') : output + '.summary.json';
 }
 
-function checkTarget(target: string, inputs: Set<string>, force: boolean | undefined, flag: string): void {
-  if (inputs.has(real(target))) throw new InputError(flag, `"${target}" is an input of this run; choose another name (inputs are never overwritten)`);
-  if (existsSync(target)) {
-    if (statSync(target).isDirectory()) throw new InputError(flag, `"${target}" is a folder; expected a file name`);
-    if (!force) throw new InputError(flag, `"${target}" already exists; choose a new name or add --force to replace it`);
-  }
+/** Memory one worker may need for a large part (a mesh of about a million triangles). */
+const WORKER_MEMORY_BYTES = 512 * 1024 * 1024;
+
+/** Workers are capped by cores and by memory (one per 512 MiB of free memory, at least one). */
+export function workerCap(): number {
+  return Math.max(1, Math.min(availableParallelism(), Math.floor(freemem() / WORKER_MEMORY_BYTES)));
 }
 
 export async function batch(source: string, flags: BatchFlags): Promise<string> {
   if (flags.jsonl && flags.csv) throw new InputError('--csv', 'choose one of --jsonl and --csv');
   if (flags.jobs !== undefined && (flags.jobs < 1 || flags.jobs > 256)) throw new InputError('--jobs', `expected 1 to 256 worker threads, got ${flags.jobs}`);
+  if (flags.output !== undefined && flags.output.trim() === '') throw new InputError('--output', 'expected a file name, got an empty text');
   if (flags.levels !== undefined && (flags.levels < 1 || flags.levels > 6)) throw new InputError('--levels', `expected 1 to 6, got ${flags.levels}`);
   if (flags.degree !== undefined && (flags.degree < 1 || flags.degree > 20)) throw new InputError('--degree', `expected 1 to 20, got ${flags.degree}`);
   const defaults = plateSettings(flags);
@@ -56,69 +53,136 @@ export async function batch(source: string, flags: BatchFlags): Promise<string> 
   }
 
   const jsonl = flags.jsonl || (!flags.csv && flags.output !== undefined && /\.(jsonl|ndjson)$/i.test(flags.output));
-  const inputs = new Set<string>([real(source)]);
+  const inputs: string[] = [source];
   for (const j of jobs) {
-    inputs.add(real(j.path));
-    if (j.reference) inputs.add(real(j.reference.path));
+    inputs.push(j.path);
+    if (j.reference) inputs.push(j.reference.path);
   }
-  let fd: number | null = null;
+  const toFile = flags.output !== undefined && flags.output !== '-';
+  const opts = { force: flags.force, flag: '--output' };
+  let target = '';
   let sidecar: string | undefined;
-  if (flags.output !== undefined) {
-    checkTarget(flags.output, inputs, flags.force, '--output');
+  let release: (() => void) | null = null;
+  let tmp = '';
+  let fd: number | null = null;
+  let replace = false;
+  if (toFile) {
+    // every output is checked (inputs by device and inode, devices and FIFOs, --force) before any work
+    target = checkOutputTarget(flags.output!, inputs, opts);
     if (!jsonl) {
-      sidecar = summaryPath(flags.output);
-      checkTarget(sidecar, inputs, flags.force, '--output');
+      sidecar = summaryPath(flags.output!);
+      checkOutputTarget(sidecar, inputs, opts);
     }
+    // one writer per output: a second run on the same name is refused while this one holds the lock
+    release = acquireLock(target, '--output');
     try {
-      fd = openSync(flags.output, flags.force ? 'w' : 'wx');
+      replace = (() => { try { return statSync(target).isFile(); } catch { return false; } })();
+      ({ tmp, fd } = createTemp(target, `--output: "${flags.output}"`));
     } catch (e) {
-      throw new InputError('--output', `"${flags.output}" cannot be created (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+      release();
+      throw e;
     }
   }
+  const where = `--output: "${flags.output}"`;
   const write = (text: string) => {
-    if (fd !== null) writeSync(fd, text);
-    else process.stdout.write(text);
+    if (fd !== null) {
+      const buf = Buffer.from(text, 'utf8');
+      let off = 0;
+      try {
+        while (off < buf.length) off += writeSync(fd, buf, off, buf.length - off);
+      } catch (e) {
+        const code = (e as NodeJS.ErrnoException).code ?? (e as Error).message;
+        throw new OutputError(where, `cannot be written (${code}${code === 'ENOSPC' ? ': no space left on the device' : ''}); nothing was written`);
+      }
+    } else {
+      // to a terminal or a pipe: JSON lines with every unsafe character as \uXXXX (the same text when read);
+      // CSV to a terminal escaped too (a CSV file or pipe keeps the exact text)
+      process.stdout.write(jsonl ? jsonTerminalText(text) : process.stdout.isTTY ? terminalText(text) : text);
+    }
   };
 
-  const size = Math.min(flags.jobs ?? availableParallelism(), jobs.length);
+  const cap = workerCap();
+  const asked = flags.jobs ?? availableParallelism();
+  const size = Math.max(1, Math.min(asked, cap, jobs.length));
+  if (flags.jobs !== undefined && flags.jobs > cap && !flags.quiet) {
+    process.stderr.write(`platewise: --jobs ${flags.jobs} capped at ${cap} worker${cap === 1 ? '' : 's'} (${availableParallelism()} cores, ${Math.round(freemem() / 2 ** 20)} MiB free memory, ${WORKER_MEMORY_BYTES / 2 ** 20} MiB per worker)\n`);
+  }
   const summary = new SummaryBuilder(size);
   const showBar = !flags.quiet && process.stderr.isTTY === true;
   let bar: { increment: (n: number, payload: object) => void; stop: () => void } | null = null;
-  if (showBar) {
-    const { default: cliProgress } = await import('cli-progress');
-    const b = new cliProgress.SingleBar({
-      stream: process.stderr, hideCursor: true, clearOnComplete: false,
-      format: 'measuring [{bar}] {value}/{total} files | {failed} failed | {duration_formatted} elapsed, about {eta_formatted} left',
-    }, cliProgress.Presets.shades_classic);
-    b.start(jobs.length, 0, { failed: 0 });
-    bar = b;
-  }
+  // SIGINT / SIGTERM: stop starting jobs, keep every finished row, mark the summary incomplete, one line
+  const stop = new AbortController();
+  let signal: NodeJS.Signals | null = null;
+  const onSignal = (sig: NodeJS.Signals) => { if (signal === null) { signal = sig; stop.abort(); } };
+  process.on('SIGINT', onSignal);
+  process.on('SIGTERM', onSignal);
   let failedParts = 0;
+  let rowsDone = 0;
   const t0 = performance.now();
-  let result: BatchSummary;
+  let result: BatchSummary & { complete: boolean; interrupted?: { signal: string; rowsFinished: number; rowsTotal: number } };
+  let ok = false;
   try {
+    if (showBar) {
+      const { default: cliProgress } = await import('cli-progress');
+      const b = new cliProgress.SingleBar({
+        stream: process.stderr, hideCursor: true, clearOnComplete: false,
+        format: 'measuring [{bar}] {value}/{total} files | {failed} failed | {duration_formatted} elapsed, about {eta_formatted} left',
+      }, cliProgress.Presets.shades_classic);
+      b.start(jobs.length, 0, { failed: 0 });
+      bar = b;
+    }
     write(jsonl ? '' : batchCsvHeader());
-    await runPool(jobs, {
+    rowsDone = await runPool(jobs, {
       size,
+      stop: stop.signal,
       settings: { defaults, degree: flags.degree, levels: flags.levels, read: readOptions(flags) },
       onRows: (rows: BatchRow[]) => {
         let text = '';
+        for (const r of rows) text += jsonl ? batchJsonLine(r) : batchCsvRow(r);
+        write(text); // one write per file's rows: an interrupted run keeps every row it finished, none torn
         for (const r of rows) {
           summary.add(r);
           if (r.status !== 'ok') failedParts++;
-          text += jsonl ? batchJsonLine(r) : batchCsvRow(r);
         }
-        write(text); // one write per file's rows: an interrupted run keeps every row it finished
         bar?.increment(1, { failed: failedParts });
       },
     });
-    result = summary.finish((performance.now() - t0) / 1000);
+    const finished = summary.finish((performance.now() - t0) / 1000);
+    for (const k of ['netMassKg', 'netMassErrorKg', 'blankMassKg', 'cutLengthM', 'pierces', 'pieces'] as const) {
+      if (!Number.isFinite(finished[k])) throw new InputError('batch', `the total ${k} is beyond the range of numbers (${finished[k]}); check the quantities and masses of the rows`);
+    }
+    result = signal === null
+      ? { ...finished, complete: true }
+      : { ...finished, complete: false, interrupted: { signal, rowsFinished: rowsDone, rowsTotal: jobs.length } };
     if (jsonl) write(JSON.stringify({ summary: result }) + '\n');
+    ok = true;
   } finally {
     bar?.stop();
+    process.off('SIGINT', onSignal);
+    process.off('SIGTERM', onSignal);
     if (fd !== null) closeSync(fd);
+    try {
+      if (ok && toFile) publish(tmp, target, replace || flags.force === true, where);
+    } catch (e) {
+      ok = false;
+      if (!(e instanceof InputError)) throw new OutputError(where, `cannot be written (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+      throw e;
+    } finally {
+      if (tmp) rmSync(tmp, { force: true });
+      if (!ok) release?.();
+    }
   }
-  if (sidecar) writeFileAtomic(sidecar, JSON.stringify({ summary: result }, null, 2) + '\n', [...inputs]);
+  try {
+    if (sidecar) writeFileAtomic(sidecar, JSON.stringify({ summary: result }, null, 2) + '\n', inputs, opts);
+  } finally {
+    release?.();
+  }
+  if (signal !== null) {
+    const out = toFile ? `; ${flags.output} holds the ${rowsDone} finished row${rowsDone === 1 ? '' : 's'}${sidecar ? ` and ${sidecar} is marked incomplete` : ', its summary line marked incomplete'}` : '';
+    process.stderr.write(`platewise: interrupted by ${signal} after ${rowsDone} of ${jobs.length} rows${out}\n`);
+    process.exitCode = signal === 'SIGINT' ? EXIT.interrupted : EXIT.terminated;
+    return '';
+  }
   if (!flags.quiet) process.stderr.write(summaryText(result));
   if (result.partsFailed > 0 || result.verdicts.fail > 0 || result.verdicts.inconclusive > 0) process.exitCode = 1;
   return '';

@@ -1,6 +1,6 @@
 import { analyzePart } from '../../src/analysis/analyze.js';
 import { checkSectionOptions } from '../../src/analysis/options.js';
-import { InputError } from '../../src/base/errors.js';
+import { InputError, jsonTerminalText, terminalText } from '../../src/base/errors.js';
 import { readInputText } from '../../src/base/files.js';
 import type { PlateModel } from '../../src/model/plate.js';
 import { MASS_CAUTION } from '../../src/output/cautions.js';
@@ -23,8 +23,10 @@ export function pickPart<P extends { name: string }>(parts: P[], label: string, 
   if (wanted !== undefined) {
     const hit = parts.filter((p) => p.name === wanted);
     if (hit.length === 1) return hit[0];
-    if (parts.length === 1 && where !== '--part') return parts[0];
-    throw new InputError(where, `names part "${wanted}", but ${label} holds ${parts.map((p) => `"${p.name}"`).join(', ')}; expected one of these names`);
+    const names = parts.map((p) => `"${p.name}"`).join(', ');
+    // a stated-values file about another part is refused, even when the file holds one part: --part says which to use
+    if (where !== '--part') throw new InputError(where, `names part "${wanted}", but ${label} holds ${names}; compare against another part only by naming it with --part`);
+    throw new InputError(where, `names part "${wanted}", but ${label} holds ${names}; expected one of these names`);
   }
   if (parts.length === 1) return parts[0];
   throw new InputError(label, `holds ${parts.length} parts (${parts.map((p) => `"${p.name}"`).join(', ')}); expected one, or --part naming one`);
@@ -55,7 +57,7 @@ export function compare(file: string, flags: CompareFlags): string {
   };
   // a fail or inconclusive verdict is a result, not an error: print it and say so in the exit status
   if (comparison.verdict !== 'pass') process.exitCode = 1;
-  if (flags.json) return JSON.stringify(comparisonJson(comparison, meta), null, 2) + '\n';
+  if (flags.json) return jsonTerminalText(JSON.stringify(comparisonJson(comparison, meta), null, 2) + '\n');
   if (flags.csv) return comparisonCsv(comparison);
-  return comparisonText(comparison, meta);
+  return terminalText(comparisonText(comparison, meta));
 }

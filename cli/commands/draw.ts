@@ -1,13 +1,13 @@
 import { analyzePart } from '../../src/analysis/analyze.js';
 import { checkSectionOptions } from '../../src/analysis/options.js';
 import { InputError } from '../../src/base/errors.js';
-import { readInputText, writeFileAtomic, writeFilesAtomic } from '../../src/base/files.js';
+import { checkOutputTarget, readInputText, writeFileAtomic, writeFilesAtomic } from '../../src/base/files.js';
 import { detectFormat } from '../../src/read/detect.js';
 import { readModels } from '../../src/read/models.js';
 import { type DrawingFlags, readOptions } from './settings.js';
 
 export interface DrawFlags extends DrawingFlags {
-  output?: string; mesh?: boolean; shade?: string; sheet?: boolean;
+  output?: string; force?: boolean; mesh?: boolean; shade?: string; sheet?: boolean;
   degree?: number; triangulation?: string; format?: string; units?: string;
 }
 
@@ -35,6 +35,10 @@ export function shadeText(shade: string | undefined, text: string, label: string
 export async function draw(file: string, flags: DrawFlags): Promise<string> {
   const section = checkSectionOptions({ degree: flags.degree, triangulation: flags.triangulation });
   if (flags.output !== undefined && flags.output.trim() === '') throw new InputError('--output', 'expected a file name, got an empty text');
+  if (flags.output === '-') flags = { ...flags, output: undefined };
+  const write = { force: flags.force, flag: '--output' };
+  // the output name is checked before any work (the numbered names once the parts are known)
+  if (flags.output !== undefined) checkOutputTarget(flags.output, [file], write);
   const readOpts = readOptions(flags);
   const input = readInputText(file);
   const models = readModels(input.text, input.label, readOpts);
@@ -51,14 +55,13 @@ export async function draw(file: string, flags: DrawFlags): Promise<string> {
   if (flags.sheet || (results.length > 1 && flags.output === undefined)) {
     const svg = await drawSheet(results, opts);
     if (flags.output === undefined) return svg + '\n';
-    writeFileAtomic(flags.output, svg + '\n', [file]);
+    writeFileAtomic(flags.output, svg + '\n', [file], write);
     return '';
   }
   const svgs: string[] = [];
   for (const r of results) svgs.push(await drawPart(r, opts));
   if (flags.output === undefined) return svgs[0] + '\n';
   const names = svgs.length === 1 ? [flags.output] : svgs.map((_, i) => numberedName(flags.output!, i + 1));
-  for (const n of names) if (n === file) throw new InputError(n, 'is the input file of this run; choose another output name (inputs are never overwritten)');
-  writeFilesAtomic(svgs.map((s, i) => ({ target: names[i], data: s + '\n' })), [file]);
+  writeFilesAtomic(svgs.map((s, i) => ({ target: names[i], data: s + '\n' })), [file], write);
   return '';
 }

@@ -1,6 +1,7 @@
+import { assertFiniteIntegral } from '../../src/analysis/finite.js';
 import { checkIntegrationOptions } from '../../src/analysis/options.js';
 import { integrateExpression } from '../../src/analysis/plate.js';
-import { InputError } from '../../src/base/errors.js';
+import { InputError, jsonTerminalText, terminalText } from '../../src/base/errors.js';
 import { readInputText } from '../../src/base/files.js';
 import type { Part } from '../../src/geometry/part.js';
 import { integralJson, integralText } from '../../src/output/massText.js';
@@ -32,9 +33,10 @@ export function integrate(file: string, flags: IntegrateFlags): string {
     parts = models.map((m) => ({ ...m.layers[0].part, name: m.name }));
   }
   const results = parts.map((p) => integrateExpression(p, flags.expr, { ...opts, where: '--expr' }));
+  for (const r of results) assertFiniteIntegral('--expr', { integral: r.integral, momentX: r.momentX, momentY: r.momentY, pointX: r.pointX ?? undefined, pointY: r.pointY ?? undefined });
   if (flags.json) {
     const docs = results.map((r) => integralJson(r, flags.exprUnit));
-    return JSON.stringify(docs.length === 1 ? docs[0] : { parts: docs }, null, 2) + '\n';
+    return jsonTerminalText(JSON.stringify(docs.length === 1 ? docs[0] : { parts: docs }, null, 2) + '\n');
   }
-  return results.map((r) => integralText(r, flags.exprUnit)).join('\n');
+  return terminalText(results.map((r) => integralText(r, flags.exprUnit)).join('\n'));
 }

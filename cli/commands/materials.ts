@@ -1,3 +1,4 @@
+import { jsonTerminalText, terminalText } from '../../src/base/errors.js';
 import { readInputText } from '../../src/base/files.js';
 import { type MaterialTable, listMaterials, loadMaterialFile } from '../../src/model/index.js';
 import { MASS_CAUTION } from '../../src/output/cautions.js';
@@ -12,16 +13,18 @@ export function userMaterials(path: string | undefined): MaterialTable | undefin
 export function materials(flags: { json?: boolean; materialsFile?: string }): string {
   const list = listMaterials(userMaterials(flags.materialsFile));
   if (flags.json) {
-    return JSON.stringify({
+    return jsonTerminalText(JSON.stringify({
       units: { density: 'kg/m3' },
       materials: list.map((m) => ({ id: m.id, name: m.name, density: m.density, source: m.source, aliases: m.aliases, note: m.note ?? null, origin: m.origin })),
       caution: MASS_CAUTION,
-    }, null, 2) + '\n';
+    }, null, 2) + '\n');
   }
-  const w = Math.max(2, ...list.map((m) => m.id.length));
-  const wn = Math.max(4, ...list.map((m) => m.name.length));
+  // names escaped first, so that the columns line up with what the terminal shows
+  const safe = list.map((m) => ({ ...m, id: terminalText(m.id), name: terminalText(m.name), source: terminalText(m.source) }));
+  const w = Math.max(2, ...safe.map((m) => m.id.length));
+  const wn = Math.max(4, ...safe.map((m) => m.name.length));
   const lines = [`${'id'.padEnd(w)}  ${'name'.padEnd(wn)}  ${'kg/m³'.padStart(8)}  source`];
-  for (const m of list) {
+  for (const m of safe) {
     lines.push(`${m.id.padEnd(w)}  ${m.name.padEnd(wn)}  ${String(m.density).padStart(8)}  ${m.source}${m.origin === 'built-in' ? '' : ` [${m.origin}]`}`);
     if (m.aliases.length > 0) lines.push(`${''.padEnd(w)}  also: ${m.aliases.join(', ')}`);
   }

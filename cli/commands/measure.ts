@@ -1,7 +1,7 @@
 /** `platewise measure`: flags in, one call per part into the analysis entry point, a writer out. */
 import { analyzePart } from '../../src/analysis/analyze.js';
 import { checkIntegrationOptions, checkSectionOptions } from '../../src/analysis/options.js';
-import { InputError } from '../../src/base/errors.js';
+import { InputError, jsonTerminalText, terminalText } from '../../src/base/errors.js';
 import { readInputText } from '../../src/base/files.js';
 import { reportsJson, reportsText } from '../../src/output/partReport.js';
 import { readModels } from '../../src/read/models.js';
@@ -30,5 +30,5 @@ export function measure(file: string, flags: MeasureFlags): string {
       if (flags[k] !== undefined) throw new InputError(flag, 'applies to mass properties; give a thickness and a density or material (in the file or with --thickness and --density/--material)');
     }
   }
-  return flags.json ? reportsJson(reports, units) : reportsText(reports, units);
+  return flags.json ? jsonTerminalText(reportsJson(reports, units)) : terminalText(reportsText(reports, units));
 }

@@ -3,14 +3,14 @@ import { analyzePart } from '../../src/analysis/analyze.js';
 import { measureSection } from '../../src/analysis/measure.js';
 import { checkSectionOptions } from '../../src/analysis/options.js';
 import { InputError } from '../../src/base/errors.js';
-import { readInputText, writeFileAtomic } from '../../src/base/files.js';
+import { checkOutputTarget, readInputText, writeFileAtomic } from '../../src/base/files.js';
 import { readModels } from '../../src/read/models.js';
 import { interpretationText, unitSourceText } from '../../src/output/words.js';
 import { VERSION } from '../version.js';
 import { type DrawingFlags, plateSettings, readOptions } from './settings.js';
 
 export interface ReportFlags extends DrawingFlags {
-  output?: string; degree?: number; levels?: number; triangulation?: string; format?: string; units?: string;
+  output?: string; force?: boolean; degree?: number; levels?: number; triangulation?: string; format?: string; units?: string;
   thickness?: string; density?: string; material?: string;
   /** Fixed date (ISO) instead of now: for reproducible output in tests. */
   date?: string;
@@ -22,6 +22,9 @@ export const CONVERGENCE_LEVELS = 3;
 export async function report(file: string, flags: ReportFlags): Promise<string> {
   const section = checkSectionOptions({ degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation });
   if (flags.output !== undefined && flags.output.trim() === '') throw new InputError('--output', 'expected a file name, got an empty text');
+  if (flags.output === '-') flags = { ...flags, output: undefined };
+  const write = { force: flags.force, flag: '--output' };
+  if (flags.output !== undefined) checkOutputTarget(flags.output, [file], write);
   if (flags.output !== undefined && !/\.html?$/i.test(flags.output)) throw new InputError('--output', `the report is an HTML page; name the file .html (got "${flags.output}"); for a PDF, open the page in a browser and print it`);
   const input = readInputText(file);
   const models = readModels(input.text, input.label, readOptions(flags));
@@ -51,6 +54,6 @@ export async function report(file: string, flags: ReportFlags): Promise<string> 
     })),
   });
   if (flags.output === undefined) return html;
-  writeFileAtomic(flags.output, html, [file]);
+  writeFileAtomic(flags.output, html, [file], write);
   return '';
 }

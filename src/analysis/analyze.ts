@@ -10,6 +10,7 @@
  * The report holds numbers with their estimates, the method facts, why each computation stopped, and
  * warnings and cautions as codes with parameters. Words are chosen in src/output.
  */
+import { assertFiniteReport } from './finite.js';
 import { InputError } from '../base/errors.js';
 import { type MaterialTable } from '../model/materials.js';
 import {
@@ -134,6 +135,8 @@ export function analyzePart(model: PlateModel & { interpretation?: Interpretatio
   if (mass) for (const [k, v] of Object.entries(mass.quantities)) quantities[k] = v;
   const cautions: Caution[] = ['geometry'];
   if (mass || fabrication?.quantities.netMass) cautions.push('mass');
+  // issue 16: no NaN or Infinity is ever reported; the one refusal names the cause (src/analysis/finite.ts)
+  for (const l of layers) assertFiniteReport(`part "${model.name}"`, l.section.quantities, mass?.quantities, fabrication?.quantities);
   return {
     part: model.name, units: model.units, unitSource: model.unitSource, layered: model.layered,
     layers, section, mass, fabrication, plate, missing, quantities, warnings, cautions, interpretation: model.interpretation, notCut: model.notCut,

@@ -197,10 +197,24 @@ export function formatCsvNumber(x: number): string {
   return String(x);
 }
 
-/** One CSV field: quoted when it holds a comma, a double quote, CR or LF. null/undefined give an empty field. */
-export function formatCsvField(f: string | number | null | undefined): string {
+/**
+ * A text cell that a spreadsheet would run as a formula (it begins with =, +, -, @, a tab or a carriage
+ * return: the common guidance on CSV formula injection) gets a leading single quote, which spreadsheets
+ * show as text. Only text cells: numbers are written as numbers (a negative number stays a number, also when
+ * it arrives as text such as a stated value "-5").
+ */
+export function neutraliseFormula(s: string): string {
+  return /^[=+\-@\t\r]/.test(s) && !/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(s) ? `'${s}` : s;
+}
+
+/**
+ * One CSV field: quoted when it holds a comma, a double quote, CR or LF. null/undefined give an empty field.
+ * With `neutralise`, text that could start a spreadsheet formula gets its leading quote (neutraliseFormula);
+ * the codec itself (round trips) writes text exactly.
+ */
+export function formatCsvField(f: string | number | null | undefined, neutralise = false): string {
   if (f === null || f === undefined) return '';
-  const s = typeof f === 'number' ? formatCsvNumber(f) : f;
+  const s = typeof f === 'number' ? formatCsvNumber(f) : neutralise ? neutraliseFormula(f) : f;
   if (/[",\r\n]/.test(s)) return `"${s.replace(/"/g, '""')}"`;
   return s;
 }
@@ -209,12 +223,12 @@ export function formatCsvField(f: string | number | null | undefined): string {
  * One CSV record without a line break. A record of a single empty field is written as `""` so that it
  * cannot be mistaken for a blank line or for no record at all.
  */
-export function formatCsvRow(fields: readonly (string | number | null | undefined)[]): string {
-  const s = fields.map(formatCsvField).join(',');
+export function formatCsvRow(fields: readonly (string | number | null | undefined)[], options: { neutralise?: boolean } = {}): string {
+  const s = fields.map((f) => formatCsvField(f, options.neutralise === true)).join(',');
   return s === '' && fields.length === 1 ? '""' : s;
 }
 
 /** Whole CSV text: records joined and ended with CRLF, as RFC 4180 writes them. */
-export function formatCsv(rows: readonly (readonly (string | number | null | undefined)[])[]): string {
-  return rows.map((r) => formatCsvRow(r) + '\r\n').join('');
+export function formatCsv(rows: readonly (readonly (string | number | null | undefined)[])[], options: { neutralise?: boolean } = {}): string {
+  return rows.map((r) => formatCsvRow(r, options) + '\r\n').join('');
 }

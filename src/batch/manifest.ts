@@ -61,6 +61,9 @@ export interface Job {
 }
 
 export const PART_EXTENSIONS = ['.json', '.svg', '.geojson', '.wkt'];
+/** Most pieces one row may order: totals stay exact in whole pieces and far from overflow. */
+export const MAX_QUANTITY = 1_000_000_000;
+
 const FIXED = ['file', 'quantity', 'material', 'thickness', 'density', 'reference', 'format', 'units', 'note'];
 const UNIT_HEADER = /^(.*?)\s*\[([^\]]*)\]$/;
 
@@ -128,6 +131,7 @@ export function parseManifest(text: string, label: string, baseDir: string, opti
       if (!/^\d+$/.test(q) || Number(q) < 1 || !Number.isSafeInteger(Number(q))) {
         throw new InputError(at(hdr('quantity')), `expected how many of this part (a whole number of 1 or more), got "${q}"`);
       }
+      if (Number(q) > MAX_QUANTITY) throw new InputError(at(hdr('quantity')), `${q} pieces is more than the limit of ${MAX_QUANTITY}; totals would lose whole pieces (split the row)`);
       job.quantity = Number(q);
     }
     const m = cell('material');

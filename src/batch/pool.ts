@@ -13,6 +13,12 @@ export interface PoolOptions {
   onRows: (rows: BatchRow[], job: Job) => void;
   /** Worker script (default: the compiled worker.js beside this module). */
   workerUrl?: URL;
+  /**
+   * Stops the pool (SIGINT, SIGTERM): no further job starts, the workers are terminated, results that arrive
+   * afterwards are dropped, and the promise resolves with the number of jobs whose rows were delivered. Rows
+   * are delivered whole or not at all, so nothing handed to `onRows` is ever torn.
+   */
+  stop?: AbortSignal;
 }
 
 function crashedRow(job: Job, why: string): BatchRow {
@@ -26,18 +32,27 @@ function crashedRow(job: Job, why: string): BatchRow {
 /** Jobs kept in flight per worker, so that a worker never waits for the main thread between jobs. */
 const IN_FLIGHT = 2;
 
-export function runPool(jobs: readonly Job[], options: PoolOptions): Promise<void> {
+export function runPool(jobs: readonly Job[], options: PoolOptions): Promise<number> {
   // beside this module in the tsc build (dist/src/batch/); from the bundled command line (dist/cli/) one folder up
   const here = import.meta.url;
   const url = options.workerUrl ?? (here.includes('/src/batch/') ? new URL('./worker.js', here) : new URL('../src/batch/worker.js', here));
   const size = Math.max(1, Math.min(options.size, jobs.length));
   const queue: number[] = jobs.map((_, i) => i);
   let done = 0;
-  return new Promise<void>((resolveAll, rejectAll) => {
-    if (jobs.length === 0) { resolveAll(); return; }
+  return new Promise<number>((resolveAll, rejectAll) => {
+    if (jobs.length === 0) { resolveAll(0); return; }
     let stopped = false;
     const live = new Set<Worker>();
+    const halt = () => {
+      if (stopped) return;
+      stopped = true;
+      for (const w of live) void w.terminate();
+      resolveAll(done);
+    };
+    if (options.stop?.aborted) { halt(); return; }
+    options.stop?.addEventListener('abort', halt, { once: true });
     const complete = (rows: BatchRow[], index: number): boolean => {
+      if (stopped) return false;
       try {
         options.onRows(rows, jobs[index]);
       } catch (e) {
@@ -48,8 +63,10 @@ export function runPool(jobs: readonly Job[], options: PoolOptions): Promise<voi
       }
       done++;
       if (done === jobs.length) {
+        stopped = true;
+        options.stop?.removeEventListener('abort', halt);
         for (const w of live) void w.terminate();
-        resolveAll();
+        resolveAll(done);
       }
       return true;
     };
@@ -90,6 +107,6 @@ export function runPool(jobs: readonly Job[], options: PoolOptions): Promise<voi
       w.on('exit', (code) => lost(`exit code ${code}`));
       fill();
     };
-    for (let k = 0; k < size; k++) start();
+    for (let k = 0; k < size && !stopped; k++) start();
   });
 }

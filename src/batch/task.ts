@@ -73,14 +73,18 @@ export function runJob(job: Job, settings: JobSettings): BatchRow[] {
   let reference: Reference | null = null;
   let parts: PlateModel[];
   try {
-    const input = readInputText(job.path);
+    const input = readInputText(job.path, { regularOnly: true });
     parts = readModels(input.text, job.file, { ...settings.read, format: job.format ?? settings.read?.format, units: job.units ?? settings.read?.units });
     if (job.reference) {
-      const rt = readInputText(job.reference.path);
+      const rt = readInputText(job.reference.path, { regularOnly: true });
       reference = readReference(rt.text, job.reference.label);
     }
   } catch (e) {
     return [failed(job, message(e))];
+  }
+  const named = reference?.part;
+  if (named !== undefined && !parts.some((p) => p.name === named)) {
+    return [failed(job, `${job.reference!.label}: names part "${named}", but ${job.file} holds ${parts.map((p) => `"${p.name}"`).join(', ')}; stated values are compared only with the part they name`)];
   }
   const stated = [...(reference?.values ?? [])];
   for (const sv of job.stated) {
@@ -111,7 +115,6 @@ export function runJob(job: Job, settings: JobSettings): BatchRow[] {
       row.warnings = f.warnings;
       row.unitSource = f.unitSource;
       row.markingLength = f.interpretation?.parts.find((q) => q.name === f.part)?.markingLength ?? null;
-      const named = reference?.part;
       if (stated.length > 0 && (parts.length === 1 || named === undefined || named === part.name)) {
         const c = compareAll({ source: reference?.source ?? 'manifest', values: stated }, f.quantities, { lengthUnit: part.units, partSize: partSize(f) });
         explainMissing(c.rows, f);

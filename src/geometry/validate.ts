@@ -29,6 +29,7 @@ const at = (x: number, y: number) => `(${fmt(x)}, ${fmt(y)})`;
 export function validatePart(part: Part): number {
   if (part.regions.length === 0) throw new InputError('outline', 'the part has no material (no outline)');
   checkRange(part);
+  checkScale(part);
   const box = partBox(part);
   const size = Math.max(box[2] - box[0], box[3] - box[1]);
   if (!Number.isFinite(size) || !(size > 0)) throw new InputError('outline', 'expected an outline with finite, non-zero extent');
@@ -97,6 +98,35 @@ function checkRange(part: Part): void {
         }
       }
     }
+  }
+}
+
+/** Smallest part extent measured, in the part's length unit (its fourth power stays a normal number). */
+export const MIN_PART_EXTENT = 1e-9;
+/** Smallest ratio of the part's extent to its distance from the origin (coordinates carry ~16 digits). */
+export const MIN_EXTENT_TO_OFFSET = 1e-9;
+
+/**
+ * The part must be large enough to compute with and near enough to the origin for its size: a subnormal or
+ * 1e-100 part underflows in its second moments and the later checks would speak of self-crossings at
+ * (NaN, NaN) or of the mesher; a 0.0001-wide part at 9e11 has edges that doubles cannot tell apart, which
+ * the later checks would call a zero-length segment. Issue 16: name the real cause instead.
+ */
+function checkScale(part: Part): void {
+  let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
+  for (const r of part.regions) for (const seg of r.outer.segments) {
+    const b = ops(seg).bbox(seg);
+    x0 = Math.min(x0, b[0]); y0 = Math.min(y0, b[1]); x1 = Math.max(x1, b[2]); y1 = Math.max(y1, b[3]);
+  }
+  if (!(x1 >= x0 && y1 >= y0)) return; // empty parts are refused elsewhere
+  const extent = Math.max(x1 - x0, y1 - y0);
+  const offset = Math.max(Math.abs(x0), Math.abs(x1), Math.abs(y0), Math.abs(y1));
+  const name = part.regions[0] ? loopName(part.regions[0].outer) : 'part';
+  if (extent < MIN_PART_EXTENT) {
+    throw new InputError(name, `the part is only ${fmt(extent)} across (in its length unit); the smallest part measured is ${MIN_PART_EXTENT} across, since its second moments would underflow: check the unit or scale the drawing`);
+  }
+  if (extent < offset * MIN_EXTENT_TO_OFFSET) {
+    throw new InputError(name, `the part is ${fmt(extent)} across but lies ${fmt(offset)} from the origin; numbers carry about 16 significant digits, too few to place its edges at that distance: move the part near the origin (its properties about the origin follow from the parallel-axis theorem)`);
   }
 }
 

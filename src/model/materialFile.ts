@@ -23,6 +23,7 @@
  * Every fault is an InputError whose `where` is `<fileLabel>: <JSON path>`.
  */
 import { InputError, describeValue } from '../base/errors.js';
+import { checkJsonText } from '../base/jsonCheck.js';
 import { MATERIALS, normalizeMaterialName, type Material, type MaterialTable } from './materials.js';
 import { DENSITY_UNITS, densityToSI, parseDensityUnit } from './massUnits.js';
 
@@ -65,7 +66,9 @@ export function loadMaterialFile(text: string, fileLabel: string): MaterialTable
   let data: unknown;
   try {
     data = JSON.parse(text);
+    checkJsonText(text, fileLabel, `${fileLabel}: `);
   } catch (e) {
+    if (e instanceof InputError) throw e;
     const msg = e instanceof Error ? e.message : String(e);
     const at = jsonErrorPlace(text, msg);
     const short = msg.replace(/\s*in JSON at position \d+.*$/s, '').replace(/\s*\(line \d+ column \d+\)$/, '');

@@ -58,7 +58,7 @@ export function batchCsvRow(r: BatchRow): string {
     r.row, r.file, r.item, r.part, r.status, r.quantity, r.units, r.unitSource, r.material, r.thickness, r.density,
     ...VALUE_KEYS.map((k) => valueOf(r, k)), r.markingLength,
     r.verdict, r.counts?.pass ?? null, r.counts?.fail ?? null, r.counts?.inconclusive ?? null, notPassedText(r), r.error,
-  ]) + '\r\n';
+  ], { neutralise: true }) + '\r\n'; // a spreadsheet must never run a part or file name as a formula
 }
 
 export function batchJsonLine(r: BatchRow): string {

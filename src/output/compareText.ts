@@ -144,5 +144,5 @@ export function comparisonCsv(c: Comparison): string {
       r.quantity, r.statedAsWritten, r.statedUnit, r.stated, r.unit, r.computed, r.error, r.difference,
       r.tolerance, r.toleranceSource, r.toleranceText, r.verdict, r.note ?? '', r.statedNote ?? '', rowAdvice(r).filter((a) => !a.startsWith('the reference notes')).join('; '),
     ]),
-  ]);
+  ], { neutralise: true });
 }

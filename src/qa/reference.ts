@@ -31,6 +31,7 @@
  * - Each quantity at most once per file.
  */
 import { InputError, describeValue } from '../base/errors.js';
+import { checkJsonText } from '../base/jsonCheck.js';
 import { type Dimension, QUANTITIES, quantityInfo } from '../properties/quantities.js';
 import { parseCsvRecords, csvWhere } from '../base/csv.js';
 import { type ParsedUnit, parseUnit, plainScale, UNIT_EXAMPLES } from './units.js';
@@ -111,6 +112,9 @@ export function splitValueText(s: string, where: string): { value: number; unit:
   return { value: Number(m[1]), unit: m[2] };
 }
 
+/** Largest relative tolerance accepted: 100% (beyond it every computed value of the right sign passes). */
+export const MAX_RELATIVE_TOLERANCE = 1;
+
 /** Tolerance text: "0.5%", "0.002 rel", "0.05 mm", or (counts, ratios) a bare number. */
 function parseToleranceText(s: string, dim: Dimension, where: string): StatedTolerance | null {
   const t = s.trim();
@@ -120,7 +124,9 @@ function parseToleranceText(s: string, dim: Dimension, where: string): StatedTol
   const u = unit.toLowerCase();
   if (u === '%' || u === 'rel') {
     if (dim === 'angle') throw new InputError(where, `expected an absolute tolerance for an angle (such as "0.1 deg"), got "${t}"`);
-    return { kind: 'relative', fraction: u === '%' ? value / 100 : value, text: t };
+    const fraction = u === '%' ? value / 100 : value;
+    if (fraction > MAX_RELATIVE_TOLERANCE) throw new InputError(where, `a tolerance of ${t} is more than the value itself (at most 100% or 1 rel); expected a tolerance that can tell a right value from a wrong one`);
+    return { kind: 'relative', fraction, text: t };
   }
   if (u === '' && dim !== 'count' && dim !== 'ratio') {
     throw new InputError(where, `a bare number is unclear; expected "${value}%" (relative), "${value} rel" (fraction of the value) or "${value} <unit>" (${UNIT_EXAMPLES[dim]})`);
@@ -147,7 +153,9 @@ export function parseReferenceJson(text: string, label: string, options: Referen
   let doc: unknown;
   try {
     doc = JSON.parse(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
+    checkJsonText(text, label, `${label}:`);
   } catch (e) {
+    if (e instanceof InputError) throw e;
     const loc = jsonLocation(text, e);
     throw new InputError(loc ? `${label}:${loc}` : label, `expected JSON (${e instanceof Error ? e.message.split('\n')[0] : 'unreadable'})`);
   }
@@ -215,6 +223,7 @@ export function parseReferenceJson(text: string, label: string, options: Referen
             throw new InputError(`${tw}.relative`, `expected a fraction of zero or more (0.002 for 0.2%), got ${describeValue(to.relative)}`);
           }
           if (dim === 'angle') throw new InputError(tw, 'expected an absolute tolerance for an angle, such as {"absolute": 0.1, "unit": "deg"}');
+          if (to.relative > MAX_RELATIVE_TOLERANCE) throw new InputError(`${tw}.relative`, `a tolerance of ${to.relative} is more than the value itself (at most 1, i.e. 100%); expected a tolerance that can tell a right value from a wrong one`);
           tolerance = { kind: 'relative', fraction: to.relative, text: `${to.relative} rel` };
         } else if (keys === 'absolute,unit' || keys === 'absolute') {
           if (typeof to.absolute !== 'number' || !(to.absolute >= 0) || !Number.isFinite(to.absolute)) {

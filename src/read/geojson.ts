@@ -13,6 +13,7 @@
  * are ignored. Ring orientation is not required (the right-hand rule of 3.1.6 is a SHOULD).
  */
 import { InputError, describeValue } from '../base/errors.js';
+import { checkJsonText } from '../base/jsonCheck.js';
 import type { Loop, Part } from '../geometry/part.js';
 import type { Segment } from '../geometry/segments.js';
 import type { LengthUnit } from '../base/units.js';
@@ -189,8 +190,11 @@ export function geoJsonDrawing(value: unknown, opts: GeoJsonOptions = {}): Drawi
 
 function parseJson(text: string): unknown {
   try {
-    return JSON.parse(text);
+    const value: unknown = JSON.parse(text);
+    checkJsonText(text, 'geojson');
+    return value;
   } catch (e) {
+    if (e instanceof InputError) throw e;
     throw new InputError('geojson', `expected valid JSON: ${(e as Error).message}`);
   }
 }

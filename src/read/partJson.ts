@@ -3,6 +3,7 @@
  * schema/part.schema.json. Every problem is an InputError naming the JSON path.
  */
 import { InputError, describeValue } from '../base/errors.js';
+import { checkJsonText } from '../base/jsonCheck.js';
 import type { Loop, Part, Region } from '../geometry/part.js';
 import { type PathStep, type Pt, circleLoop, pathLoop, polygonLoop, rectangleLoop, slotLoop } from '../geometry/shapes.js';
 import { combineShapes } from '../geometry/booleans.js';
@@ -30,8 +31,11 @@ const TOP_KEYS = ['$schema', 'part', 'units', 'outline', 'cutouts', 'regions', '
 export function parseJsonText(text: string, label: string): unknown {
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
   try {
-    return JSON.parse(text);
+    const value: unknown = JSON.parse(text);
+    checkJsonText(text, label);
+    return value;
   } catch (e) {
+    if (e instanceof InputError) throw e;
     const msg = (e as Error).message;
     const m = /position (\d+)/.exec(msg);
     let where = label;
@@ -358,6 +362,8 @@ export function plateModelFromObject(value: unknown, label = 'input'): PlateMode
     const material = readMaterialName(o.material, `${w}.material`);
     if (density && material) throw new InputError(`${w}.material`, 'given together with "density"; give one or the other');
     const z = o.z === undefined ? undefined : expectNumber(o.z, `${w}.z`);
+    // z is a coordinate too: its square enters the mass moments, so the coordinate limit holds for it
+    if (z !== undefined && Math.abs(z) > MAX_COORDINATE) throw new InputError(`${w}.z`, `coordinate ${z} is out of range (magnitude at most ${MAX_COORDINATE})`);
     return {
       name: lname, where: w, part, thickness,
       density: density ?? (material ? undefined : defDensity),

@@ -29,10 +29,14 @@ type Tok = { kind: 'word' | 'num' | '(' | ')' | ',' | ';' | 'end'; text: string;
 
 const NUM = /[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?/y;
 
+/** Most tokens read from one WKT text (about a million points): memory stays far under 1 GB (issue 16). */
+export const MAX_WKT_TOKENS = 3_000_000;
+
 function tokenize(text: string, where: (at: number) => string, srids: { srid: number; at: number }[]): Tok[] {
   const out: Tok[] = [];
   let i = 0;
   while (i < text.length) {
+    if (out.length > MAX_WKT_TOKENS) throw new InputError(where(i), `holds more than ${MAX_WKT_TOKENS} tokens (about ${MAX_WKT_TOKENS / 3} points), the limit for one drawing; split it or simplify it`);
     const c = text[i];
     if (/\s/.test(c)) { i++; continue; }
     if (c === '(' || c === ')' || c === ',' || c === ';') { out.push({ kind: c, text: c, at: i }); i++; continue; }

@@ -148,7 +148,7 @@ describe('batch exit statuses and output rules', () => {
     expect(readFileSync(join(dir, 'taken.csv'), 'utf8')).toMatch(/^row,file,/);
     const inp = platewise(['batch', 'job.csv', '-o', 'job.csv', '--force']);
     expect(inp.status).toBe(2);
-    expect(inp.stderr).toMatch(/is an input of this run/);
+    expect(inp.stderr).toMatch(/is an input file of this run/);
     writeFileSync(join(dir, 'bad.csv'), 'file,quantity\r\nparts/p0001.json,-1\r\n');
     const b = platewise(['batch', 'bad.csv', '-o', 'never.csv']);
     expect(b.status).toBe(2);

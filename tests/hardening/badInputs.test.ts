@@ -40,6 +40,8 @@ beforeAll(() => {
   // 50 MB part file: a valid part whose note is huge (over the 32 MiB file limit)
   writeBig(join(tmp, 'big.json'), '{"outline": {"rectangle": {"corner": [0, 0], "size": [100, 60]}}, "note": "', 'x', '"}\n', 50 * 1024 * 1024);
   // 25 MB SVG: under the file limit, over the 20 MiB XML limit
+  // 32 MiB WKT of identical points (just under the file limit): refused by the token limit within 1 GB
+  writeBig(join(tmp, 'big.wkt'), 'POLYGON((', '0 0,', '0 0))\n', 32 * 1024 * 1024 - 64);
   writeBig(join(tmp, 'big.svg'), '<svg xmlns="http://www.w3.org/2000/svg"><path d="M0 0 H100 V60 H0 Z"/>', '<!-- padding -->', '</svg>\n', 25 * 1024 * 1024);
 });
 afterAll(() => {

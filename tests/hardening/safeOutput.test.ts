@@ -46,7 +46,7 @@ describe('the CLI never overwrites an input', () => {
     for (const args of [['batch', 'job.csv', '-o', 'job.csv'], ['batch', 'job.csv', '-o', 'p.json', '--force'], ['batch', '.', '-o', 'p.json', '--force']]) {
       const r = cli(args);
       expect(r.status, args.join(' ')).toBe(2);
-      expect(r.stderr).toMatch(/^platewise: --output: ".*" is an input of this run; choose another name \(inputs are never overwritten\)\n$/);
+      expect(r.stderr).toMatch(/^platewise: --output: ".*" is an input file of this run; choose another output name \(inputs are never overwritten\)\n$/);
     }
     expect([hash(join(dir, 'p.json')), hash(join(dir, 'job.csv'))]).toEqual(h);
     expect(readdirSync(dir).sort()).toEqual(['job.csv', 'p.json']);
@@ -56,7 +56,7 @@ describe('the CLI never overwrites an input', () => {
     writeFileSync(join(dir, 'p.json'), PART);
     const r = cli(['draw', 'p.json', '-o', 'missing/out.svg']);
     expect(r.status).toBe(2);
-    expect(r.stderr).toMatch(/^platewise: missing\/out\.svg: cannot be written \(ENOENT\)\n$/);
+    expect(r.stderr).toMatch(/^platewise: --output: "missing\/out\.svg": cannot be written \(ENOENT\)\n$/);
     expect(readdirSync(dir)).toEqual(['p.json']);
   });
 
@@ -104,7 +104,7 @@ describe('writeFileAtomic and writeFilesAtomic', () => {
 
   it('a write that fails (the target is a folder) throws InputError and leaves no temporary file', () => {
     mkdirSync(join(dir, 'taken'));
-    expect(() => writeFileAtomic(join(dir, 'taken'), 'x')).toThrow(/cannot be written \(E[A-Z]+\)/);
+    expect(() => writeFileAtomic(join(dir, 'taken'), 'x')).toThrow(/taken: is a folder; expected a file name/);
     expect(readdirSync(dir)).toEqual(['taken']);
   });
 
@@ -115,7 +115,7 @@ describe('writeFileAtomic and writeFilesAtomic', () => {
     expect(readdirSync(dir)).toEqual(['in.json']);
     expect(() => writeFilesAtomic([{ target: join(dir, 'a.svg'), data: 'a' }, { target: join(dir, 'a.svg'), data: 'b' }], [i])).toThrow(/named twice/);
     mkdirSync(join(dir, 'taken'));
-    expect(() => writeFilesAtomic([{ target: join(dir, 'a.svg'), data: 'a' }, { target: join(dir, 'taken'), data: 'b' }], [i])).toThrow(/cannot be written/);
+    expect(() => writeFilesAtomic([{ target: join(dir, 'a.svg'), data: 'a' }, { target: join(dir, 'taken'), data: 'b' }], [i])).toThrow(/is a folder/);
     expect(readdirSync(dir).sort()).toEqual(['in.json', 'taken']);
     writeFilesAtomic([{ target: join(dir, 'a.svg'), data: 'a' }, { target: join(dir, 'b.svg'), data: 'b' }], [i]);
     expect(readdirSync(dir).sort()).toEqual(['a.svg', 'b.svg', 'in.json', 'taken']);
