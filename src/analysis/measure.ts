@@ -73,7 +73,12 @@ export interface SectionResult {
   /** Every level's values, coarse to fine (for convergence plots). */
   levels: LevelResult[];
   /** The validated, normalised part and its base mesh (for drawings and further integration). */
-  geometry: { part: Part; mesh: Mesh };
+  /**
+   * The validated, normalised part and its base mesh (built on first use on the boundary path), and on the
+   * boundary path its raw moments about method.localOrigin with their round-off bound and the boundary's
+   * representation allowance Σδ·L (for mass properties without a mesh).
+   */
+  geometry: { part: Part; mesh: Mesh; boundary?: { moments: Float64Array; roundoff: Float64Array; shiftLength: number } };
 }
 
 /** Prepare a part read from any format: validate and orient loops. */
@@ -160,6 +165,7 @@ function boundaryResult(input: Part, moments: Float64Array, roundoff: Float64Arr
     geometry: {
       get part() { return (oriented ??= normalizePart(input)); },
       get mesh() { return (mesh ??= buildMesh(this.part, options).mesh); },
+      boundary: { moments, roundoff, shiftLength: exact.representation?.shiftLength ?? 0 },
     },
   };
 }
