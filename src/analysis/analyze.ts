@@ -103,7 +103,8 @@ export function analyzePart(model: PlateModel & { interpretation?: Interpretatio
     missing = r.missing;
     if (r.layers) {
       // the validated, oriented shapes from the section step: mass integration neither validates nor meshes again
-      resolved = r.layers.map((l, i) => ({ ...l, part: layers[i].section.geometry.part }));
+      // (on first use: the boundary path orients a copy of the part only when something needs it)
+      resolved = r.layers.map((l, i) => Object.defineProperty({ ...l }, 'part', { get: () => layers[i].section.geometry.part, enumerable: true }));
     } else if (massMode === 'required') {
       const what = missing.map((m) => (m === 'thickness' ? 'a thickness' : 'a density or material')).join(' and ');
       const place = model.layers.find((l) => !(l.thickness ?? request.given?.thickness ?? request.defaults?.thickness))?.where || 'part';
