@@ -10,7 +10,7 @@ export function defineMeasure(program: Command): void {
     .option('--json', 'print JSON instead of a table')
     .option('--degree <n>', 'Dunavant rule degree on curved triangles (1-20)', intArg('--degree'))
     .option('--levels <n>', 'uniform refinements after the base mesh (the last two give the estimate)', intArg('--levels'))
-    .option('--method <method>', 'auto (straight-edged parts by the exact boundary formula) or mesh')
+    .option('--method <method>', 'auto (exact boundary integrals for the area properties; a mesh only where an integrand needs one) or mesh')
     .option('--triangulation <mode>', 'delaunator (default), cdt2d or sweep')
     .option('--fabrication', 'add fabrication figures: cut length, pierces, bounding and minimum-area rectangles, scrap; masses with a thickness and a material or density')
     // mass properties (cli/commands/measureMass.ts)

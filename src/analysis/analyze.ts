@@ -2,7 +2,7 @@
  * The one analysis entry point: a plate model in, a report of facts out. Every command (measure, compare,
  * batch, draw, report) and every library user goes through `analyzePart`:
  *
- *   validate each layer once → section properties per layer (exact boundary formula or mesh) →
+ *   validate each layer once → section properties per layer (exact boundary integrals, or the mesh if asked) →
  *   resolve thickness and density (file, given settings, defaults; one grammar) →
  *   mass properties (meshing each layer at most once: the section's own mesh is reused) →
  *   fabrication figures (cut length, pierces, blank, scrap; masses with one constant plate)
@@ -22,6 +22,7 @@ import type { InterpretationSummary, NotCut } from '../read/interpret.js';
 import { type FabricationFigures, fabricationFigures } from '../properties/fabrication.js';
 import type { Quantity } from '../properties/quantities.js';
 import { type MeasureOptions, type SectionResult, type SectionWarning, measureSection } from './measure.js';
+import { boundaryMass } from './boundaryMass.js';
 import { type IntegrationOptions, type MassResult, measureMass } from './plate.js';
 
 export type AnalysisWarning =
@@ -103,7 +104,8 @@ export function analyzePart(model: PlateModel & { interpretation?: Interpretatio
     missing = r.missing;
     if (r.layers) {
       // the validated, oriented shapes from the section step: mass integration neither validates nor meshes again
-      resolved = r.layers.map((l, i) => ({ ...l, part: layers[i].section.geometry.part }));
+      // (on first use: the boundary path orients a copy of the part only when something needs it)
+      resolved = r.layers.map((l, i) => Object.defineProperty({ ...l }, 'part', { get: () => layers[i].section.geometry.part, enumerable: true }));
     } else if (massMode === 'required') {
       const what = missing.map((m) => (m === 'thickness' ? 'a thickness' : 'a density or material')).join(' and ');
       const place = model.layers.find((l) => !(l.thickness ?? request.given?.thickness ?? request.defaults?.thickness))?.where || 'part';
@@ -122,7 +124,9 @@ export function analyzePart(model: PlateModel & { interpretation?: Interpretatio
 
   let mass: MassResult | undefined;
   if (resolved && !(massMode === 'unless-constant' && plate !== undefined)) {
-    mass = measureMass(model.name, model.units, resolved, {
+    // constant thickness and density: the mass sums are multiples of the sections' exact boundary moments
+    // (no mesh); otherwise the mesh, built once per layer and shared with drawings
+    mass = boundaryMass(model.name, model.units, resolved, layers.map((l) => l.section)) ?? measureMass(model.name, model.units, resolved, {
       degree: request.section?.degree, triangulation: request.section?.triangulation,
       ...request.integration,
       prepared: true,

@@ -10,7 +10,7 @@ import { type Part, allLoops, normalizePart, partBox } from '../geometry/part.js
 import { ops } from '../geometry/segments.js';
 import { validatePart } from '../geometry/validate.js';
 import { type MeshOptions, buildMesh, localOrigin } from '../mesh/build.js';
-import { boundaryMoments } from '../properties/boundary.js';
+import { boundaryIntegrals } from '../properties/boundary.js';
 import type { Triangulator } from '../mesh/triangulate.js';
 import { type Mesh, countCurved, triangleCount } from '../mesh/mesh.js';
 import { refineUniform, selectTriangles, splitByCurvature } from '../mesh/refine.js';
@@ -26,8 +26,8 @@ export interface MeasureOptions extends MeshOptions {
   /** Number of uniform refinements after the base mesh (≥ 1; the last two levels give the estimate). */
   levels?: number;
   /**
-   * 'auto' (default): straight-edged parts use the exact boundary formula (Green's theorem), everything
-   * else the mesh; 'mesh': always the mesh. More than one refinement level also forces the mesh.
+   * 'auto' (default): the exact boundary integrals (Green's theorem, every segment kind); 'mesh': always
+   * the mesh. More than one refinement level also forces the mesh.
    */
   method?: 'auto' | 'mesh';
 }
@@ -41,7 +41,7 @@ export interface LevelResult {
 export interface MethodInfo {
   degree: number;
   rulePoints: number;
-  /** How the numbers were made: the mesh with refinement, or the exact boundary formula (straight edges). */
+  /** How the numbers were made: the mesh with refinement, or the exact boundary integrals. */
   path: 'mesh' | 'boundary';
   estimator: 'uniform refinement' | 'exact boundary formula';
   /** Why the values stopped where they are: 'exact' (boundary formula) or 'levels' (refinement levels). */
@@ -73,7 +73,12 @@ export interface SectionResult {
   /** Every level's values, coarse to fine (for convergence plots). */
   levels: LevelResult[];
   /** The validated, normalised part and its base mesh (for drawings and further integration). */
-  geometry: { part: Part; mesh: Mesh };
+  /**
+   * The validated, normalised part and its base mesh (built on first use on the boundary path), and on the
+   * boundary path its raw moments about method.localOrigin with their round-off bound and the boundary's
+   * representation allowance Σδ·L (for mass properties without a mesh).
+   */
+  geometry: { part: Part; mesh: Mesh; boundary?: { moments: Float64Array; roundoff: Float64Array; shiftLength: number } };
 }
 
 /** Prepare a part read from any format: validate and orient loops. */
@@ -116,12 +121,13 @@ function checkPrincipalAngle(q: SectionQuantities, warnings: SectionWarning[]): 
 }
 
 /**
- * Straight-edged part, polynomial integrands: the boundary formula is exact, so each estimate is the
- * round-off allowance alone. The mesh is built only if someone asks for it (drawings).
+ * Polynomial integrands (the section's moments), any segment kinds: the boundary integrals are exact, so
+ * each estimate is the round-off allowance (the segments' own bound and the usual floor) plus the
+ * representation allowance. The mesh is built only if someone asks for it (drawings, non-polynomial mass).
  */
-function boundaryResult(input: Part, moments: Float64Array, origin: [number, number], exact: ExactFigures, degree: number, options: MeasureOptions): SectionResult {
+function boundaryResult(input: Part, moments: Float64Array, roundoff: Float64Array, origin: [number, number], exact: ExactFigures, degree: number, options: MeasureOptions): SectionResult {
   const values = sectionFromMoments(moments, origin, exact);
-  const floor = roundoffFloor(moments, origin, values, exact);
+  const floor = roundoffFloor(moments, origin, values, exact, roundoff);
   propagateDerived(values, floor);
   const quantities = {} as SectionQuantities;
   for (const info of SECTION_QUANTITIES) {
@@ -159,6 +165,7 @@ function boundaryResult(input: Part, moments: Float64Array, origin: [number, num
     geometry: {
       get part() { return (oriented ??= normalizePart(input)); },
       get mesh() { return (mesh ??= buildMesh(this.part, options).mesh); },
+      boundary: { moments, roundoff, shiftLength: exact.representation?.shiftLength ?? 0 },
     },
   };
 }
@@ -194,9 +201,10 @@ export function measureSection(input: Part, options: MeasureOptions = {}): Secti
   const exact = exactFigures(input);
   if ((options.method ?? 'auto') === 'auto' && levelsWanted === 1) {
     // the boundary formula copes with either loop direction, so the (large) part is not copied to reorient it
+    // every segment kind has exact boundary moments, so any part takes the boundary path here
     const origin = localOrigin(input);
-    const moments = boundaryMoments(input, origin);
-    if (moments) return boundaryResult(input, moments, origin, exact, degree, options);
+    const { moments, roundoff } = boundaryIntegrals(input, origin);
+    return boundaryResult(input, moments, roundoff, origin, exact, degree, options);
   }
   const part = normalizePart(input);
   const { mesh, chordSplits } = buildMesh(part, options);

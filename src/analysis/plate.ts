@@ -38,7 +38,8 @@ export interface IntegrationOptions extends MeshOptions {
 export interface IntegrationMethod {
   degree: number;
   rulePoints: number;
-  estimator: 'uniform refinement' | 'adaptive refinement';
+  /** 'exact boundary integrals': constant thickness and density, no mesh (src/analysis/boundaryMass.ts). */
+  estimator: 'uniform refinement' | 'adaptive refinement' | 'exact boundary integrals';
   /** 'levels' without a tolerance (mesh and one uniform refinement); otherwise why refinement stopped. */
   stopped: StopReason;
   tolerance: number | null;

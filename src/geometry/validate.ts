@@ -254,14 +254,40 @@ function checkHoleNesting(holes: Loop[]): void {
   });
 }
 
+/**
+ * No region's outline lies on another region's material. Each outline's probe point is tested only against
+ * the loops (outlines and holes of the other regions) whose boxes hold it, found through the box grid:
+ * near O(n + candidates), where testing every region against every other (and all its holes) was
+ * quadratic on drawings of many separate parts.
+ */
 function checkRegionNesting(regions: Region[]): void {
-  for (let i = 0; i < regions.length; i++) {
-    for (let j = 0; j < regions.length; j++) {
-      if (i === j) continue;
-      const p = loopProbe(regions[i].outer);
-      const r = regions[j];
-      if (pointInLoop(p[0], p[1], r.outer) && !r.holes.some((h) => pointInLoop(p[0], p[1], h))) {
-        throw new InputError(regions[i].outer.where ?? 'outline', `lies on the material of ${r.outer.where ?? 'another outline'}; regions must not overlap`);
+  const R = regions.length;
+  if (R < 2) return;
+  const loops: Loop[] = [], owner: number[] = [], isOuter: boolean[] = [];
+  regions.forEach((r, ri) => {
+    loops.push(r.outer); owner.push(ri); isOuter.push(true);
+    for (const h of r.holes) { loops.push(h); owner.push(ri); isOuter.push(false); }
+  });
+  const probes = regions.map((r) => loopProbe(r.outer));
+  // boxes: the R probe points first, then every loop
+  const flat = new Float64Array(4 * (R + loops.length));
+  probes.forEach(([x, y], i) => flat.set([x, y, x, y], 4 * i));
+  loops.forEach((l, k) => flat.set(looseBox(l), 4 * (R + k)));
+  // per probe: the regions whose outline holds it, and those with a hole that holds it
+  const inOuter = new Map<number, number[]>(), inHole = new Set<string>();
+  overlappingPairs(flat, (a, b) => {
+    if (a >= R || b < R) return; // probe (a) against loop (b) only
+    const k = b - R, j = owner[k];
+    if (j === a) return;
+    const [x, y] = probes[a];
+    if (!pointInLoop(x, y, loops[k])) return;
+    if (isOuter[k]) (inOuter.get(a) ?? inOuter.set(a, []).get(a)!).push(j);
+    else inHole.add(`${a},${j}`);
+  });
+  for (const [i, js] of inOuter) {
+    for (const j of js) {
+      if (!inHole.has(`${i},${j}`)) {
+        throw new InputError(regions[i].outer.where ?? 'outline', `lies on the material of ${regions[j].outer.where ?? 'another outline'}; regions must not overlap`);
       }
     }
   }

@@ -125,7 +125,7 @@ function methodList(r: SectionResult): string {
   const m = r.method;
   if (m.path === 'boundary') {
     const items: [string, string][] = [
-      ['path', 'exact boundary formula: every edge is straight, so the moments are sums over the edges (Green\'s theorem); no mesh, no refinement'],
+      ['path', 'exact boundary integrals: the moments are sums over the boundary segments (Green\'s theorem: closed forms on lines and arcs, exact Gauss–Legendre on Béziers); no mesh, no refinement'],
       ['estimate', `${m.estimator}: round-off allowance only`],
       ['stop', stopText(m)],
       ['edges', String(m.vertices)],

@@ -62,7 +62,9 @@ export function massText(r: MassResult, u: MassUnits): string {
     }
   }
   const m = r.method;
-  out.push('', `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on ${m.triangles} triangles (from ${m.baseTriangles}); ${stopText(m)}; estimate = refinement and companion-rule differences, propagated through each quantity, + round-off allowance`);
+  out.push('', m.estimator === 'exact boundary integrals'
+    ? `method: constant thickness and density, so exact boundary integrals of the area moments (no mesh); estimate = round-off and representation allowance, propagated through each quantity`
+    : `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on ${m.triangles} triangles (from ${m.baseTriangles}); ${stopText(m)}; estimate = refinement and companion-rule differences, propagated through each quantity, + round-off allowance`);
   if (!m.errorIsBound) out.push(`note: ${notBoundText(m)}`);
   out.push('', MASS_CAUTION);
   return out.join('\n') + '\n';

@@ -37,7 +37,7 @@ export function sectionText(r: SectionResult, withCaution = true): string {
   for (const i of SECTION_QUANTITIES) ordered[i.key] = (r.quantities as Record<string, Quantity>)[i.key];
   const m = r.method;
   const method = m.path === 'boundary'
-    ? `method: straight edges only, so the exact boundary formula (Green's theorem) over ${m.vertices} edges; estimate = round-off allowance (use --method mesh for the mesh)`
+    ? `method: exact boundary integrals (Green's theorem; closed forms on lines and arcs, exact Gauss–Legendre on Béziers) over ${m.vertices} segments; estimate = round-off allowance (use --method mesh for the mesh)`
     : `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on curved triangles; ${m.baseTriangles} triangles ` +
       `(${m.curvedTriangles} curved) refined ${m.refinementLevels}× to ${m.triangles}; estimate = |refined − coarse| + round-off allowance`;
   const parts = [head, '', renderRows(quantityRows(ordered, r.units)), '', method];

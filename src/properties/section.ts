@@ -87,9 +87,12 @@ const BOX_ROUNDOFF = 4;
 /**
  * Round-off floor for each quantity: the size of the terms that were actually added, times
  * ROUNDOFF_FACTOR·ε, plus the representation allowance of the boundary (when `exact` carries one).
- * Added to every refinement estimate so that an exact result never claims zero error.
+ * Added to every refinement estimate so that an exact result never claims zero error. `sumBound`, when
+ * given, bounds each raw moment's round-off absolutely (the boundary path's segment-by-segment bound: its
+ * terms may be far larger than the moments they sum to); it is carried through the centroid and the
+ * centroidal moments to first order.
  */
-export function roundoffFloor(m: ArrayLike<number>, origin: readonly [number, number], v: SectionValues, exact?: ExactFigures): Record<SectionKey, number> {
+export function roundoffFloor(m: ArrayLike<number>, origin: readonly [number, number], v: SectionValues, exact?: ExactFigures, sumBound?: ArrayLike<number>): Record<SectionKey, number> {
   const k = ROUNDOFF_FACTOR * EPS;
   const A = Math.abs(m[M_AREA]);
   const sxx = Math.abs(m[M_XX]), syy = Math.abs(m[M_YY]);
@@ -102,12 +105,17 @@ export function roundoffFloor(m: ArrayLike<number>, origin: readonly [number, nu
   const hx = Math.max(v.xMax - v.centroidX, v.centroidX - v.xMin, 0), hy = Math.max(v.yMax - v.centroidY, v.centroidY - v.yMin, 0);
   const ax = Math.max(Math.abs(v.xMax), Math.abs(v.xMin)), ay = Math.max(Math.abs(v.yMax), Math.abs(v.yMin));
   const dA = rep.shiftLength;
-  const rIx = k * (syy + A * (v.centroidY - origin[1]) ** 2), rIy = k * (sxx + A * (v.centroidX - origin[0]) ** 2);
-  const rIxy = k * (Math.abs(m[M_XY]) + Math.sqrt(sxx * syy));
+  // the boundary path's own bound on the raw moments' round-off: Ix = M_yy − M_y²/A etc. to first order
+  const E = sumBound ?? [0, 0, 0, 0, 0, 0];
+  const lx = Math.abs(v.centroidX - origin[0]), ly = Math.abs(v.centroidY - origin[1]);
+  const eA = E[M_AREA], eX = E[M_X] + lx * eA, eY = E[M_Y] + ly * eA; // centroid numerators (times A)
+  const rIx = k * (syy + A * ly ** 2) + E[M_YY] + 2 * ly * E[M_Y] + ly * ly * eA;
+  const rIy = k * (sxx + A * lx ** 2) + E[M_XX] + 2 * lx * E[M_X] + lx * lx * eA;
+  const rIxy = k * (Math.abs(m[M_XY]) + Math.sqrt(sxx * syy)) + E[M_XY] + lx * E[M_Y] + ly * E[M_X] + lx * ly * eA;
   const fIx = rIx + dA * hy * hy;
   const fIy = rIy + dA * hx * hx;
   const fIxy = rIxy + dA * hx * hy;
-  const fA = k * A + dA;
+  const fA = k * A + eA + dA;
   // θ = ½·atan2(−2Ixy, Ix − Iy) and |(Ix − Iy, 2Ixy)| = I1 − I2 = spread, so |Δθ| ≤ |Δ(Ix − Iy, 2Ixy)| / (2·spread);
   // independent round-offs give ΔIx + ΔIy + 2ΔIxy, and a boundary moved by δ gives ∮ρ²·δ ds ≤ δ·L·(hx² + hy²)
   // (ρ the distance from the centroid: the pair ((y−ȳ)² − (x−x̄)², 2(x−x̄)(y−ȳ)) has length ρ²)
@@ -119,13 +127,13 @@ export function roundoffFloor(m: ArrayLike<number>, origin: readonly [number, nu
   return {
     area: fA,
     perimeter: k * v.perimeter + rep.perimeter,
-    centroidX: pos(v.centroidX) + dA * hx / A,
-    centroidY: pos(v.centroidY) + dA * hy / A,
+    centroidX: pos(v.centroidX) + (dA * hx + eX) / A,
+    centroidY: pos(v.centroidY) + (dA * hy + eY) / A,
     Ix: fIx, Iy: fIy, Ixy: fIxy,
     // ∫y² dA about the axes moves by at most δ·L·max y² (the representation part)
-    IxOrigin: fIx + k * A * v.centroidY ** 2 + dA * ay * ay,
-    IyOrigin: fIy + k * A * v.centroidX ** 2 + dA * ax * ax,
-    IxyOrigin: fIxy + k * A * Math.abs(v.centroidX * v.centroidY) + dA * ax * ay,
+    IxOrigin: fIx + k * A * v.centroidY ** 2 + dA * ay * ay + eA * v.centroidY ** 2 + 2 * Math.abs(v.centroidY) * eY,
+    IyOrigin: fIy + k * A * v.centroidX ** 2 + dA * ax * ax + eA * v.centroidX ** 2 + 2 * Math.abs(v.centroidX) * eX,
+    IxyOrigin: fIxy + k * A * Math.abs(v.centroidX * v.centroidY) + dA * ax * ay + eA * Math.abs(v.centroidX * v.centroidY) + Math.abs(v.centroidX) * eY + Math.abs(v.centroidY) * eX,
     I1: fIx + fIy + fIxy,
     I2: fIx + fIy + fIxy,
     principalAngle: fAngle,

@@ -31,12 +31,23 @@ const plateWithHole = (extra: Record<string, unknown> = {}) => JSON.stringify({
 });
 
 describe('analyzePart', () => {
-  it('validates once and meshes once: section, mass and fabrication together', () => {
+  it('validates once and meshes at most once: section, mass and fabrication together', () => {
     const [model] = readModels(plateWithHole({ thickness: 10, material: 'steel' }), 'demo.json');
     calls.validate = 0; calls.mesh = 0;
     const r = analyzePart(model, { mass: 'required', fabrication: 'always' });
     expect(calls.validate).toBe(1);
+    // constant thickness and density: mass from the exact boundary moments, no mesh at all
+    expect(calls.mesh).toBe(0);
+    expect(r.mass!.method.estimator).toBe('exact boundary integrals');
+    calls.validate = 0; calls.mesh = 0;
+    const m2 = analyzePart(model, { mass: 'required', fabrication: 'always', section: { method: 'mesh' } });
+    expect(calls.validate).toBe(1);
     expect(calls.mesh).toBe(1);
+    // the two paths agree within both estimates
+    for (const k of ['mass', 'massCentreX', 'massCentreY', 'massCentreZ', 'massMomentX', 'massMomentY', 'massMomentZ', 'massProductXY'] as const) {
+      const a = r.mass!.quantities[k], b = m2.mass!.quantities[k];
+      expect(Math.abs(a.value - b.value), k).toBeLessThanOrEqual(a.error + b.error);
+    }
     const A = 300 * 200 - Math.PI * 25 * 25;
     expect(Math.abs(r.quantities.area.value - A) / A).toBeLessThan(1e-13);
     const m = A * 10 * 7850 * 1e-9; // kg
@@ -91,7 +102,9 @@ describe('exit statuses', () => {
     const dir = mkdtempSync(join(tmpdir(), 'pw-exit-'));
     const f = join(dir, 'near.json');
     writeFileSync(f, JSON.stringify({ outline: { rectangle: { corner: [0, 0], size: [500, 200] } }, cutouts: [{ circle: { center: [200, 100], diameter: 100 } }, { polygon: [[250.00001, 60], [300, 60], [300, 140], [250.00001, 140]] }] }));
-    const r = runCli(['measure', f]);
+    // the boundary path needs no triangulation: plain measure succeeds; the forced mesh gives up
+    expect(runCli(['measure', f]).status).toBe(0);
+    const r = runCli(['measure', f, '--method', 'mesh']);
     expect(r.status).toBe(3);
     expect(r.stdout).toBe('');
     expect(r.stderr.trim().split('\n')).toHaveLength(1);

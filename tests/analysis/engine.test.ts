@@ -51,7 +51,9 @@ describe('one stop code everywhere', () => {
     const straight = partFromObject({ outline: { rectangle: { corner: [0, 0], size: [30, 20] } } });
     expect(measureSection(straight).method.stopped).toBe('exact');
     expect(measureSection(straight, { method: 'mesh' }).method.stopped).toBe('levels');
-    expect(measureSection(partFromObject(plate)).method.stopped).toBe('levels');
+    // curved parts take the boundary path too (exact), unless the mesh is asked for
+    expect(measureSection(partFromObject(plate)).method.stopped).toBe('exact');
+    expect(measureSection(partFromObject(plate), { method: 'mesh' }).method.stopped).toBe('levels');
   });
 
   it('adaptive refinement says tolerance, or which cap stopped it', () => {

@@ -53,3 +53,32 @@ export function writeLoosePlate(dir: string, entities: number): { dxf: string; s
   writeFileSync(svg, svgText(holes, W, H));
   return { dxf, svg };
 }
+
+/**
+ * The same plate (a rectangle with a grid of square holes, 4 vertices each, about n boundary vertices in
+ * all) in five formats: part JSON, SVG, GeoJSON, WKT and DXF (LWPOLYLINEs). Returns the paths.
+ */
+export function writeFormats(dir: string, n: number): Record<'json' | 'svg' | 'geojson' | 'wkt' | 'dxf', string> {
+  const { holes, W, H } = grid(Math.max(1, Math.floor(n / 4) - 1));
+  const base = join(dir, `formats-${n}`);
+  const p = { json: `${base}.json`, svg: `${base}.svg`, geojson: `${base}.geojson`, wkt: `${base}.wkt`, dxf: `${base}.dxf` };
+  writeFileSync(p.json, JSON.stringify({ part: 'formats', units: 'mm', note: 'generated for the benchmark', outline: { polygon: [[0, 0], [W, 0], [W, H], [0, H]] }, cutouts: holes.map(([x, y]) => ({ polygon: [[x - 2, y - 2], [x + 2, y - 2], [x + 2, y + 2], [x - 2, y + 2]] })) }));
+  writeFileSync(p.svg, svgText(holes, W, H));
+  const ring = (pts: [number, number][]) => [...pts, pts[0]];
+  const sq = (x: number, y: number): [number, number][] => [[x - 2, y - 2], [x - 2, y + 2], [x + 2, y + 2], [x + 2, y - 2]];
+  const outer: [number, number][] = [[0, 0], [W, 0], [W, H], [0, H]];
+  writeFileSync(p.geojson, JSON.stringify({ type: 'Feature', properties: { name: 'formats', description: 'generated for the benchmark' }, geometry: { type: 'Polygon', coordinates: [ring(outer), ...holes.map(([x, y]) => ring(sq(x, y)))] } }));
+  const wktRing = (pts: [number, number][]) => `(${ring(pts).map(([x, y]) => `${x} ${y}`).join(', ')})`;
+  writeFileSync(p.wkt, `POLYGON (${[wktRing(outer), ...holes.map(([x, y]) => wktRing(sq(x, y)))].join(', ')})\n`);
+  const out: string[] = ['0', 'SECTION', '2', 'HEADER', '9', '$INSUNITS', '70', '4', '0', 'ENDSEC', '0', 'SECTION', '2', 'ENTITIES'];
+  let handle = 0x100;
+  const poly = (pts: [number, number][]) => {
+    out.push('0', 'LWPOLYLINE', '5', (handle++).toString(16).toUpperCase(), '8', 'CUT', '90', String(pts.length), '70', '1');
+    for (const [x, y] of pts) out.push('10', String(x), '20', String(y));
+  };
+  poly(outer);
+  for (const [x, y] of holes) poly(sq(x, y));
+  out.push('0', 'ENDSEC', '0', 'EOF', '');
+  writeFileSync(p.dxf, out.join('\n'));
+  return p;
+}

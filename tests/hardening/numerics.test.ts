@@ -65,11 +65,15 @@ describe('tiny and nearly touching features', () => {
     near(r, 'Iy', Iy, Iy, 1e-11);
   });
 
-  it('a hole 1e-5 mm from another (2e-8 of the plate, above the 1e-9 touching tolerance) is given up by the mesher (MethodError, exit 3) with one clear line', () => {
+  it('a hole 1e-5 mm from another (2e-8 of the plate, above the 1e-9 touching tolerance): the boundary path measures it; the forced mesh gives up (MethodError, exit 3) with one clear line', () => {
     // decision: gaps down to 1e-6 of the size are measured (above); closer ones may be refused, never mis-measured
     const obj = { outline: { rectangle: { corner: [0, 0], size: [500, 200] } }, cutouts: [{ circle: { center: [200, 100], diameter: 100 } }, { polygon: [[250.00001, 60], [300, 60], [300, 140], [250.00001, 140]] }] };
+    const exact = 500 * 200 - Math.PI * 50 * 50 - (300 - 250.00001) * 80;
+    const b = measureObj(obj);
+    expect(b.method.path).toBe('boundary');
+    expect(Math.abs(b.quantities.area.value - exact)).toBeLessThanOrEqual(b.quantities.area.error);
     let msg = '';
-    try { measureObj(obj); } catch (e) { msg = (e as Error).message; expect((e as Error).name).toBe('MethodError'); }
+    try { measureObj(obj, { method: 'mesh' }); } catch (e) { msg = (e as Error).message; expect((e as Error).name).toBe('MethodError'); }
     expect(msg).toMatch(/^triangulation: Delaunator with Constrainautor could not restore a boundary edge \(.*\); try another triangulation \(cdt2d\)$/);
   });
 

@@ -174,8 +174,12 @@ describe('curves other than circles are drawn with their own commands', () => {
 describe('mesh overlay and sheets', () => {
   it('--mesh draws one path per triangle, curved edges as A commands', async () => {
     const p = part(rectangleLoop([0, 0], [120, 80]), [circleLoop([60, 40], 40)]);
-    const r = measureSection(p);
-    const root = parseXml(await drawPart(r, { mesh: true }), {}, 'drawing');
+    // the mesh path's facts name the triangles; the boundary path builds the same mesh when a drawing asks
+    const r = measureSection(p, { method: 'mesh' });
+    const lazy = measureSection(p);
+    expect(lazy.method.path).toBe('boundary');
+    expect(lazy.geometry.mesh.count).toBe(r.method.baseTriangles);
+    const root = parseXml(await drawPart(lazy, { mesh: true }), {}, 'drawing');
     const mesh = byRole(root, 'mesh')[0];
     expect(mesh.children).toHaveLength(r.method.baseTriangles);
     const curved = mesh.children.filter((c) => /A/.test(c.attrs.d)).length;

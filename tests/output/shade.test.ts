@@ -39,7 +39,7 @@ describe('error indicator per triangle', () => {
   it('the indicators add up: Σ over triangles of (children − parent) area equals the refined − coarse total', () => {
     // two measureSection levels give the global change; the per-triangle differences must account for it
     const p = plate(true);
-    const r = measureSection(p, { degree: 2 });
+    const r = measureSection(p, { degree: 2, method: 'mesh' });
     const { mesh } = buildMesh(p);
     const eta = errorIndicator(mesh, 2).values;
     const globalRel = Math.abs(r.levels[1].values.area - r.levels[0].values.area) / r.levels[0].values.area;
@@ -68,7 +68,7 @@ describe('function values at triangle centres', () => {
   });
 
   it('the shaded drawing has one filled triangle per mesh triangle and a legend of every step', async () => {
-    const r = measureSection(plate(true));
+    const r = measureSection(plate(true), { method: 'mesh' });
     const root = parseXml(await drawPart(r, { shade: '7850 + 0.5*x' }), {}, 'drawing');
     const find = (role: string) => { const out: typeof root[] = []; const walk = (e: typeof root) => { if (e.attrs['data-role'] === role) out.push(e); e.children.forEach(walk); }; walk(root); return out; };
     expect(find('shading')[0].children).toHaveLength(r.method.baseTriangles);

@@ -48,9 +48,10 @@ describe('boundary formula vs mesh on random straight-edged plates with holes', 
     });
   }
 
-  it('a part with an arc takes the mesh path', () => {
+  it('a part with an arc takes the boundary path too, and --method mesh still forces the mesh', () => {
     const r = measureObj({ outline: { rectangle: { corner: [0, 0], size: [10, 10], cornerRadius: 1 } } });
-    expect(r.method.path).toBe('mesh');
+    expect(r.method.path).toBe('boundary');
+    expect(measureObj({ outline: { rectangle: { corner: [0, 0], size: [10, 10], cornerRadius: 1 } } }, { method: 'mesh' }).method.path).toBe('mesh');
   });
 });
 

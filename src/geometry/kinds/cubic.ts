@@ -8,6 +8,7 @@ import { adaptiveGaussLegendre } from '../../numeric/gaussLegendre.js';
 import { quadraticRoots } from '../../numeric/roots.js';
 import { applyAffine, isIdentity } from './affine.js';
 import { angleBetween, areaWeights, bezierArea, bezierCommand, bezierDeviation, bezierSubCurve, bisectCrossingX, inOpenUnit } from './bezier.js';
+import { bezierMoments } from './moments.js';
 import type { Affine, Out2, SegmentOps } from './types.js';
 
 export interface CubicSegment {
@@ -19,6 +20,7 @@ export interface CubicSegment {
 }
 
 const W3 = areaWeights(3);
+const LX = new Float64Array(4), LY = new Float64Array(4);
 const xsOf = (s: CubicSegment) => [s.x0, s.x1, s.x2, s.x3];
 const ysOf = (s: CubicSegment) => [s.y0, s.y1, s.y2, s.y3];
 
@@ -100,6 +102,11 @@ export const cubicOps: SegmentOps<CubicSegment> = {
       yMin = Math.min(yMin, p[1]); yMax = Math.max(yMax, p[1]);
     }
     return [xMin, yMin, xMax, yMax];
+  },
+  moments(s, ox, oy, out) {
+    LX[0] = s.x0 - ox; LX[1] = s.x1 - ox; LX[2] = s.x2 - ox; LX[3] = s.x3 - ox;
+    LY[0] = s.y0 - oy; LY[1] = s.y1 - oy; LY[2] = s.y2 - oy; LY[3] = s.y3 - oy;
+    bezierMoments(LX, LY, out);
   },
   areaTerm: (s) => bezierArea(xsOf(s), ysOf(s), W3),
   // Between inflections (zeros of B' × B'', a quadratic) the tangent angle is monotone; there the turning is

@@ -8,6 +8,7 @@
 import { adaptiveGaussLegendre } from '../../numeric/gaussLegendre.js';
 import { applyAffine, isIdentity } from './affine.js';
 import { angleInSweep } from './angles.js';
+import { trigArcMoments } from './moments.js';
 import { MAX_ARC_COMMAND_SWEEP, type Affine, type Out2, type PathCommand, type SegmentOps } from './types.js';
 
 export interface EllipticalArcSegment {
@@ -123,6 +124,12 @@ export const ellipticalArcOps: SegmentOps<EllipticalArcSegment> = {
       }
     }
     return [xMin, yMin, xMax, yMax];
+  },
+  // p(θ) = c + R(phi)·diag(rx, ry)·(cos θ, sin θ): a trigonometric arc whose C and S columns are the
+  // rotated semi-axes (closed form, kinds/moments.ts)
+  moments(s, ox, oy, out) {
+    const c = Math.cos(s.phi), n = Math.sin(s.phi);
+    trigArcMoments(s.cx - ox, s.cy - oy, s.rx * c, -s.ry * n, s.rx * n, s.ry * c, s.t0, s.t1, out);
   },
   // With x = cx + U(θ), y = cy + V(θ), (U, V) = R(phi)(rx cos θ, ry sin θ):
   // x dy − y dx = (U dV − V dU) + cx dV − cy dU and U dV − V dU = rx·ry dθ (a rotation keeps the cross

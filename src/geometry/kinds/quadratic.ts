@@ -6,6 +6,7 @@
 import { adaptiveGaussLegendre } from '../../numeric/gaussLegendre.js';
 import { applyAffine, isIdentity } from './affine.js';
 import { MARGIN, angleBetween, areaWeights, bezierArea, bezierCommand, bezierDeviation, bezierSubCurve, bisectCrossingX, inOpenUnit } from './bezier.js';
+import { bezierMoments } from './moments.js';
 import type { Affine, Out2, SegmentOps } from './types.js';
 
 export interface QuadraticSegment {
@@ -16,6 +17,7 @@ export interface QuadraticSegment {
 }
 
 const W2 = areaWeights(2);
+const LX = new Float64Array(3), LY = new Float64Array(3);
 const xsOf = (s: QuadraticSegment) => [s.x0, s.x1, s.x2];
 const ysOf = (s: QuadraticSegment) => [s.y0, s.y1, s.y2];
 const fromPoints = (x: number[], y: number[]): QuadraticSegment => ({ kind: 'quadratic', x0: x[0], y0: y[0], x1: x[1], y1: y[1], x2: x[2], y2: y[2] });
@@ -73,6 +75,11 @@ export const quadraticOps: SegmentOps<QuadraticSegment> = {
       yMin = Math.min(yMin, p[1]); yMax = Math.max(yMax, p[1]);
     }
     return [xMin, yMin, xMax, yMax];
+  },
+  moments(s, ox, oy, out) {
+    LX[0] = s.x0 - ox; LX[1] = s.x1 - ox; LX[2] = s.x2 - ox;
+    LY[0] = s.y0 - oy; LY[1] = s.y1 - oy; LY[2] = s.y2 - oy;
+    bezierMoments(LX, LY, out);
   },
   areaTerm: (s) => bezierArea(xsOf(s), ysOf(s), W2),
   // The derivative runs along a straight segment in vector space, so its direction turns monotonically:

@@ -110,6 +110,12 @@ export interface SegmentOps<S extends { kind: string }, Image extends { kind: st
   /** Exact SVG commands for the piece from t0 to t1 (either order), starting at the point for t0. */
   pathCommands(s: S, t0: number, t1: number): PathCommand[];
 
-  // ---- boundary moments (slot reserved for the boundary-moment issue)
-  // moments?(s: S, ox: number, oy: number, out: Float64Array): void;
+  // ---- boundary moments
+  /**
+   * Adds ∫ f·(x dy − y dx)/(k + 2) along the segment, for f = 1, x, y, x², xy, y² (k its degree) in local
+   * coordinates x = X − ox, y = Y − oy, to out[0..5] — the segment's share of the area, first and second
+   * moments of the region its loop bounds (Green's theorem with the polygon formula's field; see
+   * kinds/moments.ts) — and bounds on their round-off, in units of ε, to out[6..11]. Exact: closed forms on lines and arcs, Gauss–Legendre of exact order on Béziers.
+   */
+  moments(s: S, ox: number, oy: number, out: Float64Array): void;
 }
