@@ -55,7 +55,7 @@ describe('HTML report in Chromium', () => {
     const name = c.sample.replace(/^samples\//, '').replace(/\.\w+$/, '');
     it(`${c.sample}: table equals measure --json, drawing has ${c.cutouts} cut-outs, no network, screenshot`, async () => {
       const html = join(ARTIFACTS, `${name}.html`);
-      platewise(['report', c.sample, '-o', html]);
+      platewise(['report', c.sample, '-o', html, '--force']); // test artefacts are replaced on every run
       const json = JSON.parse(platewise(['measure', c.sample, '--json']));
       const page = await ctx.newPage();
       const requested: string[] = [];
