@@ -6,6 +6,7 @@
  * estimate is propagated through each derived quantity), plus a round-off floor. Because the coarse
  * result's error bounds the refined one's for a converging method, the estimate errs on the safe side.
  */
+import { OptionError } from '../base/errors.js';
 import { type Part, allLoops, normalizePart, partBox } from '../geometry/part.js';
 import { ops } from '../geometry/segments.js';
 import { validatePart } from '../geometry/validate.js';
@@ -19,6 +20,9 @@ import { DEFAULT_DEGREE, getRule } from '../quadrature/rules.js';
 import { type Quantity, SECTION_QUANTITIES, type SectionKey, type SectionQuantities, type SectionValues } from '../properties/quantities.js';
 import { type ExactFigures, REPRESENTATION_ULPS, propagateDerived, roundoffFloor, sectionFromMoments } from '../properties/section.js';
 import type { StopReason } from '../quadrature/stop.js';
+
+/** Triangles the refinement levels of one section may build (about 2 GB of typed arrays and maps). */
+export const MAX_REFINED_TRIANGLES = 20_000_000;
 
 export interface MeasureOptions extends MeshOptions {
   /** Dunavant rule degree for curved triangles (1–20). */
@@ -216,6 +220,11 @@ export function measureSection(input: Part, options: MeasureOptions = {}): Secti
   // (with a degree-1 rule nothing is exact for second moments, so every triangle is refined)
   const { curved, straight } = degree >= 2 ? splitByCurvature(mesh) : { curved: allTriangles(mesh), straight: new Uint32Array(0) };
   const straightSums = integrate(mesh, { degree, only: straight }).sums;
+  // the refined meshes hold straight + curved·4^L triangles: refuse before building what cannot fit
+  const planned = straight.length + curved.length * 4 ** levelsWanted;
+  if (planned > MAX_REFINED_TRIANGLES) {
+    throw new OptionError('levels', `${levelsWanted} refinement levels would make ${planned.toExponential(2)} triangles from this part's ${curved.length} curved ones, more than ${MAX_REFINED_TRIANGLES.toExponential(0)}; use fewer levels`);
+  }
   let m = selectTriangles(mesh, curved);
   let minJac = Infinity;
   let lastMoments: Float64Array = new Float64Array(6);

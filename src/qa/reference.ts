@@ -288,5 +288,17 @@ export function readReference(text: string, label: string, format?: 'json' | 'cs
     else if (/\.csv$/i.test(label)) f = 'csv';
     else f = text.replace(/^\ufeff/, '').trimStart().startsWith('{') ? 'json' : 'csv';
   }
-  return f === 'json' ? parseReferenceJson(text, label, options) : parseReferenceCsv(text, label, options);
+  // a stated-values file holds the values of one part: far fewer than this; refuse before building records
+  let lines = 0;
+  for (let i = text.indexOf('\n'); i >= 0 && lines <= MAX_STATED_LINES; i = text.indexOf('\n', i + 1)) lines++;
+  if (lines > MAX_STATED_LINES) {
+    throw new InputError(label, `has more than ${MAX_STATED_LINES} lines; a stated-values file holds the values of one part (at most ${MAX_STATED_VALUES} values)`);
+  }
+  const ref = f === 'json' ? parseReferenceJson(text, label, options) : parseReferenceCsv(text, label, options);
+  if (ref.values.length > MAX_STATED_VALUES) throw new InputError(label, `states ${ref.values.length} values; expected at most ${MAX_STATED_VALUES} for one part`);
+  return ref;
 }
+
+/** A stated-values file names the values of one part; these bounds keep a malformed file from costing gigabytes. */
+export const MAX_STATED_VALUES = 10_000;
+const MAX_STATED_LINES = 100_000;

@@ -173,6 +173,7 @@ function readPattern(kind: string, body: unknown, w: string): Loop[] {
     if (count.length !== 2) throw new InputError(`${w}.count`, `expected [columns, rows], got ${describeValue(count)}`);
     const nx = expectCount(count[0], `${w}.count[0]`), ny = expectCount(count[1], `${w}.count[1]`);
     if (nx * ny > MAX_PATTERN_COPIES) throw new InputError(`${w}.count`, `expected at most ${MAX_PATTERN_COPIES} copies, got ${nx} × ${ny}`);
+    spendCopies(nx * ny, `${w}.count`);
     if (nx > 1 && pitch[0] === 0) throw new InputError(`${w}.pitch[0]`, 'expected a non-zero pitch with more than one column');
     if (ny > 1 && pitch[1] === 0) throw new InputError(`${w}.pitch[1]`, 'expected a non-zero pitch with more than one row');
     if (b.shape === undefined) throw new InputError(`${w}.shape`, 'expected the shape to repeat (missing)');
@@ -184,6 +185,7 @@ function readPattern(kind: string, body: unknown, w: string): Loop[] {
   const diameter = expectPositive(b.diameter, `${w}.diameter`);
   const n = expectCount(b.count, `${w}.count`);
   if (n > MAX_PATTERN_COPIES) throw new InputError(`${w}.count`, `expected at most ${MAX_PATTERN_COPIES} copies, got ${n}`);
+  spendCopies(n, `${w}.count`);
   const startAngle = b.startAngle === undefined ? 0 : expectNumber(b.startAngle, `${w}.startAngle`);
   const step = b.step === undefined ? undefined : expectNumber(b.step, `${w}.step`);
   if (step !== undefined && n > 1 && (step === 0 || Math.abs(step) * (n - 1) >= 360)) {
@@ -231,8 +233,34 @@ export function readPartJson(text: string, label = 'input'): Part {
   return partFromObject(parseJsonText(text, label), label);
 }
 
+/**
+ * Shapes that the patterns of one part file may generate in all (every layer, every pattern): each copy
+ * becomes exact segments, a mesh and booleans, so the budget is checked before any copy is made.
+ */
+export const MAX_TOTAL_PATTERN_COPIES = 250_000;
+let patternCopies = 0;
+let readDepth = 0;
+
+/** Run a top-level read with a fresh pattern budget (nested reads of layers share it). */
+function withBudget<T>(body: () => T): T {
+  if (readDepth === 0) patternCopies = 0;
+  readDepth++;
+  try { return body(); } finally { readDepth--; }
+}
+
+function spendCopies(n: number, where: string): void {
+  if (patternCopies + n > MAX_TOTAL_PATTERN_COPIES) {
+    throw new InputError(where, `the patterns of this part would make ${patternCopies + n} shapes, more than ${MAX_TOTAL_PATTERN_COPIES} in all; split the part into several files or use fewer copies`);
+  }
+  patternCopies += n;
+}
+
 /** Read a part from an already-parsed JSON value. */
 export function partFromObject(value: unknown, label = 'input'): Part {
+  return withBudget(() => partFromObjectIn(value, label));
+}
+
+function partFromObjectIn(value: unknown, label: string): Part {
   const root = expectObject(value, label);
   checkKeys(root, TOP_KEYS, '');
   // A layered part: readers that take one Part see the first layer (the base plate); see readPlateModel.
@@ -323,6 +351,10 @@ export function readPlateModel(text: string, label = 'input'): PlateModel {
 
 /** Read the plate model from an already-parsed JSON value. */
 export function plateModelFromObject(value: unknown, label = 'input'): PlateModel {
+  return withBudget(() => plateModelFromObjectIn(value, label));
+}
+
+function plateModelFromObjectIn(value: unknown, label: string): PlateModel {
   const root = expectObject(value, label);
   checkKeys(root, TOP_KEYS, '');
   const defThickness = readField(root.thickness, 'thickness', 'thickness');
