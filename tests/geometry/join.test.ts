@@ -6,22 +6,12 @@ import { describe, expect, it } from 'vitest';
 import { type JoinPiece, defaultJoinTolerance, joinPieces } from '../../src/geometry/join.js';
 import type { Segment } from '../../src/geometry/segments.js';
 import { signedArea } from '../read/dxfHelpers.js';
+import { rng } from '../helpers.js';
 
 const L = (x0: number, y0: number, x1: number, y1: number): Segment => ({ kind: 'line', x0, y0, x1, y1 });
 const piece = (s: Segment, where: string, layer = 'CUT'): JoinPiece => ({ segments: [s], where, layer, sources: [where] });
 const near = (a: number, b: number, tol: number) => expect(Math.abs(a - b), `${a} vs ${b}`).toBeLessThanOrEqual(tol);
 
-/** mulberry32, fixed seed */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 describe('joinPieces', () => {
   it('joins shuffled, reversed edges of a polygon into one closed contour (shoelace area)', () => {
