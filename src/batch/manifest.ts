@@ -60,7 +60,7 @@ export interface Job {
   stated: StatedValue[];
 }
 
-export const PART_EXTENSIONS = ['.json', '.svg', '.geojson', '.wkt'];
+export const PART_EXTENSIONS = ['.json', '.svg', '.dxf', '.geojson', '.wkt'];
 /** Most pieces one row may order: totals stay exact in whole pieces and far from overflow. */
 export const MAX_QUANTITY = 1_000_000_000;
 
@@ -78,6 +78,11 @@ export interface ManifestOptions {
 
 /** Read a manifest's text; `label` is its path as given, `baseDir` the folder that relative paths start from. */
 export function parseManifest(text: string, label: string, baseDir: string, options: ManifestOptions = {}): Job[] {
+  // spreadsheets in many locales save CSV with semicolons: say so instead of a puzzling column error
+  const first = text.replace(/^\ufeff/, '').split(/\r?\n/, 1)[0] ?? '';
+  if (!first.includes(',') && first.includes(';') && /(^|;)\s*"?file"?\s*(;|$)/i.test(first)) {
+    throw new InputError(`${label}:line 1`, 'the columns are separated by semicolons; a manifest is CSV with commas (RFC 4180): save it with comma separators (in a spreadsheet: CSV with "," as the field separator)');
+  }
   const t = parseCsvRecords(text, label, { required: ['file'] });
   const head = parseCsvRows(text, label).find((r) => !(r.fields.length === 1 && r.fields[0] === ''))!;
   const columns = t.header.map((h) => ({ header: h, ...splitHeader(h) }));
@@ -181,7 +186,8 @@ export function folderJobs(folder: string): Job[] {
     throw new InputError(folder, `cannot be listed (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
   }
   const set = new Set(names);
-  const isPart = (n: string) => !n.startsWith('.') && !/\.ref\.(json|csv)$/i.test(n) &&
+  // a batch's own summary (results.summary.json) is an output, never a part
+  const isPart = (n: string) => !n.startsWith('.') && !/\.ref\.(json|csv)$/i.test(n) && !/\.summary\.json$/i.test(n) &&
     PART_EXTENSIONS.some((x) => n.toLowerCase().endsWith(x));
   const parts = names.filter(isPart).filter((n) => {
     try { return statSync(join(folder, n)).isFile(); } catch { return false; }

@@ -9,7 +9,7 @@ import { readInputText } from '../base/files.js';
 import type { MaterialTable } from '../model/materials.js';
 import type { PlateModel, PlateSettings } from '../model/plate.js';
 import type { Quantity } from '../properties/quantities.js';
-import { explainMissing, needsPlate, partSize } from '../qa/compute.js';
+import { explainMissing, partSize } from '../qa/compute.js';
 import { type Reference, readReference } from '../qa/reference.js';
 import { type ComparisonRow, type Verdict, compareAll } from '../qa/verdict.js';
 import { readModels } from '../read/models.js';
@@ -100,11 +100,11 @@ export function runJob(job: Job, settings: JobSettings): BatchRow[] {
     row.units = part.units;
     try {
       // the row's cells must not double the file's; command-line settings fill only what both leave unset
-      const needMass = stated.some((s) => needsPlate(s.quantity) && s.quantity !== 'netMass' && s.quantity !== 'blankMass');
       const f = analyzePart(part, {
         section: { degree: settings.degree, levels: settings.levels },
         given: job.plate, defaults: settings.defaults, materials: settings.materials,
-        mass: needMass ? 'optional' : 'unless-constant', fabrication: 'always',
+        // a constant plate's mass comes from exact boundary integrals: cheap, so the mass column is always filled
+        mass: 'optional', fabrication: 'always',
       });
       const p = f.plate;
       row.material = p?.material ?? null;
