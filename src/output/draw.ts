@@ -240,12 +240,11 @@ function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: num
       const pts = [CX + dx * s[0], CY + dy * s[0], CX + dx * s[1], CY + dy * s[1]] as const;
       ax.line(...pts).attr({ stroke: PALETTE.paper, 'stroke-width': 4, 'stroke-opacity': 0.85 });
       ax.line(...pts).attr({ stroke: PALETTE.axis, 'stroke-width': 1.4, 'stroke-dasharray': name === 'I1' ? 'none' : '10 3 2 3', 'data-axis': name });
-      // label at the positive end, inside the frame: above a mostly horizontal axis, beside a steep one
+      // the key sits in the margin above the part, never on the drawing's lines: a line sample and the words
       const label = name === 'I1' ? `I1 axis, ${q.principalAngle.value.toFixed(2)}° from +x` : 'I2 axis';
-      const flat = Math.abs(dx) >= Math.abs(dy);
-      const ex = flat ? pts[2] : pts[2] + 7, ey = flat ? pts[3] - 7 : pts[3] + (dy < 0 ? 12 : -4);
-      const anchor = flat ? (dx > 0 ? 'end' : 'start') : 'start';
-      ax.plain(label).attr({ x: ex, y: ey, 'text-anchor': anchor, style: `font-size:12px;font-weight:600;paint-order:stroke;stroke:#ffffff;stroke-width:3px`, fill: PALETTE.axis, 'data-role': `${name}-label` });
+      const kx = name === 'I1' ? X0 : X0 + 250, ky = Y0 - 22;
+      ax.line(kx, ky - 4, kx + 26, ky - 4).attr({ stroke: PALETTE.axis, 'stroke-width': 1.4, 'stroke-dasharray': name === 'I1' ? 'none' : '10 3 2 3' });
+      ax.plain(label).attr({ x: kx + 32, y: ky, 'text-anchor': 'start', style: `font-size:12px;font-weight:600`, fill: PALETTE.axis, 'data-role': `${name}-label` });
     }
   } else {
     ax.plain('I1 = I2 within the estimate: every centroidal axis is principal').attr({ x: left, y: T - 14, style: `font-size:12px`, fill: PALETTE.axis });

@@ -124,3 +124,23 @@ describe('the interpretation in every output', () => {
     expect(doc.interpretation.joinFindings.map((x: { finding: string }) => x.finding)).toContain('duplicate');
   });
 });
+
+describe('axis labels never sit on the drawing\'s lines', () => {
+  it('the I1 and I2 labels stand in the margin above every axis line and apart from each other (three samples)', () => {
+    // (base-plate-bp1 is square-symmetric: I1 = I2, no axes drawn)
+    for (const sample of ['samples/gusset-g2.json', 'samples/etched-plate-ep7.svg', 'samples/lifting-lug-ll4.json']) {
+      const out = join(dir, `axes-${sample.replace(/\W/g, '-')}.svg`);
+      const r = runCli(['draw', join(ROOT, sample), '-o', out]);
+      expect(r.status, r.stderr).toBe(0);
+      const svg = readFileSync(out, 'utf8');
+      const axisYs = [...svg.matchAll(/<line [^>]*data-axis="I[12]"[^>]*>/g)].flatMap((m) => [/y1="([-\d.]+)"/.exec(m[0])![1], /y2="([-\d.]+)"/.exec(m[0])![1]].map(Number));
+      const labels = [...svg.matchAll(/<text [^>]*data-role="(I[12])-label"[^>]*>([^<]*)</g)].map((m) => ({ x: Number(/ x="([-\d.]+)"/.exec(m[0])![1]), y: Number(/ y="([-\d.]+)"/.exec(m[0])![1]), text: m[2] }));
+      expect(labels, sample).toHaveLength(2);
+      // a 12 px label occupies about [y − 12, y + 3]; every axis line stays below it
+      for (const l of labels) expect(l.y + 3, sample).toBeLessThan(Math.min(...axisYs));
+      // generous 7.5 px per character for a 12 px bold font: the first label ends before the second begins
+      const [a, b] = labels.sort((p, q) => p.x - q.x);
+      expect(a.x + 7.5 * a.text.length, sample).toBeLessThan(b.x);
+    }
+  });
+});
