@@ -42,8 +42,7 @@
  *   x̄s = (Ixy·Iωx − Iy·Iωy)/D,  ȳs = (Ix·Iωx − Ixy·Iωy)/D,  D = Ix·Iy − Ixy².
  * Warping constant Iw = ∫ω_S² dA with ω_S about the shear centre and normalised to ∫ω_S dA = 0.
  */
-import { type MeshView, isCurved } from '../mesh/mesh.js';
-import { TriangleMapJacobian } from '../mesh/mapJacobian.js';
+import { type MeshView, TriangleMap, isCurved } from '../mesh/mesh.js';
 import { TripletBuilder, fixUnknown } from '../numeric/sparse.js';
 import { solveSpd } from '../numeric/sparseSolve.js';
 import { addCompensated } from '../numeric/sum.js';
@@ -145,7 +144,7 @@ export function solveTorsionOnMesh(mesh: MeshView, opts: TorsionSolveOptions): T
   const nT = mesh.count;
   const B = new TripletBuilder(total, nT * nodes * nodes);
   const f = new Float64Array(total);
-  const map = new TriangleMapJacobian();
+  const map = new TriangleMap();
   const Ke = new Float64Array(nodes * nodes), fe = new Float64Array(nodes);
   const gx = new Float64Array(nodes), gy = new Float64Array(nodes);
   // moments: A, ∫x, ∫y, ∫x², ∫xy, ∫y² (local)
@@ -245,7 +244,7 @@ export function solveTorsionOnMesh(mesh: MeshView, opts: TorsionSolveOptions): T
 }
 
 /** Visit every quadrature point with its weight (area element), local point and ω value. */
-function forEachPoint(mesh: MeshView, T: Tables, dofs: Int32Array, nodes: number, omega: Float64Array, map: TriangleMapJacobian,
+function forEachPoint(mesh: MeshView, T: Tables, dofs: Int32Array, nodes: number, omega: Float64Array, map: TriangleMap,
   visit: (w: number, x: number, y: number, om: number) => void): void {
   for (let t = 0; t < mesh.count; t++) {
     map.load(mesh, t);

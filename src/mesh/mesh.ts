@@ -85,8 +85,11 @@ export class TriangleMap {
   private readonly g1 = new Float64Array(6);
   private readonly p: [number, number] = [0, 0];
   private readonly d: [number, number] = [0, 0];
-  /** results of `at`: point and Jacobian determinant (area factor w.r.t. the reference (l1, l2)) */
-  x = 0; y = 0; jac = 0;
+  /**
+   * results of `at`: point, Jacobian matrix [xu xv; yu yv] with respect to the reference (l1, l2) — finite
+   * elements need it for gradients — and its determinant (the area factor)
+   */
+  x = 0; y = 0; xu = 0; xv = 0; yu = 0; yv = 0; jac = 0;
 
   load(m: MeshView, t: number): this {
     const tri = m.triangles, c = m.coords;
@@ -150,6 +153,7 @@ export class TriangleMap {
       }
     }
     this.x = x; this.y = y;
+    this.xu = xu; this.xv = xv; this.yu = yu; this.yv = yv;
     this.jac = xu * yv - xv * yu;
   }
 }
