@@ -40,15 +40,7 @@ export interface MeshView {
 
 /** A finished mesh: its arrays hold exactly its vertices and triangles (count = triangles.length / 3). */
 export interface Mesh extends MeshView {
-  origin: [number, number];
-  coords: Float64Array;
-  triangles: Uint32Array;
-  edgeCurve: Int32Array;
-  curveSeg: Uint32Array;
-  curveS0: Float64Array;
-  curveS1: Float64Array;
-  segments: Segment[];
-  count: number;
+  readonly segments: Segment[];
   /** Refinement level relative to the base mesh (0 = as triangulated). */
   level: number;
 }
