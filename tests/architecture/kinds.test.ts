@@ -6,7 +6,8 @@
  * an operation in `SegmentOps` (src/geometry/kinds/types.ts), so that a new kind touches only its own file
  * and the registry. The kind names come from the registry itself, so a new kind is covered at once.
  */
-import { readdirSync, readFileSync, statSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
+import { tsFiles } from './files.js';
 import { join, relative } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { OPS } from '../../src/geometry/kinds/index.js';
@@ -14,15 +15,6 @@ import { OPS } from '../../src/geometry/kinds/index.js';
 const ROOT = join(__dirname, '..', '..');
 const EXEMPT = ['src/geometry/kinds/', 'src/read/'];
 
-function tsFiles(dir: string): string[] {
-  const out: string[] = [];
-  for (const name of readdirSync(dir)) {
-    const p = join(dir, name);
-    if (statSync(p).isDirectory()) out.push(...tsFiles(p));
-    else if (name.endsWith('.ts') && !name.endsWith('.d.ts')) out.push(p);
-  }
-  return out;
-}
 
 const esc = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
 

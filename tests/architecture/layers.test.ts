@@ -4,7 +4,8 @@
  * `export … from` and dynamic `import('…')` all count, type-only imports included: a type import is
  * still a dependency of the design. The order is the one drawn in DEVELOPERS.md ("Layers").
  */
-import { readdirSync, readFileSync, statSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
+import { tsFiles } from './files.js';
 import { dirname, join, normalize, relative } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
@@ -16,15 +17,6 @@ export const LAYERS = [
 
 const ROOT = join(__dirname, '..', '..');
 
-function tsFiles(dir: string): string[] {
-  const out: string[] = [];
-  for (const name of readdirSync(dir)) {
-    const p = join(dir, name);
-    if (statSync(p).isDirectory()) out.push(...tsFiles(p));
-    else if (name.endsWith('.ts') && !name.endsWith('.d.ts')) out.push(p);
-  }
-  return out;
-}
 
 const SPEC = /(?:^|[^\w.])(?:import|export)\s[^'";]*?from\s*['"]([^'"]+)['"]|import\(\s*['"]([^'"]+)['"]\s*\)|^\s*import\s*['"]([^'"]+)['"]/gm;
 
