@@ -17,11 +17,6 @@ export function numberArg(name: string) {
   };
 }
 
-/** A comma-separated list ("etch, marking"). */
-export function listArg(v: string): string[] {
-  return v.split(',').map((s) => s.trim()).filter((s) => s.length > 0);
-}
-
 /**
  * How a drawing is read (SVG, DXF, GeoJSON, WKT): format, unit, and what is cut, marking or ignored. The same
  * options on every command that reads a part; README "How drawings are read".

@@ -55,12 +55,6 @@ export function jsonTerminalText(s: string): string {
 /** Longest piece of quoted user text echoed in a message; longer pieces are cut with an ellipsis. */
 export const ECHO_LIMIT = 80;
 
-/** User text for a terminal: escaped like oneLine and cut to `max` characters with an ellipsis. */
-export function safeText(s: string, max = Infinity): string {
-  const t = oneLine(s);
-  return t.length > max ? `${t.slice(0, max)}…` : t;
-}
-
 /** Cap what a message echoes: quoted pieces to ECHO_LIMIT characters, the whole to a few lines' worth. */
 function capEcho(s: string, whole: number): string {
   // quotes pair up left to right (each match consumes both), so text between two quoted pieces is never cut

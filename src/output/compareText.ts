@@ -34,10 +34,10 @@ const VERDICT_WORD = { pass: 'pass', fail: 'FAIL', inconclusive: 'inconclusive' 
 const SLIP_UNITS: Record<number, string> = { 1: 'in for mm', 2: 'in² for mm²', 3: 'in³ for mm³', 4: 'in⁴ for mm⁴' };
 
 /** Words for a row's hint, its reference note, and what would decide an inconclusive row. */
-export function rowAdvice(r: ComparisonRow): string[] {
+export function rowAdvice(r: ComparisonRow, withReferenceNote = true): string[] {
   const out: string[] = [];
   if (r.note) out.push(r.note);
-  if (r.statedNote) out.push(`the reference notes: "${r.statedNote}"`);
+  if (r.statedNote && withReferenceNote) out.push(`the reference notes: "${r.statedNote}"`);
   const h = r.hint;
   if (h?.code === 'opposite-sign') out.push('the stated value is the computed one with the opposite sign: the reference may use the other sign convention for the product of inertia');
   else if (h?.code === 'other-principal-axis') out.push('the stated angle differs by a right angle: it may be the angle of the other principal axis (I2)');
@@ -90,8 +90,9 @@ export function comparisonText(c: Comparison, meta: ComparisonMeta): string {
   const line = (cells: string[]) => cells.map((s, k) => (k === 0 || k === 5 ? s.padEnd(widths[k]) : s.padStart(widths[k]))).join('  ').trimEnd();
   const lines = [...head.flatMap((h) => wrap(h, 100, '  ')), '', line(titles), ...table.map(line)];
   lines.push(...wrap(`difference and tolerance in the computed value's unit${defaults.length ? `; * default tolerance: ${defaults.join(', ')}` : ''}`, 100, '  '), '');
-  for (const r of c.rows) for (const a of rowAdvice(r)) lines.push(...wrap(`${r.quantity}: ${a}`, 100, '  '));
-  if (c.rows.some((r) => rowAdvice(r).length > 0)) lines.push('');
+  const advice = c.rows.flatMap((r) => rowAdvice(r).map((a) => `${r.quantity}: ${a}`));
+  for (const a of advice) lines.push(...wrap(a, 100, '  '));
+  if (advice.length > 0) lines.push('');
   const n = c.counts;
   lines.push(`verdict: ${VERDICT_WORD[c.verdict]} — ${n.pass} pass, ${n.fail} fail, ${n.inconclusive} inconclusive`);
   lines.push(...wrap('rule: pass when |difference| + estimate ≤ tolerance; fail when |difference| − estimate > tolerance; otherwise inconclusive', 100, '  '));
@@ -142,7 +143,7 @@ export function comparisonCsv(c: Comparison): string {
     [...COMPARISON_CSV_HEADER],
     ...c.rows.map((r) => [
       r.quantity, r.statedAsWritten, r.statedUnit, r.stated, r.unit, r.computed, r.error, r.difference,
-      r.tolerance, r.toleranceSource, r.toleranceText, r.verdict, r.note ?? '', r.statedNote ?? '', rowAdvice(r).filter((a) => !a.startsWith('the reference notes')).join('; '),
+      r.tolerance, r.toleranceSource, r.toleranceText, r.verdict, r.note ?? '', r.statedNote ?? '', rowAdvice(r, false).join('; '),
     ]),
   ], { neutralise: true });
 }
