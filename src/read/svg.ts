@@ -924,16 +924,7 @@ export function readSvgDrawing(text: string, opts: SvgDrawingOptions = {}): Draw
     const colour = stroke !== undefined && stroke.toLowerCase() !== 'none' ? stroke : css.fill?.trim();
     const name = ownName ?? f.groupName;
     for (const c of shapes) {
-      // the shape's segments are fresh: straight ones are moved in place (a drawing may hold 10^5–10^6 of them)
-      const segs = c.segments;
-      for (let q = 0; q < segs.length; q++) {
-        const sq = segs[q];
-        if (sq.kind === 'line') {
-          const x0 = sq.x0, y0 = sq.y0, x1 = sq.x1, y1 = sq.y1;
-          sq.x0 = m[0] * x0 + m[2] * y0 + m[4]; sq.y0 = m[1] * x0 + m[3] * y0 + m[5];
-          sq.x1 = m[0] * x1 + m[2] * y1 + m[4]; sq.y1 = m[1] * x1 + m[3] * y1 + m[5];
-        } else segs[q] = transformSegment(sq, m);
-      }
+      const segs = c.segments.map((sq) => transformSegment(sq, m));
       const dc: DrawnContour = { segments: segs, closed: c.closed, where: c.where };
       if (f.layer !== undefined) dc.layer = f.layer;
       if (colour !== undefined) dc.colour = colour;
