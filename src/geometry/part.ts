@@ -27,6 +27,64 @@ export interface Part {
   unitSource?: 'file' | 'option' | 'assumed';
   /** Drawings: total length of marking lines (etching, scribing) on this part, in `units`. */
   markingLength?: number;
+  /**
+   * The same loops held about a point near the part (see LocalFrame), where the reader built them; valid only
+   * while `local.of` is this part's `regions` (a part made from another with new regions drops it unseen).
+   */
+  local?: LocalFrame;
+}
+
+/**
+ * A part held about `origin`, an exactly representable point near it: `regions` are the part's loops with
+ * origin subtracted, built in these coordinates by the reader (tangent points, arc centres, pattern places
+ * computed where they are small), so a constructed point keeps the precision of its distance from the
+ * origin instead of the ulp of site coordinates (3.1e6 mm: 4.7e-10 mm). The part's own (absolute) regions
+ * are these moved by the origin, one rounding per coordinate; moments are taken from the local loops.
+ * Loop for loop and segment for segment the two describe the same geometry (withLocalFrame checks the shape).
+ */
+export interface LocalFrame {
+  origin: readonly [number, number];
+  regions: Region[];
+  /** The absolute regions this frame belongs to (identity). */
+  of: Region[];
+}
+
+/** The part's local frame, when it has one that belongs to its current regions. */
+export function localFrame(part: Part): LocalFrame | undefined {
+  const f = part.local;
+  return f !== undefined && f.of === part.regions ? f : undefined;
+}
+
+/**
+ * A point to hold a part about: the centre of `box` rounded to a multiple of a power of two g no smaller
+ * than the ulp of the box's largest coordinate, so that every coordinate x of the part is a multiple of
+ * ulp(x), which divides g, and x − origin is exact whenever it is representable (always, for a part
+ * that does not reach many times its own size from the origin). Null when the part is near the
+ * coordinate origin already (its largest coordinate under 4 times its size): nothing to gain.
+ */
+export function siteOrigin(box: Box): [number, number] | null {
+  const m = Math.max(Math.abs(box[0]), Math.abs(box[1]), Math.abs(box[2]), Math.abs(box[3]));
+  const size = Math.max(box[2] - box[0], box[3] - box[1]);
+  if (!(m > 4 * size) || !Number.isFinite(m)) return null;
+  // g = ulp(m)·2^22: 2^⌊log2 m⌋ is m's leading bit, ulp(m) = that·2^-52
+  const g = 2 ** (Math.floor(Math.log2(m)) - 30);
+  return [Math.round((box[0] + box[2]) / 2 / g) * g, Math.round((box[1] + box[3]) / 2 / g) * g];
+}
+
+/**
+ * The part with its local frame attached: `local` holds the same loops as `part.regions`, built about
+ * `origin`. When the two do not match loop for loop and kind for kind (a boolean decided differently at a
+ * different rounding), the part is returned without a frame: correct, only less precise far from the origin.
+ */
+export function withLocalFrame(part: Part, origin: readonly [number, number], local: Region[]): Part {
+  const a = part.regions;
+  if (local.length !== a.length) return part;
+  const same = (p: Loop, q: Loop) => p.segments.length === q.segments.length && p.segments.every((s, i) => s.kind === q.segments[i].kind);
+  for (let i = 0; i < a.length; i++) {
+    if (!same(a[i].outer, local[i].outer) || a[i].holes.length !== local[i].holes.length) return part;
+    for (let j = 0; j < a[i].holes.length; j++) if (!same(a[i].holes[j], local[i].holes[j])) return part;
+  }
+  return { ...part, local: { origin: [origin[0], origin[1]], regions: local, of: a } };
 }
 
 /** Signed area enclosed by a loop (positive when counter-clockwise), exact for lines and arcs. */
@@ -48,13 +106,19 @@ export function orientLoop(loop: Loop, ccw: boolean): Loop {
 }
 
 export function normalizePart(part: Part): Part {
-  return {
-    ...part,
-    regions: part.regions.map((r) => ({
-      outer: orientLoop(r.outer, true),
-      holes: r.holes.map((h) => orientLoop(h, false)),
-    })),
-  };
+  const regions = part.regions.map((r) => ({
+    outer: orientLoop(r.outer, true),
+    holes: r.holes.map((h) => orientLoop(h, false)),
+  }));
+  const frame = localFrame(part);
+  if (frame === undefined) return { ...part, regions, local: undefined };
+  // the local loops turn with their absolute twins (one decision, so the two stay loop for loop alike)
+  const turn = (given: Loop, oriented: Loop, local: Loop) => (oriented === given ? local : reverseLoop(local));
+  const local = part.regions.map((r, i) => ({
+    outer: turn(r.outer, regions[i].outer, frame.regions[i].outer),
+    holes: r.holes.map((h, j) => turn(h, regions[i].holes[j], frame.regions[i].holes[j])),
+  }));
+  return { ...part, regions, local: { origin: frame.origin, regions: local, of: regions } };
 }
 
 export function loopLength(loop: Loop): number {
@@ -93,9 +157,20 @@ export function translateLoop(loop: Loop, dx: number, dy: number): Loop {
   return { ...loop, segments: loop.segments.map((s) => ops(s).translate(s, dx, dy)) };
 }
 
+/**
+ * The part's loops in coordinates about `origin` (x − ox, y − oy): its local frame's loops when it is held
+ * about that very point, else the loops translated (one rounding per coordinate).
+ */
+export function partAbout(part: Part, origin: readonly [number, number]): Part {
+  const f = localFrame(part);
+  if (f !== undefined && f.origin[0] === origin[0] && f.origin[1] === origin[1]) return { ...part, regions: f.regions, local: undefined };
+  return translatePart(part, -origin[0], -origin[1]);
+}
+
 export function translatePart(part: Part, dx: number, dy: number): Part {
   return {
     ...part,
+    local: undefined,
     regions: part.regions.map((r) => ({
       outer: translateLoop(r.outer, dx, dy),
       holes: r.holes.map((h) => translateLoop(h, dx, dy)),

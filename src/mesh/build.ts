@@ -4,7 +4,7 @@
  * curved triangle's map is safely valid.
  */
 import { InputError, MethodError } from '../base/errors.js';
-import { type Part, partBox, translatePart } from '../geometry/part.js';
+import { type Part, localFrame, partAbout, partBox } from '../geometry/part.js';
 import { type Segment, ops, piecesForTurning, segmentStart } from '../geometry/segments.js';
 import { type Mesh, TriangleMap, curvedEdgeRatio } from './mesh.js';
 import { type Triangulator, triangulateConstrained } from './triangulate.js';
@@ -31,8 +31,10 @@ export const DEFAULT_MAX_TURN = Math.PI / 4;
 export const DEFAULT_MAX_BULGE = 0.25;
 
 
-/** Chosen local origin: the centre of the part's bounding box. */
+/** Chosen local origin: the point the part is held about (its local frame), else the centre of its bounding box. */
 export function localOrigin(part: Part): [number, number] {
+  const f = localFrame(part);
+  if (f !== undefined) return [f.origin[0], f.origin[1]];
   const b = partBox(part);
   return [(b[0] + b[2]) / 2, (b[1] + b[3]) / 2];
 }
@@ -65,7 +67,7 @@ function initialChords(local: Part, maxTurn: number, maxStraight = Infinity): { 
  */
 export function chordedBoundary(part: Part, options: MeshOptions = {}): { coords: Float64Array; loopStarts: number[] } {
   const origin = localOrigin(part);
-  const { segments, loops } = initialChords(translatePart(part, -origin[0], -origin[1]), options.maxTurn ?? DEFAULT_MAX_TURN);
+  const { segments, loops } = initialChords(partAbout(part, origin), options.maxTurn ?? DEFAULT_MAX_TURN);
   separateChords(loops, segments);
   const c = collectChords(loops, segments);
   const coords = new Float64Array(2 * c.n);
@@ -82,7 +84,7 @@ export function chordedBoundary(part: Part, options: MeshOptions = {}): { coords
 export function buildMesh(part: Part, options: MeshOptions = {}): MeshReport {
   const maxBulge = options.maxBulge ?? DEFAULT_MAX_BULGE;
   const origin = options.origin ?? localOrigin(part);
-  const { segments, loops } = initialChords(translatePart(part, -origin[0], -origin[1]), options.maxTurn ?? DEFAULT_MAX_TURN, options.maxStraight);
+  const { segments, loops } = initialChords(partAbout(part, origin), options.maxTurn ?? DEFAULT_MAX_TURN, options.maxStraight);
 
   let splits = 0;
   splits += separateChords(loops, segments);

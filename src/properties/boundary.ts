@@ -11,7 +11,7 @@
  *   ∫xy = Σ(2x_i·y_i + x_i·y_{i+1} + x_{i+1}·y_i + 2x_{i+1}·y_{i+1})c/24.
  * Loops may run either way: each loop's sums take the sign that makes an outline add and a hole subtract.
  */
-import type { Part } from '../geometry/part.js';
+import { type Part, localFrame } from '../geometry/part.js';
 import { ops } from '../geometry/segments.js';
 
 /** True when every segment of the part is straight (its kind says so). */
@@ -43,9 +43,12 @@ export function boundaryIntegrals(part: Part, origin: readonly [number, number])
     cmp[k] += Math.abs(s) >= Math.abs(v) ? (s - t) + v : (v - t) + s;
     acc[k] = t;
   };
-  const [ox, oy] = origin;
+  // a part held about this very origin gives its local loops (constructed points kept to local precision)
+  const frame = localFrame(part);
+  const local = frame !== undefined && frame.origin[0] === origin[0] && frame.origin[1] === origin[1];
+  const [ox, oy] = local ? [0, 0] : origin;
   let terms = 0;
-  for (const r of part.regions) {
+  for (const r of local ? frame.regions : part.regions) {
     const loops = [r.outer, ...r.holes];
     for (let li = 0; li < loops.length; li++) {
       loopSum.fill(0);

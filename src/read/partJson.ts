@@ -2,9 +2,9 @@
  * Reader for the project's own part description (JSON). See README "Part description format" and
  * schema/part.schema.json. Every problem is an InputError naming the JSON path.
  */
-import { InputError, describeValue } from '../base/errors.js';
+import { InputError, MethodError, describeValue } from '../base/errors.js';
 import { checkJsonText } from '../base/jsonCheck.js';
-import type { Loop, Part, Region } from '../geometry/part.js';
+import { type Loop, type Part, type Region, partBox, siteOrigin, withLocalFrame } from '../geometry/part.js';
 import { type PathStep, type Pt, circleLoop, pathLoop, polygonLoop, rectangleLoop, slotLoop } from '../geometry/shapes.js';
 import { combineShapes } from '../geometry/booleans.js';
 import { MAX_PATTERN_COPIES, expandPattern, gridPoints, ringPoints } from '../geometry/patterns.js';
@@ -92,13 +92,22 @@ export function expectPoint(v: unknown, where: string): Pt {
   return [expectCoordinate(v[0], `${where}[0]`), expectCoordinate(v[1], `${where}[1]`)];
 }
 
+/**
+ * A position (not a size or pitch) relative to `at`, the point the part is being held about (see LocalFrame
+ * in src/geometry/part.ts): x − at is exact for the coordinates of the part it was chosen for.
+ */
+function expectPosition(v: unknown, where: string, at: Pt | undefined): Pt {
+  const p = expectPoint(v, where);
+  return at === undefined ? p : [p[0] - at[0], p[1] - at[1]];
+}
+
 function expectArray(v: unknown, where: string): unknown[] {
   if (!Array.isArray(v)) throw new InputError(where, `expected an array, got ${describeValue(v)}`);
   return v;
 }
 
-/** Read one SHAPE object into an exact loop. */
-export function readShape(v: unknown, where: string): Loop {
+/** Read one SHAPE object into an exact loop; positions relative to `at` when given. */
+export function readShape(v: unknown, where: string, at?: Pt): Loop {
   const o = expectObject(v, where);
   const keys = Object.keys(o);
   if (keys.length !== 1 || !(SHAPE_KINDS as readonly string[]).includes(keys[0])) {
@@ -111,7 +120,7 @@ export function readShape(v: unknown, where: string): Loop {
     case 'rectangle': {
       const b = expectObject(body, w);
       checkKeys(b, ['corner', 'size', 'cornerRadius'], w);
-      const corner = expectPoint(b.corner, `${w}.corner`);
+      const corner = expectPosition(b.corner, `${w}.corner`, at);
       const size = expectPoint(b.size, `${w}.size`);
       if (!(size[0] > 0)) throw new InputError(`${w}.size[0]`, `expected a positive width, got ${size[0]}`);
       if (!(size[1] > 0)) throw new InputError(`${w}.size[1]`, `expected a positive height, got ${size[1]}`);
@@ -121,33 +130,33 @@ export function readShape(v: unknown, where: string): Loop {
     case 'circle': {
       const b = expectObject(body, w);
       checkKeys(b, ['center', 'diameter'], w);
-      const c = expectPoint(b.center, `${w}.center`);
+      const c = expectPosition(b.center, `${w}.center`, at);
       const d = expectPositive(b.diameter, `${w}.diameter`);
       return circleLoop(c, d, w);
     }
     case 'slot': {
       const b = expectObject(body, w);
       checkKeys(b, ['from', 'to', 'width'], w);
-      return slotLoop(expectPoint(b.from, `${w}.from`), expectPoint(b.to, `${w}.to`), expectPositive(b.width, `${w}.width`), w);
+      return slotLoop(expectPosition(b.from, `${w}.from`, at), expectPosition(b.to, `${w}.to`, at), expectPositive(b.width, `${w}.width`), w);
     }
     case 'polygon': {
-      const pts = expectArray(body, w).map((p, i) => expectPoint(p, `${w}[${i}]`));
+      const pts = expectArray(body, w).map((p, i) => expectPosition(p, `${w}[${i}]`, at));
       return polygonLoop(pts, w);
     }
     case 'path': {
       const b = expectObject(body, w);
       checkKeys(b, ['start', 'segments'], w);
-      const start = expectPoint(b.start, `${w}.start`);
+      const start = expectPosition(b.start, `${w}.start`, at);
       const steps: PathStep[] = expectArray(b.segments, `${w}.segments`).map((sv, i) => {
         const sw = `${w}.segments[${i}]`;
         const s = expectObject(sv, sw);
         checkKeys(s, ['to', 'center', 'turn'], sw);
-        const to = expectPoint(s.to, `${sw}.to`);
+        const to = expectPosition(s.to, `${sw}.to`, at);
         if (s.center === undefined) {
           if (s.turn !== undefined) throw new InputError(`${sw}.turn`, 'given without "center"; an arc needs both');
           return { to };
         }
-        const center = expectPoint(s.center, `${sw}.center`);
+        const center = expectPosition(s.center, `${sw}.center`, at);
         if (s.turn !== 'ccw' && s.turn !== 'cw') throw new InputError(`${sw}.turn`, `expected "ccw" or "cw", got ${describeValue(s.turn)}`);
         return { to, center, turn: s.turn };
       });
@@ -162,12 +171,15 @@ function expectCount(v: unknown, where: string): number {
   return v;
 }
 
-/** Read a grid or ring pattern ({"grid": {...}} or {"ring": {...}}) into its copies. */
-function readPattern(kind: string, body: unknown, w: string): Loop[] {
+/**
+ * Read a grid or ring pattern ({"grid": {...}} or {"ring": {...}}) into its copies. The pattern's start or
+ * centre is a position (relative to `at` when given); the repeated shape is drawn about each place.
+ */
+function readPattern(kind: string, body: unknown, w: string, at?: Pt): Loop[] {
   const b = expectObject(body, w);
   if (kind === 'grid') {
     checkKeys(b, ['start', 'pitch', 'count', 'shape'], w);
-    const start = expectPoint(b.start, `${w}.start`);
+    const start = expectPosition(b.start, `${w}.start`, at);
     const pitch = expectPoint(b.pitch, `${w}.pitch`);
     const count = expectArray(b.count, `${w}.count`);
     if (count.length !== 2) throw new InputError(`${w}.count`, `expected [columns, rows], got ${describeValue(count)}`);
@@ -181,7 +193,7 @@ function readPattern(kind: string, body: unknown, w: string): Loop[] {
     return expandPattern(shape, gridPoints({ start: [start[0], start[1]], pitch: [pitch[0], pitch[1]], count: [nx, ny] }), false, w);
   }
   checkKeys(b, ['center', 'diameter', 'count', 'startAngle', 'step', 'rotate', 'shape'], w);
-  const center = expectPoint(b.center, `${w}.center`);
+  const center = expectPosition(b.center, `${w}.center`, at);
   const diameter = expectPositive(b.diameter, `${w}.diameter`);
   const n = expectCount(b.count, `${w}.count`);
   if (n > MAX_PATTERN_COPIES) throw new InputError(`${w}.count`, `expected at most ${MAX_PATTERN_COPIES} copies, got ${n}`);
@@ -198,30 +210,30 @@ function readPattern(kind: string, body: unknown, w: string): Loop[] {
   return expandPattern(shape, points, b.rotate === true, w);
 }
 
-/** Read a list of SHAPEs and patterns ("cutouts", "add") into loops. */
-export function readShapeList(v: unknown, where: string): Loop[] {
+/** Read a list of SHAPEs and patterns ("cutouts", "add") into loops; positions relative to `at` when given. */
+export function readShapeList(v: unknown, where: string, at?: Pt): Loop[] {
   const out: Loop[] = [];
   expectArray(v, where).forEach((item, i) => {
     const w = `${where}[${i}]`;
     const o = expectObject(item, w);
     const keys = Object.keys(o);
     if (keys.length === 1 && (PATTERN_KINDS as readonly string[]).includes(keys[0])) {
-      out.push(...readPattern(keys[0], o[keys[0]], `${w}.${keys[0]}`));
+      out.push(...readPattern(keys[0], o[keys[0]], `${w}.${keys[0]}`, at));
     } else if (keys.length !== 1 || !(SHAPE_KINDS as readonly string[]).includes(keys[0])) {
       throw new InputError(w, `expected exactly one of ${[...SHAPE_KINDS, ...PATTERN_KINDS].join(', ')}, got ${keys.length ? keys.map((k) => `"${k}"`).join(', ') : 'an empty object'}`);
     } else {
-      out.push(readShape(o, w));
+      out.push(readShape(o, w, at));
     }
   });
   return out;
 }
 
-function readRegion(o: Obj, where: string): Region {
+function readRegion(o: Obj, where: string, at?: Pt): Region {
   if (o.outline === undefined) throw new InputError(where ? `${where}.outline` : 'outline', 'expected the outline shape (missing)');
   const p = where ? `${where}.` : '';
-  const outer = readShape(o.outline, `${p}outline`);
-  const add: Loop[] = o.add === undefined ? [] : readShapeList(o.add, `${p}add`);
-  const holes: Loop[] = o.cutouts === undefined ? [] : readShapeList(o.cutouts, `${p}cutouts`);
+  const outer = readShape(o.outline, `${p}outline`, at);
+  const add: Loop[] = o.add === undefined ? [] : readShapeList(o.add, `${p}add`, at);
+  const holes: Loop[] = o.cutouts === undefined ? [] : readShapeList(o.cutouts, `${p}cutouts`, at);
   return combineShapes({ outline: outer, add, cutouts: holes });
 }
 
@@ -272,6 +284,26 @@ function partFromObjectIn(value: unknown, label: string): Part {
   for (const k of ['note', 'description'] as const) {
     if (root[k] !== undefined && typeof root[k] !== 'string') throw new InputError(k, `expected text, got ${describeValue(root[k])}`);
   }
+  const regions = readRegions(root);
+  const part: Part = { name, units: units as LengthUnit, regions };
+  // Far from the coordinate origin the shapes are read a second time about a point near the part, where
+  // constructed points (slot tangent points, rounded corners, pattern places) keep their digits; every
+  // check ran on the first reading, so a second reading that fails only leaves the part without its frame.
+  const at = siteOrigin(partBox(part));
+  if (at === null) return part;
+  const spent = patternCopies;
+  try {
+    return withLocalFrame(part, at, readRegions(root, at));
+  } catch (e) {
+    if (!(e instanceof InputError || e instanceof MethodError)) throw e;
+    return part;
+  } finally {
+    patternCopies = spent;
+  }
+}
+
+/** The regions of a part object ("regions", or "outline" with "cutouts" and "add"); positions relative to `at`. */
+function readRegions(root: Obj, at?: Pt): Region[] {
   let regions: Region[];
   if (root.regions !== undefined) {
     if (root.outline !== undefined || root.cutouts !== undefined) {
@@ -286,12 +318,12 @@ function partFromObjectIn(value: unknown, label: string): Part {
       const w = `regions[${i}]`;
       const o = expectObject(r, w);
       checkKeys(o, ['outline', 'cutouts', 'add'], w);
-      return readRegion(o, w);
+      return readRegion(o, w, at);
     });
   } else {
-    regions = [readRegion(root, '')];
+    regions = [readRegion(root, '', at)];
   }
-  return { name, units: units as LengthUnit, regions };
+  return regions;
 }
 
 

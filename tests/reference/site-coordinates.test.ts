@@ -62,11 +62,13 @@ describe('bounding-box differences take their ingredients\' estimates (issue 13,
 
 describe('an angled slot at (3141592.65625, −1234567.25): constructed tangent points (issue 13, item 3)', () => {
   const slot = { slot: { from: [3141592.65625, -1234567.25], to: [3141762.65625, -1234267.25], width: 12.5 } };
-  it('the slot alone (area NOT within 1e-12: see the comment)', () => {
-    // Its tangent lines are held by end points rounded at 3.1e6 mm (half an ulp, 2.3e-10 mm) over 345 mm:
-    // 7e-8 mm² on a 4,400 mm² slot, 1.6e-11 relative. No summation can recover it while parts are stored
-    // in absolute coordinates; the estimate covers it (checked), the 1e-12 target is not met here.
-    check(measureObj({ outline: slot }), withModuli(num(refs.slotAlone)), 'slot alone', false);
+  it('the slot alone: held about a point near it, area within 1e-12', () => {
+    // Built in absolute coordinates its tangent points were rounded at 3.1e6 mm (half an ulp, 2.3e-10 mm)
+    // over 345 mm: 1.6e-11 relative. The part reader now builds it about a point near it (LocalFrame).
+    const r = measureObj({ outline: slot });
+    expect(r.method.localOrigin, 'held about a point near the slot').not.toEqual([0, 0]);
+    check(r, withModuli(num(refs.slotAlone)), 'slot alone');
+    for (const k of ['Ix', 'Iy'] as const) expect(Math.abs(r.quantities[k].value - Number(refs.slotAlone[k])) / Number(refs.slotAlone[k]), k).toBeLessThanOrEqual(1e-12);
   });
   it('the slot cut from a 1500 × 1000 plate', () => {
     check(measureObj({ outline: { rectangle: { corner: [3141000, -1235000], size: [1500, 1000] } }, cutouts: [slot] }), num(refs.slotInPlate), 'slot in plate');
