@@ -44,6 +44,12 @@ export interface DrawnContour {
   ring?: { polygon: string; index: number };
   /** Formats that group polygons (GeoJSON features): a key shared by the contours of one group. */
   group?: string;
+  /**
+   * The same segments held about `Drawing.origin` (x − origin), built there by the reader so that constructed
+   * points (arc centres, transformed coordinates) keep the digits site coordinates cannot hold; segment for
+   * segment like `segments`. Parts made of such contours are held about that point (LocalFrame).
+   */
+  local?: Segment[];
 }
 
 /** A gap between loose ends that the joining step closed, or could not close. */
@@ -80,4 +86,6 @@ export interface Drawing {
   join?: { tolerance: number; gaps: JoinGap[]; findings?: JoinFinding[] };
   /** A name for the whole drawing (SVG <title> of the root), if any. */
   name?: string;
+  /** The exactly representable point that contours' `local` segments are held about, when they are. */
+  origin?: [number, number];
 }

@@ -32,7 +32,7 @@ import { InputError } from '../base/errors.js';
 import { combineShapes } from '../geometry/booleans.js';
 import { overlappingPairs } from '../geometry/boxgrid.js';
 import { type Nesting, locatePoints, nestContours } from '../geometry/nesting.js';
-import { type Loop, type Part, type Region, loopSignedArea, normalizePart } from '../geometry/part.js';
+import { type Loop, type Part, type Region, loopSignedArea, normalizePart, withLocalFrame } from '../geometry/part.js';
 import { type Segment, ops, segmentEnd, segmentPoint, segmentStart } from '../geometry/segments.js';
 import { mergedContour } from '../geometry/kinds/index.js';
 import { intersect } from '../geometry/validate.js';
@@ -204,6 +204,25 @@ function contourBox(segs: readonly Segment[]): [number, number, number, number] 
 // -------------------------------------------------------------------------------------------------
 
 interface Item { c: DrawnContour; index: number; box: [number, number, number, number] }
+/**
+ * The part held about the drawing's origin when every one of its loops is a contour as drawn whose reader
+ * gave its local segments (a united or subtracted loop is new and has none: the part then goes without).
+ */
+function localRegions(part: Part, local: ReadonlyMap<Loop, Segment[]>): Region[] | null {
+  const out: Region[] = [];
+  const twin = (l: Loop): Loop | null => {
+    const segs = local.get(l);
+    return segs === undefined ? null : { ...l, segments: segs };
+  };
+  for (const r of part.regions) {
+    const outer = twin(r.outer);
+    const holes = r.holes.map(twin);
+    if (outer === null || holes.some((h) => h === null)) return null;
+    out.push({ outer, holes: holes as Loop[] });
+  }
+  return out;
+}
+
 interface RegionNote { region: Region; name: string | undefined; markingLength: number; markings: number }
 
 class UnionFind {
@@ -224,6 +243,12 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
   const cut: Item[] = [], mark: Item[] = [];
   const notCut: NotCut = { marking: [], ignored: [] };
   const markingReasonOf = new Map<Item, MarkingReason>();
+  const localOf = new Map<Loop, Segment[]>();
+  const heldAboutOrigin = (p: Part): Part => {
+    if (drawing.origin === undefined) return p;
+    const local = localRegions(p, localOf);
+    return local === null ? p : withLocalFrame(p, drawing.origin, local);
+  };
 
   // 0. joints that almost meet: an outline with a gap just over the join tolerance is never taken silently as a
   //    marking line (that would drop the plate's material); a gap on a marking or skipped layer does not matter
@@ -324,6 +349,8 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
 
     // 3. crossings between cut contours
     let loops: Loop[] = cutItems.map((it) => ({ segments: it.c.segments, where: it.c.where }));
+    // loops that stay as drawn keep the segments their reader held about the drawing's origin
+    loops.forEach((l, i) => { if (cutItems[i].c.local !== undefined) localOf.set(l, cutItems[i].c.local!); });
     const crossings = findCrossings(loops, tol);
     if (crossings.length > 0) {
       if (!options.unite) {
@@ -496,7 +523,7 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
     used.set(base, seen + 1);
     const name = seen === 0 ? base : `${base}-${seen + 1}`;
     const markingLength = g.reduce((s, ri) => s + regions[ri].markingLength, 0);
-    const part: Part = normalizePart({ name, units: units.unit, regions: g.map((ri) => regions[ri].region), unitSource: units.source, markingLength });
+    const part: Part = normalizePart(heldAboutOrigin({ name, units: units.unit, regions: g.map((ri) => regions[ri].region), unitSource: units.source, markingLength }));
     parts.push(part);
     partNotes.push({
       name,

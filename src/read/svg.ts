@@ -21,8 +21,8 @@
  * the bottom-left corner of the viewBox.
  */
 import { InputError } from '../base/errors.js';
-import type { Part } from '../geometry/part.js';
-import { type Segment, ops, segmentEnd, segmentStart } from '../geometry/segments.js';
+import { type Part, siteOrigin, unionBox } from '../geometry/part.js';
+import { type Box, type Segment, ops, segmentEnd, segmentStart } from '../geometry/segments.js';
 import { type Affine, IDENTITY, composeAffine, transformSegment } from '../geometry/transform.js';
 import type { LengthUnit } from '../base/units.js';
 import { type CascadedProperty, type Computed, type CssNode, StyleSheet, cascade, cssTransform, cssTransformOrigin } from './css.js';
@@ -231,18 +231,26 @@ function closeContour(c: Segment[], scale: number): boolean {
 
 const CMD_ARGS: Record<string, number> = { M: 2, L: 2, H: 1, V: 1, C: 6, S: 4, Q: 4, T: 2, A: 7, Z: 0 };
 
+/**
+ * Where positions are read from: user-space coordinates minus this point (see `heldAbout`). Zero except
+ * while an element is read a second time about a point near it.
+ */
+let positionShift: readonly [number, number] = [0, 0];
+
 /** Parse path data into closed contours (user units). `label` is e.g. `svg path#bracket`. */
 export function parsePathData(d: string, label: string): Contour[] {
+  const at = positionShift;
   const contours: Contour[] = [];
   let i = 0;
   const n = d.length;
   let cmdIndex = 0;
   let cur: Segment[] = [];
   let curWhere = label;
-  let cx = 0, cy = 0, sx = 0, sy = 0;
+  // the current point starts at the user-space origin, which is −at about `at`
+  let cx = -at[0], cy = -at[1], sx = cx, sy = cy;
   let lastCmd = '';
   let lastCtrlX = 0, lastCtrlY = 0; // second control point of the previous C/S, or the control of Q/T
-  let scale = 1;
+  let scale = Math.max(1, Math.abs(at[0]), Math.abs(at[1])); // the closing tolerance of the absolute reading
   let started = false;
   const skipWsp = () => { while (i < n && /[\s,]/.test(d[i])) i++; };
   const skipSpaceOnly = () => { while (i < n && /\s/.test(d[i])) i++; };
@@ -304,7 +312,7 @@ export function parsePathData(d: string, label: string): Contour[] {
         lastCmd = 'Z';
         break;
       }
-      const ox = rel ? cx : 0, oy = rel ? cy : 0;
+      const ox = rel ? cx : -at[0], oy = rel ? cy : -at[1];
       switch (cmd) {
         case 'M': {
           const x = readNumber() + ox, y = readNumber() + oy;
@@ -413,12 +421,18 @@ function attrNum(el: XmlElement, name: string, where: string, dflt?: number): nu
   return parseLength(v, where, name, percentRef(name, currentViewport));
 }
 
+/** A position attribute (x, y, cx, cy, x1 …) as read about positionShift; `axis` 0 for x-ish, 1 for y-ish. */
+function attrPos(el: XmlElement, name: string, where: string, axis: 0 | 1): number {
+  return attrNum(el, name, where, 0) - positionShift[axis];
+}
+
 function pointsList(el: XmlElement, where: string): [number, number][] {
   const nums = numberList(el.attrs.points ?? '', where, 'points');
   if (nums.length % 2 !== 0) throw new InputError(`${where} points`, `expected pairs of numbers, got an odd count ${nums.length}`);
   const pts: [number, number][] = [];
+  const [ax, ay] = positionShift;
   for (let k = 0; k < nums.length; k += 2) {
-    const p: [number, number] = [nums[k], nums[k + 1]];
+    const p: [number, number] = [nums[k] - ax, nums[k + 1] - ay];
     const q = pts[pts.length - 1];
     if (!q || q[0] !== p[0] || q[1] !== p[1]) pts.push(p);
   }
@@ -444,7 +458,7 @@ function shapeContours(el: XmlElement, tag: string, where: string): Contour[] {
       return parsePathData(d, where);
     }
     case 'rect': {
-      const x = attrNum(el, 'x', where, 0), y = attrNum(el, 'y', where, 0);
+      const x = attrPos(el, 'x', where, 0), y = attrPos(el, 'y', where, 1);
       const w = attrNum(el, 'width', where), h = attrNum(el, 'height', where);
       if (w < 0 || h < 0) throw new InputError(where, `expected a non-negative width and height, got ${w} and ${h}`);
       if (w === 0 || h === 0) return []; // "a value of zero disables rendering" (SVG 1.1, 9.2)
@@ -479,7 +493,7 @@ function shapeContours(el: XmlElement, tag: string, where: string): Contour[] {
       return [{ segments: segs, where, closed: true }];
     }
     case 'circle': {
-      const ccx = attrNum(el, 'cx', where, 0), ccy = attrNum(el, 'cy', where, 0), r = attrNum(el, 'r', where, 0);
+      const ccx = attrPos(el, 'cx', where, 0), ccy = attrPos(el, 'cy', where, 1), r = attrNum(el, 'r', where, 0);
       if (r < 0) throw new InputError(where, `expected a non-negative r, got ${r}`);
       if (r === 0) return [];
       return [{ where, closed: true, segments: [
@@ -488,7 +502,7 @@ function shapeContours(el: XmlElement, tag: string, where: string): Contour[] {
       ] }];
     }
     case 'ellipse': {
-      const ccx = attrNum(el, 'cx', where, 0), ccy = attrNum(el, 'cy', where, 0);
+      const ccx = attrPos(el, 'cx', where, 0), ccy = attrPos(el, 'cy', where, 1);
       let rx = attrNum(el, 'rx', where, NaN), ry = attrNum(el, 'ry', where, NaN);
       if (Number.isNaN(rx)) rx = ry; // SVG 2: auto takes the other radius
       if (Number.isNaN(ry)) ry = rx;
@@ -518,7 +532,7 @@ function shapeContours(el: XmlElement, tag: string, where: string): Contour[] {
       return [{ segments: segs, where, closed: false }];
     }
     case 'line': {
-      const x1 = attrNum(el, 'x1', where, 0), y1 = attrNum(el, 'y1', where, 0), x2 = attrNum(el, 'x2', where, 0), y2 = attrNum(el, 'y2', where, 0);
+      const x1 = attrPos(el, 'x1', where, 0), y1 = attrPos(el, 'y1', where, 1), x2 = attrPos(el, 'x2', where, 0), y2 = attrPos(el, 'y2', where, 1);
       if (x1 === x2 && y1 === y2) return [];
       return [{ segments: [line(x1, y1, x2, y2)], where, closed: false }];
     }
@@ -724,7 +738,44 @@ function checkInvertible(m: Affine, where: string): void {
 }
 
 /** Read an SVG document into a Drawing: every contour with its layer, name, colour and visibility; no roles decided. */
+/** Box of drawn contours (drawing units). */
+function contoursBox(contours: Segment[][]): Box {
+  let b: Box = [Infinity, Infinity, -Infinity, -Infinity];
+  for (const c of contours) for (const sg of c) b = unionBox(b, ops(sg).bbox(sg));
+  return b;
+}
+
+/**
+ * An element's contours held about `origin` (drawing units): read again with user-space positions taken
+ * about a point near them (exact there: see siteOrigin), then mapped by the element's matrix with its
+ * translation carried to that point, so only small numbers are ever rounded. The matrix's own translation
+ * is rounded once, as in the absolute reading; it moves the whole element alike. Undefined for a contour
+ * whose second reading differs in shape (it then goes without), or for all when that reading fails.
+ */
+function heldAbout(el: XmlElement, tag: string, where: string, shapes: Contour[], m: Affine, origin: [number, number]): (Segment[] | undefined)[] | undefined {
+  const at = siteOrigin(contoursBox(shapes.map((c) => c.segments))) ?? [0, 0];
+  let again: Contour[];
+  positionShift = at;
+  try {
+    again = shapeContours(el, tag, where);
+  } catch (e) {
+    if (e instanceof InputError) return undefined;
+    throw e;
+  } finally {
+    positionShift = [0, 0];
+  }
+  if (again.length !== shapes.length) return undefined;
+  const mt: Affine = [m[0], m[1], m[2], m[3], (m[0] * at[0] + m[2] * at[1] + m[4]) - origin[0], (m[1] * at[0] + m[3] * at[1] + m[5]) - origin[1]];
+  return again.map((c, k) => {
+    const a = shapes[k];
+    if (c.closed !== a.closed || c.segments.length !== a.segments.length || c.segments.some((sg, i) => sg.kind !== a.segments[i].kind)) return undefined;
+    return c.segments.map((sg) => transformSegment(sg, mt));
+  });
+}
+
 export function readSvgDrawing(text: string, opts: SvgDrawingOptions = {}): Drawing {
+  /** The point contours are also held about (undefined until the first drawn element decides; null: none). */
+  let origin: [number, number] | null | undefined;
   const label = opts.fileLabel ?? 'svg';
   const keepText = new Set(['style', 'title', 'svg:style', 'svg:title']);
   const root = parseXml(text, { maxChars: XML_MAX_CHARS, maxDepth: XML_MAX_DEPTH, keepText }, 'svg');
@@ -923,20 +974,27 @@ export function readSvgDrawing(text: string, opts: SvgDrawingOptions = {}): Draw
     const stroke = css.stroke?.trim();
     const colour = stroke !== undefined && stroke.toLowerCase() !== 'none' ? stroke : css.fill?.trim();
     const name = ownName ?? f.groupName;
-    for (const c of shapes) {
-      const segs = c.segments.map((sq) => transformSegment(sq, m));
+    const drawn = shapes.map((c) => c.segments.map((sq) => transformSegment(sq, m)));
+    // far from the origin, the element is read again about a point near it (the first element far out
+    // fixes the drawing's origin): arc centres and transformed points are then made where they are small
+    if (origin === undefined) origin = siteOrigin(contoursBox(drawn));
+    const local = origin === null ? undefined : heldAbout(el, tag, where, shapes, m, origin);
+    shapes.forEach((c, k) => {
+      const segs = drawn[k];
       const dc: DrawnContour = { segments: segs, closed: c.closed, where: c.where };
+      if (local?.[k] !== undefined) dc.local = local[k];
       if (f.layer !== undefined) dc.layer = f.layer;
       if (colour !== undefined) dc.colour = colour;
       if (name !== undefined) dc.name = name;
       if (shapeHidden !== undefined) dc.hidden = shapeHidden;
       if (id !== undefined) dc.sources = [id];
       contours.push(dc);
-    }
+    });
   }
   currentViewport = {};
   if (sheet.unsupportedSelectors > 0) ignored['css-selector-unsupported'] = sheet.unsupportedSelectors;
   const drawing: Drawing = { format: 'svg', label, units, contours, ignored };
+  if (origin) drawing.origin = origin;
   const docName = titleOf(root, rootScope);
   if (docName !== undefined) drawing.name = docName;
   return drawing;
