@@ -20,3 +20,13 @@ export function transformSegment(seg: Segment, m: Affine): Segment {
   if (isIdentity(m)) return seg;
   return ops(seg).affine(seg, m);
 }
+
+/**
+ * The map m with its translation carried from the origin to `at` and then taken about `origin`: for points
+ * p read about `at` (p = P − at), m(P) − origin = L·p + (m(at) − origin), with L the linear part. A reader
+ * that builds shapes about a point near them (see LocalFrame in ./part.ts) maps them with this, so only the
+ * translation m(at) − origin is rounded at the size of the coordinates, once, alike for the whole shape.
+ */
+export function carriedTo(m: Affine, at: readonly [number, number], origin: readonly [number, number]): Affine {
+  return [m[0], m[1], m[2], m[3], (m[0] * at[0] + m[2] * at[1] + m[4]) - origin[0], (m[1] * at[0] + m[3] * at[1] + m[5]) - origin[1]];
+}

@@ -14,8 +14,9 @@
  */
 import { InputError } from '../base/errors.js';
 import { type JoinIssue, type JoinPiece, joinPieces } from '../geometry/join.js';
-import type { Segment } from '../geometry/segments.js';
-import { type Affine, IDENTITY, composeAffine, transformSegment } from '../geometry/transform.js';
+import { loopBox, siteOrigin } from '../geometry/part.js';
+import { type Segment, ops } from '../geometry/segments.js';
+import { type Affine, IDENTITY, carriedTo, composeAffine, transformSegment } from '../geometry/transform.js';
 import type { LengthUnit } from '../base/units.js';
 import type { Drawing, JoinFinding, DrawingUnits, DrawnContour, HiddenReason, JoinGap } from './drawing.js';
 import { type DxfEntity, type DxfFile, type DxfLayer, findValue, parseDxfStructure } from './dxfStructure.js';
@@ -59,6 +60,8 @@ const IGNORED: Readonly<Record<string, string>> = {
 
 /** A piece before joining, with what the drawing says about it. */
 export interface DxfPiece extends JoinPiece {
+  /** A closed piece's segments held about the drawing's origin (Drawing.origin, DrawnContour.local). */
+  local?: Segment[];
   colour?: number | string;
   hidden?: HiddenReason;
   /** Block name for content of block references. */
@@ -82,7 +85,8 @@ export function readDxfFull(text: string, opts: ReadDxfOptions = {}): DxfReadRes
   const file = parseDxfStructure(tags, label);
   const units = resolveUnits(file, label, opts.units);
   const ignored: Record<string, number> = {};
-  const pieces = expand(file, label, ignored);
+  const held: Held = {};
+  const pieces = expand(file, label, ignored, held);
   const keys = pieces.map((p) => `${p.layer ?? ''}\u0000${p.hidden ?? ''}`);
   const joined = joinPieces(pieces.map((p, i) => ({ ...p, layer: keys[i] })), opts.joinTolerance);
   if (joined.dropped.length > 0) ignored['duplicate'] = (ignored['duplicate'] ?? 0) + joined.dropped.length;
@@ -100,6 +104,8 @@ export function readDxfFull(text: string, opts: ReadDxfOptions = {}): DxfReadRes
     if (first.colour !== undefined) out.colour = first.colour;
     if (first.block !== undefined) out.name = first.block;
     if (first.hidden) out.hidden = first.hidden;
+    // a closed piece taken whole keeps its local segments (a contour joined from pieces goes without)
+    if (c.pieces.length === 1 && first.local !== undefined && first.local.length === c.segments.length) out.local = first.local;
     return out;
   });
   const gaps: JoinGap[] = [];
@@ -123,6 +129,7 @@ export function readDxfFull(text: string, opts: ReadDxfOptions = {}): DxfReadRes
     }
   }
   const drawing: Drawing = { format: 'dxf', label, units, contours, ignored, join: { tolerance: joined.tolerance, gaps, findings } };
+  if (held.origin) drawing.origin = held.origin;
   return { drawing, issues: joined.issues, pieces };
 }
 
@@ -165,7 +172,25 @@ interface Frame {
   block?: string;
 }
 
-function expand(file: DxfFile, label: string, ignored: Record<string, number>): DxfPiece[] {
+/** The point closed pieces are also held about (undefined until the first closed piece decides; null: none). */
+interface Held { origin?: [number, number] | null }
+
+/**
+ * A closed piece's segments about the drawing's origin: rebuilt by `rebuild` from positions taken about a
+ * point near the piece (a polyline's bulge centres are made there) and mapped by m carried to that point;
+ * without a rebuild (circles, arcs, ellipses: their centres are given, not made) the segments moved by
+ * the origin. Undefined when the rebuilt segments differ in kind.
+ */
+function heldPiece(abs: Segment[], segs: Segment[], m: Affine, origin: [number, number], rebuild?: (at: readonly [number, number]) => Segment[]): Segment[] | undefined {
+  if (rebuild === undefined) return abs.map((sg) => ops(sg).translate(sg, -origin[0], -origin[1]));
+  const at = siteOrigin(loopBox({ segments: segs })) ?? [0, 0];
+  const again = rebuild(at);
+  if (again.length !== abs.length || again.some((sg, i) => sg.kind !== segs[i].kind)) return undefined;
+  const mt = carriedTo(m, at, origin);
+  return again.map((sg) => transformSegment(sg, mt));
+}
+
+function expand(file: DxfFile, label: string, ignored: Record<string, number>, held: Held): DxfPiece[] {
   const t = file.tags;
   const pieces: DxfPiece[] = [];
   const count = (key: string, k = 1) => { ignored[key] = (ignored[key] ?? 0) + k; };
@@ -188,12 +213,17 @@ function expand(file: DxfFile, label: string, ignored: Record<string, number>): 
       const at = `${where} (line ${ent.line})`;
       const source = fr.handlePath + (ent.handle || '?');
       const ocs = () => ocsMap(t, ent, at);
-      const emit = (segs: Segment[], closed: boolean, local: Affine) => {
+      const emit = (segs: Segment[], closed: boolean, local: Affine, rebuild?: (at: readonly [number, number]) => Segment[]) => {
         if (segs.length === 0) { count('zero-length'); return; }
         segCount += segs.length;
         if (segCount > MAX_SEGMENTS) throw new InputError(label, `more than ${MAX_SEGMENTS} segments after expanding block references (limit)`);
         const m = composeAffine(fr.m, local);
         const p: DxfPiece = { segments: segs.map((s) => transformSegment(s, m)), where, sources: [source], closed, layer: layerName, colour };
+        if (closed) {
+          // far from the origin the first closed piece fixes a point the drawing is also held about
+          if (held.origin === undefined) held.origin = siteOrigin(loopBox(p));
+          if (held.origin) p.local = heldPiece(p.segments, segs, m, held.origin, rebuild);
+        }
         if (hidden) p.hidden = hidden;
         if (fr.block !== undefined) p.block = fr.block;
         pieces.push(p);
@@ -234,7 +264,7 @@ function expand(file: DxfFile, label: string, ignored: Record<string, number>): 
             else if (c === 42 && bs.length > 0) bs[bs.length - 1] = val(t, k, at);
           }
           const closed = (num(t, ent, 70, 0, at) & 1) === 1;
-          emit(polylineSegments(xs, ys, bs, closed, at), closed, ocs());
+          emit(polylineSegments(xs, ys, bs, closed, at), closed, ocs(), (o) => polylineSegments(xs.map((x) => x - o[0]), ys.map((y) => y - o[1]), bs, closed, at));
           break;
         }
         case 'POLYLINE': {
@@ -248,7 +278,7 @@ function expand(file: DxfFile, label: string, ignored: Record<string, number>): 
             xs.push(num(t, v, 10, 0, vat)); ys.push(num(t, v, 20, 0, vat)); bs.push(flags & 8 ? 0 : num(t, v, 42, 0, vat));
           }
           const closed = (flags & 1) === 1;
-          emit(polylineSegments(xs, ys, bs, closed, at), closed, flags & 8 ? IDENTITY : ocs());
+          emit(polylineSegments(xs, ys, bs, closed, at), closed, flags & 8 ? IDENTITY : ocs(), (o) => polylineSegments(xs.map((x) => x - o[0]), ys.map((y) => y - o[1]), bs, closed, at));
           break;
         }
         case 'ELLIPSE': {

@@ -21,9 +21,9 @@
  * the bottom-left corner of the viewBox.
  */
 import { InputError } from '../base/errors.js';
-import { type Part, siteOrigin, unionBox } from '../geometry/part.js';
+import { type Part, loopBox, siteOrigin, unionBox } from '../geometry/part.js';
 import { type Box, type Segment, ops, segmentEnd, segmentStart } from '../geometry/segments.js';
-import { type Affine, IDENTITY, composeAffine, transformSegment } from '../geometry/transform.js';
+import { type Affine, IDENTITY, carriedTo, composeAffine, transformSegment } from '../geometry/transform.js';
 import type { LengthUnit } from '../base/units.js';
 import { type CascadedProperty, type Computed, type CssNode, StyleSheet, cascade, cssTransform, cssTransformOrigin } from './css.js';
 import type { Drawing, DrawingUnits, DrawnContour, HiddenReason } from './drawing.js';
@@ -740,9 +740,7 @@ function checkInvertible(m: Affine, where: string): void {
 /** Read an SVG document into a Drawing: every contour with its layer, name, colour and visibility; no roles decided. */
 /** Box of drawn contours (drawing units). */
 function contoursBox(contours: Segment[][]): Box {
-  let b: Box = [Infinity, Infinity, -Infinity, -Infinity];
-  for (const c of contours) for (const sg of c) b = unionBox(b, ops(sg).bbox(sg));
-  return b;
+  return contours.reduce<Box>((b, c) => unionBox(b, loopBox({ segments: c })), [Infinity, Infinity, -Infinity, -Infinity]);
 }
 
 /**
@@ -765,7 +763,7 @@ function heldAbout(el: XmlElement, tag: string, where: string, shapes: Contour[]
     positionShift = [0, 0];
   }
   if (again.length !== shapes.length) return undefined;
-  const mt: Affine = [m[0], m[1], m[2], m[3], (m[0] * at[0] + m[2] * at[1] + m[4]) - origin[0], (m[1] * at[0] + m[3] * at[1] + m[5]) - origin[1]];
+  const mt = carriedTo(m, at, origin);
   return again.map((c, k) => {
     const a = shapes[k];
     if (c.closed !== a.closed || c.segments.length !== a.segments.length || c.segments.some((sg, i) => sg.kind !== a.segments[i].kind)) return undefined;
