@@ -13,6 +13,7 @@ export function defineIntegrate(program: Command): void {
     .option('--tolerance <t>', 'relative tolerance: refine adaptively until the estimate is below it', numberArg('--tolerance'))
     .option('--max-triangles <n>', 'cap on triangles for --tolerance (default 400000)', intArg('--max-triangles'))
     .option('--time-limit <seconds>', 'cap on time for --tolerance (default 30)', numberArg('--time-limit'))
+    .option('--method <method>', 'auto (a polynomial integrand exactly from the boundary, anything else on a mesh) or mesh')
     .option('--degree <n>', 'Dunavant rule degree (a safe degree: 1, 2, 4, 5, 6, 8, 9, 10, 12, 13, 14, 17, 19)', intArg('--degree'))
     .option('--json', 'print JSON instead of a table'))
     .action((file: string, opts) => run(async () => (await import('./integrate.js')).integrate(file, opts)));

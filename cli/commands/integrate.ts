@@ -10,7 +10,7 @@ import { type DrawingFlags, readOptions } from './settings.js';
 
 export interface IntegrateFlags extends DrawingFlags {
   expr: string; exprUnit?: string; layer?: string; tolerance?: number; maxTriangles?: number; timeLimit?: number;
-  degree?: number; json?: boolean; format?: string; units?: string;
+  degree?: number; method?: string; json?: boolean; format?: string; units?: string;
 }
 
 export function integrate(file: string, flags: IntegrateFlags): string {

@@ -8,19 +8,24 @@ import { SAFE_DEGREES } from '../quadrature/rules.js';
 import type { MeasureOptions } from './measure.js';
 import type { IntegrationOptions } from './plate.js';
 
+/** 'auto' (the boundary where the integrands are polynomials) or 'mesh' (always the mesh). */
+function checkMethod(method: string | undefined): void {
+  if (method !== undefined && method !== 'auto' && method !== 'mesh') throw new OptionError('method', `expected auto or mesh, got "${method}"`);
+}
+
 export interface SectionOptionInput { degree?: number; levels?: number; method?: string; triangulation?: string }
 
 export function checkSectionOptions(o: SectionOptionInput): MeasureOptions {
   if (o.triangulation !== undefined && !TRIANGULATORS.includes(o.triangulation as Triangulator)) {
     throw new OptionError('triangulation', `expected one of ${TRIANGULATORS.join(', ')}, got "${o.triangulation}"`);
   }
-  if (o.method !== undefined && o.method !== 'auto' && o.method !== 'mesh') throw new OptionError('method', `expected auto or mesh, got "${o.method}"`);
+  checkMethod(o.method);
   if (o.levels !== undefined && !(Number.isInteger(o.levels) && o.levels >= 1 && o.levels <= 6)) throw new OptionError('levels', `expected a whole number from 1 to 6, got ${o.levels}`);
   if (o.degree !== undefined && !(Number.isInteger(o.degree) && o.degree >= 1 && o.degree <= 20)) throw new OptionError('degree', `expected a rule degree from 1 to 20, got ${o.degree}`);
   return { degree: o.degree, levels: o.levels, method: o.method as MeasureOptions['method'], triangulation: o.triangulation as Triangulator | undefined };
 }
 
-export interface IntegrationOptionInput { tolerance?: number; maxTriangles?: number; timeLimit?: number; degree?: number }
+export interface IntegrationOptionInput { tolerance?: number; maxTriangles?: number; timeLimit?: number; degree?: number; method?: string }
 
 /** Tolerance (relative, 0 to 1), triangle cap (100 to 2·10⁷), time cap (seconds, up to an hour), a safe degree. */
 export function checkIntegrationOptions(o: IntegrationOptionInput): IntegrationOptions {
@@ -28,5 +33,6 @@ export function checkIntegrationOptions(o: IntegrationOptionInput): IntegrationO
   if (o.maxTriangles !== undefined && !(o.maxTriangles >= 100 && o.maxTriangles <= 20_000_000)) throw new OptionError('maxTriangles', `expected 100 to 20000000, got ${o.maxTriangles}`);
   if (o.timeLimit !== undefined && !(o.timeLimit > 0 && o.timeLimit <= 3600)) throw new OptionError('timeLimit', `expected seconds between 0 and 3600, got ${o.timeLimit}`);
   if (o.degree !== undefined && !SAFE_DEGREES.includes(o.degree)) throw new OptionError('degree', `expected one of the safe degrees ${SAFE_DEGREES.join(', ')}, got ${o.degree}`);
-  return { tolerance: o.tolerance, maxTriangles: o.maxTriangles, maxMillis: o.timeLimit === undefined ? undefined : o.timeLimit * 1000, degree: o.degree };
+  checkMethod(o.method);
+  return { tolerance: o.tolerance, maxTriangles: o.maxTriangles, maxMillis: o.timeLimit === undefined ? undefined : o.timeLimit * 1000, degree: o.degree, method: o.method as IntegrationOptions['method'] };
 }

@@ -9,8 +9,8 @@
  */
 import { InputError, MethodError } from '../base/errors.js';
 import type { Mesh } from '../mesh/mesh.js';
-import { type ExprNode, compileExpression, polynomialDegree } from '../expr/index.js';
-import { kinkLines, smoothOnBox, type KinkLine } from '../expr/smooth.js';
+import { type CompiledExpression, type ExprNode, compileExpression, polynomialDegree } from '../expr/index.js';
+import { kinkLines, roundingOnBox, smoothOnBox, type KinkLine } from '../expr/smooth.js';
 import { type Part, partBox } from '../geometry/part.js';
 import { type DensityOrigin, type ResolvedLayer, fieldError } from '../model/plate.js';
 import { type MeshOptions, buildMesh, integrandChordLength, joinMeshes, localOrigin } from '../mesh/build.js';
@@ -20,7 +20,8 @@ import { DEFAULT_DEGREE } from '../quadrature/rules.js';
 import type { LengthUnit } from '../base/units.js';
 import { type AdaptiveResult, integrateAdaptive } from './adaptive.js';
 import { type StopReason, combineStops } from '../quadrature/stop.js';
-import { preparePart } from './measure.js';
+import { exactFigures, preparePart } from './measure.js';
+import { MAX_BOUNDARY_DEGREE, boundCoordinate, boundMul, boundaryPolynomialIntegrals } from '../properties/boundaryPolynomial.js';
 import { checkPoles } from './singular.js';
 import { cutAlongLines } from './kinks.js';
 
@@ -33,12 +34,17 @@ export interface IntegrationOptions extends MeshOptions {
   tolerance?: number;
   maxTriangles?: number;
   maxMillis?: number;
+  /**
+   * 'auto' (default): a polynomial integrand is integrated exactly from the boundary, anything else on the
+   * mesh; 'mesh': always the mesh.
+   */
+  method?: 'auto' | 'mesh';
 }
 
 export interface IntegrationMethod {
   degree: number;
   rulePoints: number;
-  /** 'exact boundary integrals': constant thickness and density, no mesh (src/analysis/boundaryMass.ts). */
+  /** 'exact boundary integrals': polynomial integrands, no mesh (src/analysis/boundaryMass.ts, integrateExpression). */
   estimator: 'uniform refinement' | 'adaptive refinement' | 'exact boundary integrals';
   /** 'levels' without a tolerance (mesh and one uniform refinement); otherwise why refinement stopped. */
   stopped: StopReason;
@@ -262,6 +268,10 @@ export function integrateExpression(input: Part, text: string, opts: Integration
   const expr = compileExpression(text, where);
   const ev = expr.evaluate;
   const part = preparePart(input);
+  if ((opts.method ?? 'auto') === 'auto') {
+    const exact = boundaryExpression(part, text, expr);
+    if (exact) return exact;
+  }
   const im = expr.isConstant ? null : meshForIntegrands(part, [expr.tree], opts);
   const mesh = im ? im.mesh : buildMesh(part, opts).mesh;
   if (!expr.isConstant) checkPoles(mesh, ev, where);
@@ -283,7 +293,14 @@ export function integrateExpression(input: Part, text: string, opts: Integration
   });
   // the estimate bounds the fine value's error by itself (see measureMass)
   const { values, errors } = propagateErrors(derive, r.fine, r.fine, r.estimate, r.scale);
-  const q = (k: keyof typeof values): Quantity => (r.errorIsBound ? { value: values[k], error: errors[k] } : { value: values[k], error: errors[k], errorIsBound: false });
+  const method = methodOf([r], opts.tolerance, [im?.cuts ?? 0]);
+  // a cap (method.stopped) is a fact of the method; the writers in src/output say it in words
+  return expressionResult(part, text, values, errors, r.errorIsBound, method);
+}
+
+/** The result of an integral from its derived values and estimates, with the warnings they call for. */
+function expressionResult(part: Part, text: string, values: Record<'integral' | 'momentX' | 'momentY' | 'pointX' | 'pointY', number>, errors: Record<string, number>, bound: boolean, method: IntegrationMethod): ExpressionResult {
+  const q = (k: keyof typeof values): Quantity => (bound ? { value: values[k], error: errors[k] } : { value: values[k], error: errors[k], errorIsBound: false });
   const warnings: IntegralWarning[] = [];
   const definedPoint = Math.abs(values.integral) > errors.integral && Number.isFinite(values.pointX) && Number.isFinite(values.pointY);
   if (!definedPoint) {
@@ -291,12 +308,50 @@ export function integrateExpression(input: Part, text: string, opts: Integration
   } else if (errors.integral > 1e-3 * Math.abs(values.integral)) {
     warnings.push({ code: 'integral-estimate-large', value: values.integral, estimate: errors.integral });
   }
-  const method = methodOf([r], opts.tolerance, [im?.cuts ?? 0]);
-  // a cap (method.stopped) is a fact of the method; the writers in src/output say it in words
   return {
     part: part.name, units: part.units, expression: text,
     integral: q('integral'), momentX: q('momentX'), momentY: q('momentY'),
     pointX: definedPoint ? q('pointX') : null, pointY: definedPoint ? q('pointY') : null,
     method, warnings,
   };
+}
+
+/**
+ * A polynomial integrand (degree ≤ MAX_BOUNDARY_DEGREE) integrated exactly from the boundary
+ * (src/properties/boundaryPolynomial.ts): ∫f, ∫f·x, ∫f·y about the local origin; the estimate is their
+ * round-off bound plus the representation allowance (Σδ·L times the integrand's bound). Null otherwise.
+ */
+function boundaryExpression(part: Part, text: string, expr: CompiledExpression): ExpressionResult | null {
+  const d = expr.polynomialDegree;
+  if (d === null || d + 1 > MAX_BOUNDARY_DEGREE) return null;
+  const started = performance.now();
+  const origin = localOrigin(part);
+  const [ox, oy] = origin;
+  const ev = expr.evaluate;
+  const r = boundaryPolynomialIntegrals(part, origin, {
+    count: 3, degree: d + 1,
+    fill(x, y, lx, ly, out) { const v = ev(x, y); out[0] = v; out[1] = v * lx; out[2] = v * ly; },
+    bounds(X, Y, posErr, out) {
+      // part coordinates ox + λ·lx: the position error, λ·lx's rounding and the sum's
+      const input = posErr + 2 * Number.EPSILON * (Math.max(Math.abs(ox), Math.abs(oy)) + Math.max(X, Y));
+      const f = roundingOnBox(expr.tree, [ox - X, oy - Y, ox + X, oy + Y], input);
+      if (!f) { out.fill(Infinity); return; }
+      const v = [f.max, f.error] as const, fx = boundMul(v, boundCoordinate(X, posErr)), fy = boundMul(v, boundCoordinate(Y, posErr));
+      out[0] = v[0]; out[1] = fx[0]; out[2] = fy[0];
+      out[3] = v[1]; out[4] = fx[1]; out[5] = fy[1];
+    },
+  });
+  const rep = exactFigures(part).representation?.shiftLength ?? 0;
+  const estimate = new Float64Array(3), scale = new Float64Array(3);
+  for (let k = 0; k < 3; k++) { estimate[k] = r.roundoff[k] + rep * r.bound[k]; scale[k] = Math.abs(r.sums[k]); }
+  const derive = (s: Float64Array) => ({
+    integral: s[0], momentX: s[1] + ox * s[0], momentY: s[2] + oy * s[0], pointX: ox + s[1] / s[0], pointY: oy + s[2] / s[0],
+  });
+  const { values, errors } = propagateErrors(derive, r.sums, r.sums, estimate, scale);
+  if (!Number.isFinite(values.integral) || !Number.isFinite(errors.integral)) return null;
+  return expressionResult(part, text, values, errors, true, {
+    degree: 0, rulePoints: 0, estimator: 'exact boundary integrals', stopped: 'exact', tolerance: null,
+    baseTriangles: 0, triangles: 0, rounds: 0, points: r.nodes, millis: performance.now() - started, minJacobianRatio: 1,
+    errorIsBound: true, unverifiedTriangles: 0, kinkCuts: 0,
+  });
 }

@@ -127,3 +127,4 @@ function powerDegree(base: ExprNode, exponent: ExprNode, whole: ExprNode): numbe
   const d = b * k;
   return d <= MAX_POLYNOMIAL_DEGREE ? d : null;
 }
+

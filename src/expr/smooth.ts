@@ -217,6 +217,85 @@ export function smoothOnBox(tree: ExprNode, box: Box4, linearCut: boolean): bool
 }
 
 /**
+ * An interval holding every value of the tree on the closed box (outward rounded), or null when the walk
+ * met something it cannot bound (a division by an interval holding zero, …). Used to prove a polynomial
+ * thickness or density positive over a part before taking the boundary path.
+ */
+export function rangeOnBox(tree: ExprNode, box: Box4): [number, number] | null {
+  const w: Walk = { box, linearCut: false, rough: false };
+  const v = iv(tree, w);
+  return w.rough || Number.isNaN(v[0]) || Number.isNaN(v[1]) ? null : [v[0], v[1]];
+}
+
+/**
+ * For a polynomial tree (+, −, ·, division by a constant, whole constant powers; functions of constants):
+ * the largest |value| on the closed box and a bound on the error of its floating-point evaluation anywhere
+ * in the box when x and y each come with an absolute error up to `inputError` — or null for anything else.
+ * Running error analysis over intervals: every operation's result is rounded within ε·|result| (IEEE 754
+ * arithmetic; Math.pow with a whole exponent n counted as 2n + 2 roundings), and errors in the operands
+ * propagate exactly as |a|·e_b + |b|·e_a + e_a·e_b for a product, e_a + e_b for a sum, (|a| + e_a)^n − |a|^n
+ * for a power (bounded by k·e_a·(|a| + e_a)^(k−1)), with |a| the largest on the box (interval arithmetic); a number or constant carries its own
+ * rounding ε·|v| (the decimal or exact value it stands for). The usual first-order analysis
+ * (N. J. Higham, Accuracy and Stability of Numerical Algorithms, 2nd ed., SIAM 2002, ch. 3, from memory)
+ * kept to all orders, so the bound holds however large the errors.
+ */
+export function roundingOnBox(tree: ExprNode, box: Box4, inputError: number): { max: number; error: number } | null {
+  const w: Walk = { box, linearCut: false, rough: false };
+  const eps = Number.EPSILON;
+  const big = (v: Iv) => Math.max(Math.abs(v[0]), Math.abs(v[1]));
+  const rec = (n: ExprNode): { v: Iv; e: number } | null => {
+    if (isConstantTree(n)) {
+      const v = interpret(n, 0, 0);
+      if (!Number.isFinite(v)) return null;
+      const ops = n.kind === 'number' || n.kind === 'constant' ? 1 : 4;
+      return { v: [v, v], e: ops * eps * Math.abs(v) };
+    }
+    switch (n.kind) {
+      case 'variable': return { v: n.name === 'x' ? [box[0], box[2]] : [box[1], box[3]], e: inputError };
+      case 'negate': { const a = rec(n.arg); return a && { v: [-a.v[1], -a.v[0]], e: a.e }; }
+      case 'binary': {
+        const a = rec(n.left);
+        if (!a) return null;
+        if (n.op === '^') return power(a, n.right);
+        const b = rec(n.right);
+        if (!b) return null;
+        let v: Iv, e: number;
+        switch (n.op) {
+          case '+': v = out(a.v[0] + b.v[0], a.v[1] + b.v[1]); e = a.e + b.e; break;
+          case '-': v = minusIv(a.v, b.v); e = a.e + b.e; break;
+          case '*': v = mulIv(a.v, b.v); e = big(a.v) * b.e + big(b.v) * a.e + a.e * b.e; break;
+          default: {
+            // division by a constant c (exact bound: |a/c − (a + e_a)/(c + e_c)| ≤ (|a|e_c + |c|e_a)/(|c|(|c| − e_c)))
+            const c = Math.abs(b.v[0]);
+            if (b.v[0] !== b.v[1] || !(c > b.e)) return null;
+            v = mulIv(a.v, out(1 / b.v[0], 1 / b.v[0]));
+            e = (big(a.v) * b.e + c * a.e) / (c * (c - b.e));
+          }
+        }
+        return { v, e: (e + eps * big(v)) * (1 + 1e-12) };
+      }
+      case 'call': {
+        if (n.name !== 'pow') return null;
+        const a = rec(n.args[0]!);
+        return a && power(a, n.args[1]!);
+      }
+      default: return null;
+    }
+  };
+  const power = (a: { v: Iv; e: number }, exponent: ExprNode): { v: Iv; e: number } | null => {
+    if (!isConstantTree(exponent)) return null;
+    const k = interpret(exponent, 0, 0);
+    if (!Number.isInteger(k) || k < 0) return null;
+    const v = powIv(a.v, k), m = big(a.v);
+    // (m + e)^k − m^k ≤ k·e·(m + e)^(k − 1), written without the cancellation
+    return { v, e: ((k === 0 ? 0 : k * a.e * (m + a.e) ** (k - 1)) + (2 * k + 2) * eps * big(v)) * (1 + 1e-12) };
+  };
+  const r = rec(tree);
+  if (!r || w.rough || !Number.isFinite(r.e) || !Number.isFinite(big(r.v))) return null;
+  return { max: big(r.v), error: r.e };
+}
+
+/**
  * The kink and jump lines of linear-argument nodes that cross the box (see the file comment), at most
  * MAX_KINK_LINES (null when there are more), without repeats.
  */

@@ -49,6 +49,11 @@ function rows(q: Record<MassKey, Quantity>, length: string, u: MassUnits): Quant
   });
 }
 
+/** The method line of a result integrated exactly from the boundary, `why` saying what made that possible. */
+function boundaryMethodText(why: string): string {
+  return `method: ${why}, so exact boundary integrals (Green's theorem, no mesh); estimate = round-off and representation allowance, propagated through each quantity`;
+}
+
 /** Plain-text mass report: whole part, then each layer when there are several, method, caution. */
 export function massText(r: MassResult, u: MassUnits): string {
   const out: string[] = [];
@@ -63,7 +68,7 @@ export function massText(r: MassResult, u: MassUnits): string {
   }
   const m = r.method;
   out.push('', m.estimator === 'exact boundary integrals'
-    ? `method: constant thickness and density, so exact boundary integrals of the area moments (no mesh); estimate = round-off and representation allowance, propagated through each quantity`
+    ? boundaryMethodText('thickness and density constant or polynomials in x and y')
     : `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on ${m.triangles} triangles (from ${m.baseTriangles}); ${stopText(m)}; estimate = refinement and companion-rule differences, propagated through each quantity, + round-off allowance`);
   if (!m.errorIsBound) out.push(`note: ${notBoundText(m)}`);
   out.push('', MASS_CAUTION);
@@ -103,7 +108,9 @@ export function integralText(r: ExpressionResult, fUnit?: string): string {
   const m = r.method;
   const out = [
     `${r.part} — f(x, y) = ${r.expression}; x, y in ${L}`, '', renderRows(rowsOut), '',
-    `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on ${m.triangles} triangles (from ${m.baseTriangles}); ${stopText(m)}`,
+    m.estimator === 'exact boundary integrals'
+      ? boundaryMethodText('a polynomial integrand')
+      : `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on ${m.triangles} triangles (from ${m.baseTriangles}); ${stopText(m)}`,
   ];
   if (!m.errorIsBound) out.push(`note: ${notBoundText(m)}`);
   for (const w of warningsOf(r)) out.push(`warning: ${w}`);

@@ -56,12 +56,21 @@ describe('analyzePart', () => {
     expect(r.cautions).toEqual(['geometry', 'mass']);
   });
 
-  it('a straight part with a plate: the section needs no mesh; mass meshes once', () => {
-    const [model] = readModels(JSON.stringify({ part: 's', outline: { rectangle: { corner: [0, 0], size: [100, 50] } }, thickness: 5, density: '7850 - 0*x' }), 's.json');
+  it('a straight part with a plate: the section needs no mesh; a non-polynomial density meshes once, a polynomial one not at all', () => {
+    const plate = (density: string) => readModels(JSON.stringify({ part: 's', outline: { rectangle: { corner: [0, 0], size: [100, 50] } }, thickness: 5, density }), 's.json')[0];
     calls.validate = 0; calls.mesh = 0;
-    analyzePart(model, { mass: 'required', fabrication: 'auto' });
+    analyzePart(plate('7850 + 0*sin(x)'), { mass: 'required', fabrication: 'auto' });
     expect(calls.validate).toBe(1);
     expect(calls.mesh).toBe(1);
+    calls.validate = 0; calls.mesh = 0;
+    const r = analyzePart(plate('7850 - 0.5*x'), { mass: 'required', fabrication: 'auto' });
+    expect(calls.validate).toBe(1);
+    expect(calls.mesh).toBe(0);
+    expect(r.mass!.method.estimator).toBe('exact boundary integrals');
+    // ∫∫ 5·(7850 − 0.5x) dA over [0, 100] × [0, 50] mm = 5·50·(7850·100 − 0.25·100²) mm³ (elementary)
+    const m = 5 * 50 * (7850 * 100 - 0.25 * 100 * 100) * 1e-9;
+    expect(Math.abs(r.mass!.quantities.mass.value - m)).toBeLessThanOrEqual(r.mass!.quantities.mass.error);
+    expect(Math.abs(r.mass!.quantities.mass.value - m) / m).toBeLessThan(1e-14);
   });
 
   it('warnings are codes with parameters, not sentences', () => {

@@ -50,6 +50,22 @@ describe('platewise integrate', () => {
     expect(JSON.parse(s.stdout).quantities.integral.errorIsBound).toBeUndefined();
   });
 
+  it('a polynomial integrand comes exactly from the boundary; --method mesh forces the mesh; both agree within their estimates', () => {
+    const args = ['integrate', '-', '--format', 'part-json', '--expr', '9.81*(4000 - y)/1000 + 0.001*x*y', '--json'];
+    const b = JSON.parse(platewise(args, gate).stdout), m = JSON.parse(platewise([...args, '--method', 'mesh'], gate).stdout);
+    expect(b.method.estimator).toBe('exact boundary integrals');
+    expect(b.method.triangles).toBe(0);
+    expect(m.method.triangles).toBeGreaterThan(0);
+    for (const k of ['integral', 'firstMomentX', 'firstMomentY']) {
+      expect(Math.abs(b.quantities[k].value - m.quantities[k].value), k).toBeLessThanOrEqual(b.quantities[k].error + m.quantities[k].error);
+    }
+    const t = platewise(args.slice(0, -1), gate);
+    expect(t.stdout).toMatch(/^method: a polynomial integrand, so exact boundary integrals \(Green's theorem, no mesh\)/m);
+    const bad = platewise([...args, '--method', 'grid'], gate);
+    expect(bad.status).toBe(2);
+    expect(bad.stderr).toBe('platewise: --method: expected auto or mesh, got "grid"\n');
+  });
+
   it('bad input: one line, exit 2', () => {
     const r = platewise(['integrate', '-', '--format', 'part-json', '--expr', 'log(x - 1000)'], gate);
     expect(r.status).toBe(2);

@@ -6,7 +6,7 @@ import { applyAffine } from './affine.js';
 import { angleInClosedSweep, angleInSweep } from './angles.js';
 import { type EllipticalArcSegment, transformEllipse } from './ellipticalArc.js';
 import type { LineSegment } from './line.js';
-import { trigArcMoments } from './moments.js';
+import { trigArcMoments, trigArcNodes } from './moments.js';
 import { MAX_ARC_COMMAND_SWEEP, type Crossing, type Out2, type PathCommand, type SegmentOps } from './types.js';
 
 export interface ArcSegment {
@@ -159,6 +159,7 @@ export const arcOps: SegmentOps<ArcSegment, ArcSegment | EllipticalArcSegment> =
   // [r² (a1 − a0) + cx r (sin a1 − sin a0) + cy r (cos a0 − cos a1)] / 2.
   // the circle x = cx + r cos θ, y = cy + r sin θ as a trigonometric arc (closed form, kinds/moments.ts)
   moments: (s, ox, oy, out) => trigArcMoments(s.cx - ox, s.cy - oy, s.r, 0, 0, s.r, s.a0, s.a1, out),
+  greenNodes: (s, ox, oy, degree, visit) => trigArcNodes(s.cx - ox, s.cy - oy, s.r, 0, 0, s.r, s.a0, s.a1, degree, visit),
   areaTerm(s) {
     const { cx, cy, r, a0, a1 } = s;
     return (r * r * (a1 - a0) + cx * r * (Math.sin(a1) - Math.sin(a0)) + cy * r * (Math.cos(a0) - Math.cos(a1))) / 2;

@@ -8,7 +8,7 @@ import { adaptiveGaussLegendre } from '../../numeric/gaussLegendre.js';
 import { quadraticRoots } from '../../numeric/roots.js';
 import { applyAffine, isIdentity } from './affine.js';
 import { angleBetween, areaWeights, bezierArea, bezierCommand, bezierDeviation, bezierSubCurve, bisectCrossingX, inOpenUnit } from './bezier.js';
-import { bezierMoments } from './moments.js';
+import { bezierMoments, bezierNodes } from './moments.js';
 import type { Affine, Out2, SegmentOps } from './types.js';
 
 export interface CubicSegment {
@@ -107,6 +107,11 @@ export const cubicOps: SegmentOps<CubicSegment> = {
     LX[0] = s.x0 - ox; LX[1] = s.x1 - ox; LX[2] = s.x2 - ox; LX[3] = s.x3 - ox;
     LY[0] = s.y0 - oy; LY[1] = s.y1 - oy; LY[2] = s.y2 - oy; LY[3] = s.y3 - oy;
     bezierMoments(LX, LY, out);
+  },
+  greenNodes(s, ox, oy, degree, visit) {
+    LX[0] = s.x0 - ox; LX[1] = s.x1 - ox; LX[2] = s.x2 - ox; LX[3] = s.x3 - ox;
+    LY[0] = s.y0 - oy; LY[1] = s.y1 - oy; LY[2] = s.y2 - oy; LY[3] = s.y3 - oy;
+    bezierNodes(LX, LY, degree, visit);
   },
   areaTerm: (s) => bezierArea(xsOf(s), ysOf(s), W3),
   // Between inflections (zeros of B' × B'', a quadratic) the tangent angle is monotone; there the turning is

@@ -8,7 +8,7 @@
 import { adaptiveGaussLegendre } from '../../numeric/gaussLegendre.js';
 import { applyAffine, isIdentity } from './affine.js';
 import { angleInSweep } from './angles.js';
-import { trigArcMoments } from './moments.js';
+import { trigArcMoments, trigArcNodes } from './moments.js';
 import { MAX_ARC_COMMAND_SWEEP, type Affine, type Out2, type PathCommand, type SegmentOps } from './types.js';
 
 export interface EllipticalArcSegment {
@@ -130,6 +130,10 @@ export const ellipticalArcOps: SegmentOps<EllipticalArcSegment> = {
   moments(s, ox, oy, out) {
     const c = Math.cos(s.phi), n = Math.sin(s.phi);
     trigArcMoments(s.cx - ox, s.cy - oy, s.rx * c, -s.ry * n, s.rx * n, s.ry * c, s.t0, s.t1, out);
+  },
+  greenNodes(s, ox, oy, degree, visit) {
+    const c = Math.cos(s.phi), n = Math.sin(s.phi);
+    trigArcNodes(s.cx - ox, s.cy - oy, s.rx * c, -s.ry * n, s.rx * n, s.ry * c, s.t0, s.t1, degree, visit);
   },
   // With x = cx + U(θ), y = cy + V(θ), (U, V) = R(phi)(rx cos θ, ry sin θ):
   // x dy − y dx = (U dV − V dU) + cx dV − cy dU and U dV − V dU = rx·ry dθ (a rotation keeps the cross

@@ -1,5 +1,5 @@
 /** Straight line segment from (x0, y0) to (x1, y1). */
-import { lineMoments } from './moments.js';
+import { lineMoments, lineNodes } from './moments.js';
 import type { Crossing, SegmentOps } from './types.js';
 
 export interface LineSegment {
@@ -73,6 +73,7 @@ export const lineOps: SegmentOps<LineSegment> = {
   length: (s) => Math.hypot(s.x1 - s.x0, s.y1 - s.y0),
   bbox: (s) => [Math.min(s.x0, s.x1), Math.min(s.y0, s.y1), Math.max(s.x0, s.x1), Math.max(s.y0, s.y1)],
   moments: (s, ox, oy, out) => lineMoments(s.x0 - ox, s.y0 - oy, s.x1 - ox, s.y1 - oy, out),
+  greenNodes: (s, ox, oy, degree, visit) => lineNodes(s.x0 - ox, s.y0 - oy, s.x1 - ox, s.y1 - oy, degree, visit),
   areaTerm: (s) => (s.x0 * s.y1 - s.x1 * s.y0) / 2,
   turning: () => 0,
   deviation: () => 0,

@@ -171,3 +171,114 @@ export function bezierMoments(xs: ArrayLike<number>, ys: ArrayLike<number>, out:
   }
 }
 const BX = new Float64Array(8), BY = new Float64Array(8);
+
+// ---------------------------------------------------------------- exact rules for polynomial integrands
+
+/**
+ * What an exact boundary rule hands out, node by node (SegmentOps.greenNodes): the node (lx, ly) in local
+ * coordinates, its weight w, a magnitude wMag ≥ |w| such that the rounding of w is at most NODE_ULPS·ε·wMag,
+ * and posErr ≥ the rounding of the node's position (absolute, in each coordinate).
+ */
+export type GreenVisitor = (lx: number, ly: number, w: number, wMag: number, posErr: number) => void;
+/** Roundings of a node's weight relative to its wMag (see GreenVisitor). */
+export const NODE_ULPS = 32;
+const EPS = Number.EPSILON;
+
+/**
+ * Straight segment (local coordinates): Gauss–Legendre with ⌈(D + 1)/2⌉ points. Along the segment
+ * x y' − y x' = c = x0·Δy − y0·Δx is constant and P(x(t), y(t)) has degree ≤ D in t, so the rule is exact
+ * for every P of degree ≤ D. c is rounded relative to |x0||Δy| + |y0||Δx| (3 roundings), a node relative to
+ * the largest coordinate R (the node t itself carries a few ε).
+ */
+export function lineNodes(x0: number, y0: number, x1: number, y1: number, degree: number, visit: GreenVisitor): void {
+  const { t, w } = unitGaussLegendre(Math.max(1, Math.ceil((degree + 1) / 2)));
+  const dx = x1 - x0, dy = y1 - y0;
+  const c = x0 * dy - y0 * dx, cm = Math.abs(x0) * Math.abs(dy) + Math.abs(y0) * Math.abs(dx);
+  const posErr = 16 * EPS * Math.max(Math.abs(x0), Math.abs(x1), Math.abs(y0), Math.abs(y1));
+  for (let i = 0; i < t.length; i++) visit(x0 + t[i] * dx, y0 + t[i] * dy, w[i] * c, w[i] * cm, posErr);
+}
+
+/**
+ * Bézier curve of degree n (control points in local coordinates): Gauss–Legendre with ⌈(nD + 2n − 1)/2⌉
+ * points. P(x(t), y(t)) has degree ≤ nD and x y' − y x' degree ≤ 2n − 2, so the product (degree ≤
+ * nD + 2n − 2) is integrated exactly. The point comes from de Casteljau on the control points (rounded
+ * relative to their largest coordinate R, about 2ε per level), the derivative from de Casteljau on the
+ * control differences (the hodograph; rounded relative to their largest size), so the weight's rounding is
+ * relative to R·((n + 1)(|x'| + |y'|) + n²(ΔX + ΔY)).
+ */
+export function bezierNodes(xs: ArrayLike<number>, ys: ArrayLike<number>, degree: number, visit: GreenVisitor): void {
+  const n = xs.length - 1;
+  const { t, w } = unitGaussLegendre(Math.max(1, Math.ceil((n * degree + 2 * n - 1) / 2)));
+  let R = 0, DX = 0, DY = 0;
+  for (let i = 0; i <= n; i++) R = Math.max(R, Math.abs(xs[i]), Math.abs(ys[i]));
+  for (let i = 0; i < n; i++) { DX = Math.max(DX, Math.abs(xs[i + 1] - xs[i])); DY = Math.max(DY, Math.abs(ys[i + 1] - ys[i])); }
+  const posErr = 16 * n * EPS * R;
+  for (let i = 0; i < t.length; i++) {
+    const u = t[i], v = 1 - u;
+    for (let j = 0; j <= n; j++) { BX[j] = xs[j]; BY[j] = ys[j]; }
+    for (let j = 0; j < n; j++) { HX[j] = xs[j + 1] - xs[j]; HY[j] = ys[j + 1] - ys[j]; }
+    for (let r = n; r > 0; r--) for (let j = 0; j < r; j++) { BX[j] = v * BX[j] + u * BX[j + 1]; BY[j] = v * BY[j] + u * BY[j + 1]; }
+    for (let r = n - 1; r > 0; r--) for (let j = 0; j < r; j++) { HX[j] = v * HX[j] + u * HX[j + 1]; HY[j] = v * HY[j] + u * HY[j + 1]; }
+    const x = BX[0], y = BY[0], dx = n * HX[0], dy = n * HY[0];
+    const mag = R * ((n + 1) * (Math.abs(dx) + Math.abs(dy)) + n * n * (DX + DY));
+    visit(x, y, w[i] * (x * dy - y * dx), w[i] * mag, posErr);
+  }
+}
+const HX = new Float64Array(8), HY = new Float64Array(8);
+
+/** cos(2πk/N), k = 0 … N − 1, per N. */
+const COS_TABLES = new Map<number, Float64Array>();
+function cosTable(N: number): Float64Array {
+  let c = COS_TABLES.get(N);
+  if (!c) {
+    c = new Float64Array(N);
+    for (let k = 0; k < N; k++) c[k] = Math.cos((2 * Math.PI * k) / N);
+    COS_TABLES.set(N, c);
+  }
+  return c;
+}
+let SJ = new Float64Array(64);
+
+/**
+ * Trigonometric arc x = cx + a cos θ + b sin θ, y = cy + d cos θ + e sin θ (local coordinates), θ from th0 to
+ * th1: an exact rule for ∫ P(x, y)·(x y' − y x') dθ, P of degree ≤ D.
+ *
+ * Derivation. P(x(θ), y(θ)) is a trigonometric polynomial of degree ≤ D in θ and x y' − y x' =
+ * w0 + w1 cos θ + w2 sin θ (kinds/moments.ts, trigArcMoments), so the integrand T(θ) has degree ≤ M = D + 1.
+ * N = 2M + 1 equally spaced samples θ_i = m + 2πi/N (m the mid-angle) give its Fourier coefficients exactly
+ * (no aliasing below N/2): a_0 = ΣT_i/N, a_j = 2ΣT_i cos jθ_i/N, b_j = 2ΣT_i sin jθ_i/N; and with the
+ * half-sweep h, ∫cos jθ = (2/j) cos jm sin jh, ∫sin jθ = (2/j) sin jm sin jh over [th0, th1]. Collecting the
+ * samples:
+ *   ∫T dθ = Σ_i T_i ω_i,  ω_i = (1/N)·[2h + 4 Σ_{j=1..M} (sin jh / j) cos(2πij/N)]
+ * (the discrete Fourier transform of a trigonometric polynomial, and the integrals of cos and sin: common
+ * practice, no source). The samples go round the whole ellipse, not only the arc: P is evaluated on it.
+ *
+ * Rounding: with Ω = (2|h| + 4Σ|sin jh|/j)/N ≥ |ω_i|, ω_i is within ε·[(M + 3)Ω + (4/N)(M|h| + 1 + ln M) +
+ * ((2 + 4M)/N)·T] (the sums; sin jh with jh rounded; |∂ω_i/∂h| ≤ (2 + 4M)/N times the rounding of h, at most
+ * ε·T/2 with T = |th0| + |th1|). The sample angle is within ε(|m| + 8) of m + 2πi/N (m itself within ε·T/2),
+ * which moves the point by at most that times |a| + |b| (|d| + |e|) and the factor w0 + w1 cos + w2 sin by
+ * that times its magnitude W = |ae| + |bd| + |cx·e| + |cy·b| + |cy·a| + |cx·d|, which also bounds the factor's
+ * own rounding (6ε). So |δw_i| ≤ ε·W·[(M + 17 + |m|)Ω + (4/N)(M|h| + 1 + ln M) + ((2 + 4M)/N)·T], and
+ * wMag = W·(Ω + [ … ]/NODE_ULPS) is both ≥ |w_i| and ≥ |δw_i|/(NODE_ULPS·ε).
+ */
+export function trigArcNodes(cx: number, cy: number, a: number, b: number, d: number, e: number, th0: number, th1: number, degree: number, visit: GreenVisitor): void {
+  const M = degree + 1, N = 2 * M + 1;
+  const h = (th1 - th0) / 2, m = (th0 + th1) / 2;
+  if (SJ.length < M + 1) SJ = new Float64Array(2 * M + 2);
+  let sAbs = 0;
+  for (let j = 1; j <= M; j++) { SJ[j] = Math.sin(j * h) / j; sAbs += Math.abs(SJ[j]); }
+  const cos = cosTable(N);
+  const w0 = a * e - b * d, w1 = cx * e - cy * b, w2 = cy * a - cx * d;
+  const T = Math.abs(th0) + Math.abs(th1);
+  const W = Math.abs(a * e) + Math.abs(b * d) + Math.abs(cx * e) + Math.abs(cy * b) + Math.abs(cy * a) + Math.abs(cx * d);
+  const omega = (2 * Math.abs(h) + 4 * sAbs) / N;
+  const wMag = W * (omega + ((M + 17 + Math.abs(m)) * omega + (4 * (M * Math.abs(h) + 1 + Math.log(M)) + (2 + 4 * M) * T) / N) / NODE_ULPS);
+  const posErr = 4 * EPS * (Math.abs(cx) + Math.abs(cy) + Math.abs(a) + Math.abs(b) + Math.abs(d) + Math.abs(e)) * (4 + T);
+  for (let i = 0; i < N; i++) {
+    let s = 2 * h;
+    for (let j = 1; j <= M; j++) s += 4 * SJ[j] * cos[(i * j) % N];
+    const th = m + (2 * Math.PI * i) / N;
+    const C = Math.cos(th), S = Math.sin(th);
+    visit(cx + a * C + b * S, cy + d * C + e * S, (s / N) * (w0 + w1 * C + w2 * S), wMag, posErr);
+  }
+}

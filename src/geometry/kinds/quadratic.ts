@@ -6,7 +6,7 @@
 import { adaptiveGaussLegendre } from '../../numeric/gaussLegendre.js';
 import { applyAffine, isIdentity } from './affine.js';
 import { MARGIN, angleBetween, areaWeights, bezierArea, bezierCommand, bezierDeviation, bezierSubCurve, bisectCrossingX, inOpenUnit } from './bezier.js';
-import { bezierMoments } from './moments.js';
+import { bezierMoments, bezierNodes } from './moments.js';
 import type { Affine, Out2, SegmentOps } from './types.js';
 
 export interface QuadraticSegment {
@@ -80,6 +80,11 @@ export const quadraticOps: SegmentOps<QuadraticSegment> = {
     LX[0] = s.x0 - ox; LX[1] = s.x1 - ox; LX[2] = s.x2 - ox;
     LY[0] = s.y0 - oy; LY[1] = s.y1 - oy; LY[2] = s.y2 - oy;
     bezierMoments(LX, LY, out);
+  },
+  greenNodes(s, ox, oy, degree, visit) {
+    LX[0] = s.x0 - ox; LX[1] = s.x1 - ox; LX[2] = s.x2 - ox;
+    LY[0] = s.y0 - oy; LY[1] = s.y1 - oy; LY[2] = s.y2 - oy;
+    bezierNodes(LX, LY, degree, visit);
   },
   areaTerm: (s) => bezierArea(xsOf(s), ysOf(s), W2),
   // The derivative runs along a straight segment in vector space, so its direction turns monotonically:

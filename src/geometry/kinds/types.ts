@@ -6,6 +6,8 @@
  * every kind file imports this one).
  */
 
+import type { GreenVisitor } from './moments.js';
+
 /** Output pair written by point/derivative (no allocation in hot loops). */
 export type Out2 = { 0: number; 1: number };
 
@@ -118,4 +120,12 @@ export interface SegmentOps<S extends { kind: string }, Image extends { kind: st
    * kinds/moments.ts) — and bounds on their round-off, in units of ε, to out[6..11]. Exact: closed forms on lines and arcs, Gauss–Legendre of exact order on Béziers.
    */
   moments(s: S, ox: number, oy: number, out: Float64Array): void;
+  /**
+   * An exact rule for ∫ P(x, y)·(x dy − y dx) along the segment, for every polynomial P of total degree ≤
+   * `degree` in local coordinates x = X − ox, y = Y − oy: calls `visit` once per node with the node, its
+   * weight and their rounding bounds (kinds/moments.ts, GreenVisitor). Gauss–Legendre of exact order on
+   * lines and Béziers, equally spaced samples of the trigonometric polynomial on arcs. The boundary path for
+   * polynomial integrands (src/properties/boundaryPolynomial.ts) is built on it.
+   */
+  greenNodes(s: S, ox: number, oy: number, degree: number, visit: GreenVisitor): void;
 }
