@@ -1,10 +1,11 @@
 /**
  * Convergence plot: how much a quantity changes from one uniform refinement to the next, against the
- * number of triangles, on log–log axes (inline SVG built with svg.js on svgdom).
+ * number of triangles, on log–log axes (inline SVG, src/output/svgBuild.ts).
  */
 import type { LevelResult } from '../analysis/measure.js';
 import type { SectionKey } from '../properties/quantities.js';
-import { FONT_FAMILY, loadSvgStack, PALETTE } from './draw.js';
+import { FONT_FAMILY, PALETTE } from './draw.js';
+import { svgRoot } from './svgBuild.js';
 import { num } from './pathData.js';
 
 export interface ConvergencePoint { triangles: number; change: number }
@@ -26,9 +27,8 @@ function decadeLabel(e: number): string {
  * markers on the bottom edge and said so in the caption.
  */
 export async function convergencePlot(points: readonly ConvergencePoint[], title: string, unit: string, key: string): Promise<string> {
-  const { SVG } = await loadSvgStack();
   const W = 330, H = 240, L = 58, R = 14, T = 30, B = 44;
-  const svg = SVG().attr({ width: W, height: H, viewBox: `0 0 ${W} ${H}`, 'data-role': 'convergence', 'data-key': key, role: 'img', 'font-family': FONT_FAMILY });
+  const svg = svgRoot().attr({ width: W, height: H, viewBox: `0 0 ${W} ${H}`, 'data-role': 'convergence', 'data-key': key, role: 'img', 'font-family': FONT_FAMILY });
   svg.element('title').words(`${title}: change between refinement levels against triangles (log–log)`);
   svg.rect(W, H).attr({ fill: PALETTE.paper });
   const pos = points.filter((p) => p.change > 0);

@@ -1,6 +1,5 @@
 /**
- * SVG drawings of measured parts, built with svg.js on svgdom (both loaded on first use only, so commands
- * that do not draw never pay for them).
+ * SVG drawings of measured parts, built with our small SVG builder (src/output/svgBuild.ts).
  *
  * A drawing shows: the material filled and cut-outs clear, every loop stroked with exact curve commands;
  * the centroid; both principal axes through it with the I1 angle; the bounding box with its width and
@@ -12,7 +11,7 @@
  * `data-role="centroid"` with data-x/data-y in part units and a translate(X Y) in drawing units; the root
  * carries data-scale/data-ox/data-oy (X = ox + scale·x, Y = oy − scale·y).
  */
-import type { Container, Svg } from '@svgdotjs/svg.js';
+import { type SvgEl, svgRoot } from './svgBuild.js';
 import type { SectionResult } from '../analysis/measure.js';
 import { InputError, OptionError } from '../base/errors.js';
 import { type Mesh, triangleCount } from '../mesh/mesh.js';
@@ -55,20 +54,6 @@ const HALO = 'font-size:12px;paint-order:stroke;stroke:#ffffff;stroke-width:3px'
 
 export const FONT_FAMILY = 'system-ui, -apple-system, "Segoe UI", Roboto, Helvetica, Arial, sans-serif';
 
-type SvgJs = typeof import('@svgdotjs/svg.js');
-let stack: Promise<SvgJs> | undefined;
-
-/** Load svgdom and svg.js once, and bind svg.js to svgdom's window. */
-export function loadSvgStack(): Promise<SvgJs> {
-  stack ??= (async () => {
-    const { createSVGWindow } = await import('svgdom');
-    const svgjs = await import('@svgdotjs/svg.js');
-    const window = createSVGWindow();
-    svgjs.registerWindow(window, window.document);
-    return svgjs;
-  })();
-  return stack;
-}
 
 /** A round length (1, 2 or 5 × 10^n) near `target`. */
 export function roundLength(target: number): number {
@@ -121,7 +106,7 @@ export function shadeValues(r: SectionResult, shade: string | undefined, degree?
  * Draw one part into `root` at vertical offset `top`; returns the drawing's width and height.
  * All ids are avoided (data-role instead) so several drawings can share one sheet.
  */
-function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: number): { width: number; height: number; map: DrawingMap } {
+function drawInto(root: SvgEl, r: SectionResult, opts: DrawOptions, top: number): { width: number; height: number; map: DrawingMap } {
   const q = r.quantities;
   const part = r.geometry.part;
   const u = r.units;
@@ -302,7 +287,7 @@ function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: num
   return { width, height, map: m };
 }
 
-function finish(svg: Svg, width: number, height: number, title: string): string {
+function finish(svg: SvgEl, width: number, height: number, title: string): string {
   svg.attr({ width: num(width), height: num(height), viewBox: `0 0 ${num(width)} ${num(height)}`, 'font-family': FONT_FAMILY });
   svg.element('title').words(title);
   return svg.svg();
@@ -310,8 +295,7 @@ function finish(svg: Svg, width: number, height: number, title: string): string 
 
 /** One part, one drawing (SVG text). */
 export async function drawPart(r: SectionResult, opts: DrawOptions = {}): Promise<string> {
-  const { SVG } = await loadSvgStack();
-  const svg = SVG();
+  const svg = svgRoot();
   svg.rect('100%', '100%').attr({ fill: PALETTE.paper, 'data-role': 'paper' });
   const { width, height, map } = drawInto(svg, r, opts, 0);
   svg.attr({ 'data-scale': num(map.k), 'data-ox': num(map.ox), 'data-oy': num(map.oy) });
@@ -320,8 +304,7 @@ export async function drawPart(r: SectionResult, opts: DrawOptions = {}): Promis
 
 /** Several parts stacked on one sheet (SVG text). */
 export async function drawSheet(results: SectionResult[], opts: DrawOptions = {}): Promise<string> {
-  const { SVG } = await loadSvgStack();
-  const svg = SVG();
+  const svg = svgRoot();
   svg.rect('100%', '100%').attr({ fill: PALETTE.paper, 'data-role': 'paper' });
   let top = 0, width = 0;
   for (const r of results) {
