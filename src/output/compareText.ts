@@ -6,7 +6,7 @@
  * it came from), verdict. CSV: one record per stated value, numbers written to round-trip (RFC 4180).
  */
 import { formatCsv } from '../base/csv.js';
-import { formatError, formatNumber } from './text.js';
+import { formatError, formatNumber, formatValue } from './text.js';
 import type { Comparison, ComparisonRow } from '../qa/verdict.js';
 
 export interface ComparisonMeta {
@@ -83,7 +83,7 @@ export function comparisonText(c: Comparison, meta: ComparisonMeta): string {
   const table = c.rows.map((r) => [
     r.quantity,
     statedText(r),
-    r.computed === null ? '—' : `${withUnit(formatNumber(r.computed), r.unit)} ± ${formatError(r.error ?? NaN)}`,
+    r.computed === null ? '—' : `${withUnit(formatValue(r.computed, r.error ?? NaN), r.unit)} ± ${formatError(r.error ?? NaN)}`,
     r.difference === null ? '—' : formatNumber(r.difference, 4),
     `${formatNumber(r.tolerance, 4)}${TOLERANCE_MARK[r.toleranceSource]}`,
     VERDICT_WORD[r.verdict],
