@@ -44,14 +44,14 @@ export async function convergencePlot(points: readonly ConvergencePoint[], title
   const ystep = Math.max(1, Math.ceil((y1 - y0) / 6));
   for (let e = x0; e <= x1; e++) {
     grid.line(px(e), T, px(e), H - B);
-    labels.plain(decadeLabel(e)).attr({ x: px(e), y: H - B + 14, 'text-anchor': 'middle' });
+    labels.plain(decadeLabel(e)).attr({ x: px(e), y: H - B + 19, 'text-anchor': 'middle' }); // below the corner's y label
   }
   for (let e = y0; e <= y1; e += ystep) {
     grid.line(L, py(e), W - R, py(e));
     labels.plain(decadeLabel(e)).attr({ x: L - 5, y: py(e) + 4, 'text-anchor': 'end' });
   }
   svg.rect(W - L - R, H - T - B).move(L, T).attr({ fill: 'none', stroke: PALETTE.ink, 'stroke-width': 0.9 });
-  labels.plain('triangles').attr({ x: (L + W - R) / 2, y: H - 8, 'text-anchor': 'middle' });
+  labels.plain('triangles').attr({ x: (L + W - R) / 2, y: H - 6, 'text-anchor': 'middle' });
   svg.plain(`${title}: |change| per refinement, ${unit}`).attr({ x: L, y: 18, style: `font-size:12px;font-weight:600`, fill: PALETTE.ink });
   const line = pos.map((p, i) => `${i === 0 ? 'M' : 'L'}${num(px(Math.log10(p.triangles)))} ${num(py(Math.log10(p.change)))}`).join('');
   if (pos.length > 1) svg.path(line).attr({ fill: 'none', stroke: PALETTE.meshLine, 'stroke-width': 1.6 });

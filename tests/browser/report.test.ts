@@ -6,17 +6,15 @@
  * in test-artifacts/browser/ (git-ignored). Needs the dist build (tsc) and Chromium (.ci/run installs it).
  */
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { type BrowserContext, chromium } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
+import { ARTIFACTS, useChromium } from './chromium.js';
+
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const CLI = join(ROOT, 'dist', 'cli', 'main.js');
-const CHROMIUM = '/usr/bin/chromium';
-const ARTIFACTS = join(ROOT, 'test-artifacts', 'browser');
 
 function platewise(args: string[]) {
   const r = spawnSync(process.execPath, [CLI, ...args], { cwd: ROOT, encoding: 'utf8' });
@@ -30,25 +28,7 @@ const CASES = [
   { sample: 'samples/bracket.svg', cutouts: 5 },
 ];
 
-let profile: string;
-let ctx: BrowserContext;
-
-beforeAll(async () => {
-  if (!existsSync(CHROMIUM)) throw new Error(`${CHROMIUM} is missing: install Debian's package (apt-get update && apt-get install -y chromium)`);
-  mkdirSync(ARTIFACTS, { recursive: true });
-  profile = mkdtempSync(join(tmpdir(), 'platewise-chromium-'));
-  ctx = await chromium.launchPersistentContext(profile, {
-    executablePath: CHROMIUM,
-    headless: true,
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
-    viewport: { width: 1000, height: 900 },
-  });
-});
-
-afterAll(async () => {
-  await ctx?.close();
-  if (profile) rmSync(profile, { recursive: true, force: true });
-});
+const browser = useChromium();
 
 describe('HTML report in Chromium', () => {
   for (const c of CASES) {
@@ -57,7 +37,7 @@ describe('HTML report in Chromium', () => {
       const html = join(ARTIFACTS, `${name}.html`);
       platewise(['report', c.sample, '-o', html, '--force']); // test artefacts are replaced on every run
       const json = JSON.parse(platewise(['measure', c.sample, '--json']));
-      const page = await ctx.newPage();
+      const page = await browser().newPage();
       const requested: string[] = [];
       page.on('request', (r) => requested.push(r.url()));
       await page.goto(pathToFileURL(html).href, { waitUntil: 'load' });

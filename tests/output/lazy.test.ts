@@ -5,7 +5,7 @@
  * to a log file. ESM has no require.cache and NODE_DEBUG=module only traces CommonJS, whereas a resolve
  * hook sees every import, static or dynamic, ESM or CommonJS-from-ESM. The same run of `draw` is the
  * positive control: it must show the drawing chunk in the log, so the check cannot pass by seeing nothing.
- * The drawing chunk is the one file of dist/cli that defines svgRoot.
+ * The drawing chunk is the file of dist/cli that defines svgRoot (older builds may leave more such files).
  * Needs the dist build (tsc), like the other CLI tests.
  */
 import { spawnSync } from 'node:child_process';
@@ -45,7 +45,7 @@ const drawingChunk = (u: string) => chunks.some((c) => u.endsWith(`/dist/cli/${c
 
 describe('lazy loading of the drawing code', () => {
   it('measure resolves its own modules but never the drawing chunk', () => {
-    expect(chunks).toHaveLength(1);
+    expect(chunks.length).toBeGreaterThan(0); // stale chunks of earlier builds may be there too: none may load
     const r = resolvedBy(['measure', 'samples/base-plate-bp1.json', '--json'], join(dir, 'measure.log'));
     expect(r.status, r.stderr).toBe(0);
     // the hook sees the command line's own modules (the bundle in dist/cli and its chunks)
