@@ -172,13 +172,16 @@ describe('labels clear of every line and of each other (Chromium glyph boxes)', 
   });
 
   it('the report: figure with origin mark, plots where there are any, labels clear', async () => {
-    for (const [name, args] of [['report-gusset', ['samples/gusset-g2.json', '--thickness', '10 mm', '--material', 'S355']], ['report-site', [SITE]], ['report-mesh', ['samples/tapered-doubler-td5.json']]] as const) {
+    for (const [name, args] of [['report-gusset', ['samples/gusset-g2.json', '--thickness', '10 mm', '--material', 'S355']], ['report-site', [SITE]], ['report-mesh', ['samples/bracket.svg', '--levels', '3']]] as const) {
       const out = join(dir, `${name}.html`);
       platewise(['report', ...args, '-o', out]);
       const { findings, page } = await check(name, out);
       const origin = await page.$$eval('figure[data-role="drawing"] [data-role="origin"], figure[data-role="drawing"] [data-role="origin-note"]', (e) => e.length);
+      const plots = await page.$$eval('svg[data-role="convergence"]', (e) => e.length);
       await page.close();
       expect(origin, name).toBeGreaterThan(0);
+      // plots only from a mesh run (--levels 3 on curved cut-outs), none for exact boundary results
+      expect(plots, name).toBe(name === 'report-mesh' ? 2 : 0);
       expect(findings, name).toEqual([]);
     }
   });

@@ -11,6 +11,7 @@ import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { ARTIFACTS, useChromium } from './chromium.js';
+import { formatValue } from '../../src/output/numbers.js';
 
 
 const ROOT = join(import.meta.dirname, '..', '..');
@@ -50,7 +51,9 @@ describe('HTML report in Chromium', () => {
       expect(rows.map((r) => r.key)).toEqual(Object.keys(json.quantities));
       for (const r of rows) {
         expect(Number(r.value), r.key).toBe(json.quantities[r.key].value);
-        expect(Number(r.text), `${r.key} as shown`).toBe(json.quantities[r.key].value);
+        // shown rounded to what the estimate supports, never further from the value than the estimate
+        expect(r.text, `${r.key} as shown`).toBe(formatValue(json.quantities[r.key].value, json.quantities[r.key].error));
+        expect(Math.abs(Number(r.text) - json.quantities[r.key].value), r.key).toBeLessThanOrEqual(Math.max(json.quantities[r.key].error, 1e-9 * Math.abs(json.quantities[r.key].value)));
         expect(Number(r.error), r.key).toBe(json.quantities[r.key].error);
       }
 
@@ -68,7 +71,11 @@ describe('HTML report in Chromium', () => {
       expect(Math.abs(drawing.box.width / drawing.scale - json.quantities.width.value)).toBeLessThan(1e-3);
       expect(Math.abs(drawing.box.height / drawing.scale - json.quantities.height.value)).toBeLessThan(1e-3);
 
-      expect(await page.$$eval('svg[data-role="convergence"]', (s) => s.length)).toBe(2);
+      // exact boundary results: no plots, a sentence instead
+      expect(json.method.path).toBe('boundary');
+      expect(await page.$$eval('svg[data-role="convergence"]', (s) => s.length)).toBe(0);
+      expect(await page.$eval('[data-role="convergence-note"]', (e) => e.textContent)).toMatch(/exact boundary integrals/);
+      expect(await page.$$eval('table[data-role="fabrication"] tr[data-key]', (t) => t.map((x) => x.getAttribute('data-key')))).toEqual(expect.arrayContaining(['cutLength', 'pierces', 'blankWidth', 'blankHeight']));
       expect(requested.filter((u) => !u.startsWith('file:'))).toEqual([]);
 
       await page.screenshot({ path: join(ARTIFACTS, `${name}.png`), fullPage: true });
