@@ -292,7 +292,7 @@ function drawInto(root: SvgEl, r: SectionResult, opts: DrawOptions, top: number,
       const dx = Math.cos(a), dy = -Math.sin(a); // drawing y points down
       const s = clipLine(CX, CY, dx, dy, -half, half, clipBox);
       // the key sits in the margin above the part, never on the drawing's lines: a line sample and the words
-      const label = name === 'I1' ? `I1 axis, ${q.principalAngle.value.toFixed(2)}° from +x` : 'I2 axis';
+      const label = name === 'I1' ? `I1 axis, ${q.principalAngle.value.toFixed(2).replace(/^-(0\.00)$/, '$1')}° from +x` : 'I2 axis';
       const kx = name === 'I1' ? left : left + 250, ky = EY0 - 22;
       ax.line(kx, ky - 4, kx + 26, ky - 4).attr({ stroke: PALETTE.axis, 'stroke-width': 1.4, 'stroke-dasharray': name === 'I1' ? 'none' : '10 3 2 3' });
       ax.plain(label).attr({ x: kx + 32, y: ky, 'text-anchor': 'start', style: `font-size:12px;font-weight:600`, fill: PALETTE.axis, 'data-role': `${name}-label` });
