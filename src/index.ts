@@ -40,6 +40,6 @@ export { parseManifest, folderJobs } from './batch/manifest.js';
 export { runJob } from './batch/task.js';
 export type { BatchRow, JobSettings } from './batch/task.js';
 export { runPool } from './batch/pool.js';
-// drawings and reports (svg.js and svgdom load only when these run)
+// drawings and reports
 export { drawPart, drawSheet } from './output/draw.js';
 export { buildReport } from './output/html.js';

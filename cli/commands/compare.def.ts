@@ -8,6 +8,7 @@ export function defineCompare(program: Command): void {
     .description('check stated values (a drawing, a customer sheet) against computed ones: pass, fail or inconclusive per quantity')
     .argument('<file>', 'part file (platewise JSON, SVG, DXF, GeoJSON or WKT), or - for standard input')
     .requiredOption('--reference <file>', 'stated values with units and optional tolerances (.json or .csv)')
+    .option('--digits-tolerance', 'values without a tolerance of their own are taken as right to half a unit in their last written digit (0.588 m: ± 0.0005 m), instead of the defaults')
     .option('--json', 'print JSON instead of a table')
     .option('--csv', 'print CSV (RFC 4180) instead of a table')
     .option('--thickness <t>', 'plate thickness, e.g. "10 mm" (a bare number is in the part\'s unit); enables masses')

@@ -13,7 +13,7 @@ import { readModels } from '../../src/read/models.js';
 import { type DrawingFlags, plateSettings, readOptions } from './settings.js';
 
 export interface CompareFlags extends DrawingFlags {
-  reference: string; json?: boolean; csv?: boolean;
+  reference: string; json?: boolean; csv?: boolean; digitsTolerance?: boolean;
   thickness?: string; material?: string; density?: string; part?: string;
   degree?: number; levels?: number; format?: string; units?: string;
 }
@@ -46,7 +46,9 @@ export function compare(file: string, flags: CompareFlags): string {
     ? pickPart(models, input.label, flags.part, '--part')
     : pickPart(models, input.label, reference.part, `${refText.label}:part`);
   const report = analyzePart(model, { section, given, mass: 'optional', fabrication: 'always' });
-  const comparison = compareAll(reference, report.quantities, { lengthUnit: report.units, partSize: partSize(report) });
+  const comparison = compareAll(reference, report.quantities, {
+    lengthUnit: report.units, partSize: partSize(report), toleranceFromDigits: flags.digitsTolerance === true, thickness: report.plate?.thickness,
+  });
   explainMissing(comparison.rows, report);
   const massStated = reference.values.some((v) => v.dimension === 'mass' || v.dimension === 'massMoment' || v.dimension === 'force');
   const p = report.plate;

@@ -30,9 +30,10 @@ export async function report(file: string, flags: ReportFlags): Promise<string> 
   const models = readModels(input.text, input.label, readOptions(flags));
   const given = plateSettings(flags);
   // exactly the run `measure` makes with the same flags, so the table equals `measure --json`
-  const reports = models.map((m) => analyzePart(m, { section, given, mass: 'optional', fabrication: 'never' }));
-  // the convergence plot needs at least three refinement levels: a separate run on the same shape
-  const convergence = reports.map((r) => (r.section.levels.length > CONVERGENCE_LEVELS
+  const reports = models.map((m) => analyzePart(m, { section, given, mass: 'optional', fabrication: 'always' }));
+  // the convergence plot needs at least three refinement levels: a separate run on the same shape, made only
+  // where the table's values come from a mesh (exact boundary results have no convergence to show)
+  const convergence = reports.map((r) => (r.section.method.path === 'boundary' || r.section.levels.length > CONVERGENCE_LEVELS
     ? r.section.levels
     : measureSection(r.section.geometry.part, { ...section, levels: CONVERGENCE_LEVELS }).levels));
   const notes = reports.map((r) => (r.mass ? undefined : r.missing.length > 0
@@ -46,7 +47,8 @@ export async function report(file: string, flags: ReportFlags): Promise<string> 
     date: flags.date ?? new Date().toISOString(),
     settings: { degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation, format: flags.format, units: flags.units, thickness: flags.thickness, density: flags.density, material: flags.material },
     parts: reports.map((r, i) => ({
-      result: r.section, convergence: convergence[i], mass: r.mass, massNote: notes[i],
+      result: r.section, convergence: convergence[i], mass: r.mass, massNote: notes[i], fabrication: r.fabrication,
+      markingLength: r.interpretation?.parts.find((p) => p.name === r.part)?.markingLength,
       reading: {
         lines: r.interpretation ? interpretationText(r.interpretation, r.part) : [`length unit ${r.units}: ${unitSourceText(r.unitSource)}`],
         draw: { notCut: r.notCut, gapsClosed: r.interpretation?.gapsClosed, unitSource: r.unitSource },

@@ -171,7 +171,7 @@ export function parseManifest(text: string, label: string, baseDir: string, opti
       const sv = splitValueText(v, w);
       if (sv.unit !== '' && c.unit) throw new InputError(w, `the column "${c.header}" already gives the unit; expected a bare number, got "${v}"`);
       const unit = unitFor(c.dimension, sv.unit !== '' ? sv.unit : c.unit ?? '', w);
-      job.stated.push({ quantity: c.key, dimension: c.dimension, value: sv.value, unit, tolerance: null, where: w });
+      job.stated.push({ quantity: c.key, dimension: c.dimension, value: sv.value, lastDigit: sv.lastDigit, unit, tolerance: null, where: w });
     }
     return job;
   });

@@ -6,7 +6,7 @@
  * it came from), verdict. CSV: one record per stated value, numbers written to round-trip (RFC 4180).
  */
 import { formatCsv } from '../base/csv.js';
-import { formatError, formatNumber } from './text.js';
+import { formatError, formatNumber, formatValue } from './text.js';
 import type { Comparison, ComparisonRow } from '../qa/verdict.js';
 
 export interface ComparisonMeta {
@@ -29,6 +29,9 @@ function withUnit(v: string, unit: string): string {
   return unit ? `${v} ${unit}` : v;
 }
 
+/** Marks in the tolerance column: default tolerances and those taken from the stated digits, keyed under the table. */
+const TOLERANCE_MARK = { reference: '', default: ' *', digits: ' †' } as const;
+
 const VERDICT_WORD = { pass: 'pass', fail: 'FAIL', inconclusive: 'inconclusive' } as const;
 
 const SLIP_UNITS: Record<number, string> = { 1: 'in for mm', 2: 'in² for mm²', 3: 'in³ for mm³', 4: 'in⁴ for mm⁴' };
@@ -44,6 +47,8 @@ export function rowAdvice(r: ComparisonRow, withReferenceNote = true): string[] 
   else if (h?.code === 'unit-slip') {
     const what = h.base === 25.4 ? `a factor 25.4${Math.abs(h.power) === 1 ? '' : `^${Math.abs(h.power)}`} (${SLIP_UNITS[Math.abs(h.power)] ?? 'inches for millimetres'}${h.power < 0 ? ', or the other way round' : ''})` : `a factor 10^${h.power}`;
     out.push(`stated = computed × ${formatNumber(h.factor, 6)}: ${what} — a unit slip in the reference or the drawing?`);
+  } else if (h?.code === 'thickness-slip') {
+    out.push(`the stated value fits a plate ${formatNumber(h.thickness, 6)} ${h.unit} thick (computed with ${formatNumber(h.used, 6)} ${h.unit}): a thickness slip, or another density?`);
   }
   if (r.verdict === 'inconclusive' && r.computed !== null) {
     out.push(r.note === 'the computed error is an estimate, not a bound'
@@ -78,9 +83,9 @@ export function comparisonText(c: Comparison, meta: ComparisonMeta): string {
   const table = c.rows.map((r) => [
     r.quantity,
     statedText(r),
-    r.computed === null ? '—' : `${withUnit(formatNumber(r.computed), r.unit)} ± ${formatError(r.error ?? NaN)}`,
+    r.computed === null ? '—' : `${withUnit(formatValue(r.computed, r.error ?? NaN), r.unit)} ± ${formatError(r.error ?? NaN)}`,
     r.difference === null ? '—' : formatNumber(r.difference, 4),
-    `${formatNumber(r.tolerance, 4)}${r.toleranceSource === 'default' ? ' *' : ''}`,
+    `${formatNumber(r.tolerance, 4)}${TOLERANCE_MARK[r.toleranceSource]}`,
     VERDICT_WORD[r.verdict],
   ]);
   // difference and tolerance are in the computed value's unit; defaults are listed once under the table
@@ -89,7 +94,9 @@ export function comparisonText(c: Comparison, meta: ComparisonMeta): string {
   const widths = titles.map((t, k) => Math.max(t.length, ...table.map((row) => row[k].length)));
   const line = (cells: string[]) => cells.map((s, k) => (k === 0 || k === 5 ? s.padEnd(widths[k]) : s.padStart(widths[k]))).join('  ').trimEnd();
   const lines = [...head.flatMap((h) => wrap(h, 100, '  ')), '', line(titles), ...table.map(line)];
-  lines.push(...wrap(`difference and tolerance in the computed value's unit${defaults.length ? `; * default tolerance: ${defaults.join(', ')}` : ''}`, 100, '  '), '');
+  const fromDigits = c.rows.some((r) => r.toleranceSource === 'digits')
+    ? '; † tolerance from the stated digits: half a unit in the last digit written, converted' : '';
+  lines.push(...wrap(`difference and tolerance in the computed value's unit${defaults.length ? `; * default tolerance: ${defaults.join(', ')}` : ''}${fromDigits}`, 100, '  '), '');
   const advice = c.rows.flatMap((r) => rowAdvice(r).map((a) => `${r.quantity}: ${a}`));
   for (const a of advice) lines.push(...wrap(a, 100, '  '));
   if (advice.length > 0) lines.push('');

@@ -1,10 +1,11 @@
 /**
  * Convergence plot: how much a quantity changes from one uniform refinement to the next, against the
- * number of triangles, on log–log axes (inline SVG built with svg.js on svgdom).
+ * number of triangles, on log–log axes (inline SVG, src/output/svgBuild.ts).
  */
 import type { LevelResult } from '../analysis/measure.js';
 import type { SectionKey } from '../properties/quantities.js';
-import { FONT_FAMILY, loadSvgStack, PALETTE } from './draw.js';
+import { FONT_FAMILY, PALETTE } from './draw.js';
+import { svgRoot } from './svgBuild.js';
 import { num } from './pathData.js';
 
 export interface ConvergencePoint { triangles: number; change: number }
@@ -26,9 +27,8 @@ function decadeLabel(e: number): string {
  * markers on the bottom edge and said so in the caption.
  */
 export async function convergencePlot(points: readonly ConvergencePoint[], title: string, unit: string, key: string): Promise<string> {
-  const { SVG } = await loadSvgStack();
   const W = 330, H = 240, L = 58, R = 14, T = 30, B = 44;
-  const svg = SVG().attr({ width: W, height: H, viewBox: `0 0 ${W} ${H}`, 'data-role': 'convergence', 'data-key': key, role: 'img', 'font-family': FONT_FAMILY });
+  const svg = svgRoot().attr({ width: W, height: H, viewBox: `0 0 ${W} ${H}`, 'data-role': 'convergence', 'data-key': key, role: 'img', 'font-family': FONT_FAMILY });
   svg.element('title').words(`${title}: change between refinement levels against triangles (log–log)`);
   svg.rect(W, H).attr({ fill: PALETTE.paper });
   const pos = points.filter((p) => p.change > 0);
@@ -44,14 +44,14 @@ export async function convergencePlot(points: readonly ConvergencePoint[], title
   const ystep = Math.max(1, Math.ceil((y1 - y0) / 6));
   for (let e = x0; e <= x1; e++) {
     grid.line(px(e), T, px(e), H - B);
-    labels.plain(decadeLabel(e)).attr({ x: px(e), y: H - B + 14, 'text-anchor': 'middle' });
+    labels.plain(decadeLabel(e)).attr({ x: px(e), y: H - B + 19, 'text-anchor': 'middle' }); // below the corner's y label
   }
   for (let e = y0; e <= y1; e += ystep) {
     grid.line(L, py(e), W - R, py(e));
     labels.plain(decadeLabel(e)).attr({ x: L - 5, y: py(e) + 4, 'text-anchor': 'end' });
   }
   svg.rect(W - L - R, H - T - B).move(L, T).attr({ fill: 'none', stroke: PALETTE.ink, 'stroke-width': 0.9 });
-  labels.plain('triangles').attr({ x: (L + W - R) / 2, y: H - 8, 'text-anchor': 'middle' });
+  labels.plain('triangles').attr({ x: (L + W - R) / 2, y: H - 6, 'text-anchor': 'middle' });
   svg.plain(`${title}: |change| per refinement, ${unit}`).attr({ x: L, y: 18, style: `font-size:12px;font-weight:600`, fill: PALETTE.ink });
   const line = pos.map((p, i) => `${i === 0 ? 'M' : 'L'}${num(px(Math.log10(p.triangles)))} ${num(py(Math.log10(p.change)))}`).join('');
   if (pos.length > 1) svg.path(line).attr({ fill: 'none', stroke: PALETTE.meshLine, 'stroke-width': 1.6 });

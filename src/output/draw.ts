@@ -1,6 +1,5 @@
 /**
- * SVG drawings of measured parts, built with svg.js on svgdom (both loaded on first use only, so commands
- * that do not draw never pay for them).
+ * SVG drawings of measured parts, built with our small SVG builder (src/output/svgBuild.ts).
  *
  * A drawing shows: the material filled and cut-outs clear, every loop stroked with exact curve commands;
  * the centroid; both principal axes through it with the I1 angle; the bounding box with its width and
@@ -12,11 +11,13 @@
  * `data-role="centroid"` with data-x/data-y in part units and a translate(X Y) in drawing units; the root
  * carries data-scale/data-ox/data-oy (X = ox + scale·x, Y = oy − scale·y).
  */
-import type { Container, Svg } from '@svgdotjs/svg.js';
+import { type SvgEl, svgRoot } from './svgBuild.js';
 import type { SectionResult } from '../analysis/measure.js';
 import { InputError, OptionError } from '../base/errors.js';
 import { type Mesh, triangleCount } from '../mesh/mesh.js';
-import { formatError, formatNumber } from './text.js';
+import { formatError, formatNumber, formatValue } from './text.js';
+import { LENGTH_UNITS, type LengthUnit } from '../base/units.js';
+import { type Box, Layout, clipLine, textBox, textWidth } from './labels.js';
 import { type DrawingMap, chainPathData, loopPathData, mapX, mapY, num, segmentCommands } from './pathData.js';
 import type { NotCut } from '../read/interpret.js';
 import type { UnitSource } from '../model/plate.js';
@@ -55,37 +56,12 @@ const HALO = 'font-size:12px;paint-order:stroke;stroke:#ffffff;stroke-width:3px'
 
 export const FONT_FAMILY = 'system-ui, -apple-system, "Segoe UI", Roboto, Helvetica, Arial, sans-serif';
 
-type SvgJs = typeof import('@svgdotjs/svg.js');
-let stack: Promise<SvgJs> | undefined;
-
-/** Load svgdom and svg.js once, and bind svg.js to svgdom's window. */
-export function loadSvgStack(): Promise<SvgJs> {
-  stack ??= (async () => {
-    const { createSVGWindow } = await import('svgdom');
-    const svgjs = await import('@svgdotjs/svg.js');
-    const window = createSVGWindow();
-    svgjs.registerWindow(window, window.document);
-    return svgjs;
-  })();
-  return stack;
-}
 
 /** A round length (1, 2 or 5 × 10^n) near `target`. */
 export function roundLength(target: number): number {
   const p = 10 ** Math.floor(Math.log10(target));
   const f = target / p;
   return (f >= 5 ? 5 : f >= 2 ? 2 : 1) * p;
-}
-
-/** Clip the segment P + s·D, s in [s0, s1], to a rectangle (Liang–Barsky); null when outside. */
-function clipLine(px: number, py: number, dx: number, dy: number, s0: number, s1: number, box: [number, number, number, number]): [number, number] | null {
-  const p = [-dx, dx, -dy, dy], q = [px - box[0], box[2] - px, py - box[1], box[3] - py];
-  for (let i = 0; i < 4; i++) {
-    if (p[i] === 0) { if (q[i] < 0) return null; continue; }
-    const r = q[i] / p[i];
-    if (p[i] < 0) s0 = Math.max(s0, r); else s1 = Math.min(s1, r);
-  }
-  return s0 <= s1 ? [s0, s1] : null;
 }
 
 /** Closed path of a mesh triangle; curved edges follow their segment's own command. */
@@ -117,24 +93,50 @@ export function shadeValues(r: SectionResult, shade: string | undefined, degree?
   return title ? { ...tv, title } : tv;
 }
 
+/** A common scale for several drawings (a sheet): drawing units per millimetre, and the scale bar's length. */
+export interface CommonScale { kPerMm: number; barLength: number; barUnit: LengthUnit }
+
+const mmPer = (u: LengthUnit) => LENGTH_UNITS[u] * 1000;
+
+/** The scale that fits the largest of the parts into the drawing box, and one bar length for all. */
+export function commonScale(results: readonly SectionResult[]): CommonScale {
+  let k = Infinity, widest = 0;
+  for (const r of results) {
+    const q = r.quantities, f = mmPer(r.units);
+    const w = (q.xMax.value - q.xMin.value) * f, h = (q.yMax.value - q.yMin.value) * f;
+    k = Math.min(k, BOX / w, BOX / h);
+    widest = Math.max(widest, w, h);
+  }
+  // the bar in the parts' own unit when they share one, else in millimetres
+  const unit = results.every((r) => r.units === results[0].units) ? results[0].units : 'mm';
+  return { kPerMm: k, barLength: roundLength(widest / mmPer(unit) / 2.5), barUnit: unit };
+}
+
+/** Size of the square the part is fitted into, in drawing units. */
+const BOX = 520;
+
+/** Pack title pieces into lines of at most `width` drawing units, joined by " · ". */
+function packLines(pieces: readonly string[], px: number, width: number): string[] {
+  const lines: string[] = [];
+  for (const p of pieces) {
+    const last = lines.length - 1;
+    if (last >= 0 && textWidth(`${lines[last]} · ${p}`, px) <= width) lines[last] = `${lines[last]} · ${p}`;
+    else lines.push(p);
+  }
+  return lines;
+}
+
 /**
  * Draw one part into `root` at vertical offset `top`; returns the drawing's width and height.
- * All ids are avoided (data-role instead) so several drawings can share one sheet.
+ * All ids are avoided (data-role instead) so several drawings can share one sheet. Every label is placed
+ * clear of every drawn line and of every other label (src/output/labels.ts), mesh and shading aside.
  */
-function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: number): { width: number; height: number; map: DrawingMap } {
+function drawInto(root: SvgEl, r: SectionResult, opts: DrawOptions, top: number, scale?: CommonScale): { width: number; height: number; map: DrawingMap } {
   const q = r.quantities;
   const part = r.geometry.part;
   const u = r.units;
   const [xMin, yMin, xMax, yMax] = [q.xMin.value, q.yMin.value, q.xMax.value, q.yMax.value];
   const w = xMax - xMin, h = yMax - yMin;
-  const BOX = 520;
-  const k = Math.min(BOX / w, BOX / h);
-  const shadeVals = shadeValues(r, opts.shade, opts.degree, opts.shadeTitle);
-  const left = 80, stripH = 74, topPad = 44;
-  const T = top + stripH + topPad;
-  const pw = k * w, ph = k * h;
-  const legendW = shadeVals ? 250 : 0;
-  const width = Math.max(640, left + pw + 110 + legendW);
   // geometry that is not cut and lies over this part's box: drawn muted, with a key under the scale bar
   const nc = opts.reading?.notCut;
   const near = (segs: readonly Segment[]) => {
@@ -143,23 +145,57 @@ function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: num
     return b[0] <= xMax && b[2] >= xMin && b[1] <= yMax && b[3] >= yMin;
   };
   const ig = nc ? nc.ignored.filter(near) : [], mk = nc ? nc.marking.filter(near) : [];
+  // the drawn extent: the part's box and the muted geometry over it, at most a quarter of the part's size
+  // beyond the box (muted geometry is clipped there), so that labels outside the extent stay clear of it
+  const reach = 0.25 * Math.max(w, h);
+  const ext = [xMin, yMin, xMax, yMax];
+  for (const segs of [...ig, ...mk]) for (const sg of segs) {
+    const bb = ops(sg).bbox(sg);
+    ext[0] = Math.min(ext[0], Math.max(bb[0], xMin - reach)); ext[1] = Math.min(ext[1], Math.max(bb[1], yMin - reach));
+    ext[2] = Math.max(ext[2], Math.min(bb[2], xMax + reach)); ext[3] = Math.max(ext[3], Math.min(bb[3], yMax + reach));
+  }
+  const ew = ext[2] - ext[0], eh = ext[3] - ext[1];
+  const k = scale ? scale.kPerMm * mmPer(u) : Math.min(BOX / ew, BOX / eh);
+  const shadeVals = shadeValues(r, opts.shade, opts.degree, opts.shadeTitle);
+  const left = 80, topPad = 44;
+  const pw = k * ew, ph = k * eh;
+  const legendW = shadeVals ? 250 : 0;
+  const fmt = (key: keyof typeof q) => `${formatValue(q[key].value, q[key].error)} ± ${formatError(q[key].error)}`;
+  const widthText = `${formatNumber(w, 7)} ${u}`, heightText = `${formatNumber(h, 7)} ${u}`;
+  const widthInside = textWidth(widthText, 12) + 8 <= k * w, heightInside = textWidth(heightText, 12) + 8 <= k * h;
+  // width: the part, its dimensions and legend, and every title piece on a line of its own at least
+  const unitNote = opts.reading?.unitSource ? ` (${unitSourceText(opts.reading.unitSource)})` : '';
+  const cErr = Math.max(q.centroidX.error, q.centroidY.error);
+  const pieces = [
+    `lengths in ${u}${unitNote}`,
+    `area ${fmt('area')} ${u}²`,
+    `centroid (${formatValue(q.centroidX.value, cErr)}, ${formatValue(q.centroidY.value, cErr)}) ± ${formatError(cErr)} ${u}`,
+    `I1 ${fmt('I1')} ${u}⁴ · I2 ${fmt('I2')} ${u}⁴ (principal second moments)`,
+  ];
+  const width = Math.max(640, left + pw + 110 + legendW, 28 + textWidth(r.part, 17, true), 28 + Math.max(...pieces.map((p) => textWidth(p, 12.5))),
+    heightInside ? 0 : left + pw + 36 + textWidth(heightText, 12) + 12, widthInside ? 0 : left + pw + 12 + textWidth(widthText, 12) + 12);
+  const titleLines = packLines(pieces, 12.5, width - 28);
+  const stripH = 56 + 18 * (titleLines.length - 1);
+  const T = top + stripH + topPad;
   const gaps = (opts.reading?.gapsClosed ?? []).filter((p) => p.x >= xMin && p.x <= xMax && p.y >= yMin && p.y <= yMax);
-  const keyRows = (mk.length > 0 ? 1 : 0) + (ig.length > 0 ? 1 : 0) + (gaps.length > 0 ? 1 : 0);
+  const m: DrawingMap = { k, ox: left - k * ext[0], oy: T + k * ext[3] };
+  const X0 = mapX(m, xMin), X1 = mapX(m, xMax), Y0 = mapY(m, yMax), Y1 = mapY(m, yMin);
+  const EX1 = left + pw, EY0 = T, EY1 = T + ph; // the drawn extent's right, top and bottom
+  // the origin (0, 0) is marked where it lies on or inside the bounding box; elsewhere a key row says where it is
+  const OX = mapX(m, 0), OY = mapY(m, 0);
+  const originShown = OX >= X0 - 1 && OX <= X1 + 1 && OY >= Y0 - 1 && OY <= Y1 + 1;
+  const keyRows = (mk.length > 0 ? 1 : 0) + (ig.length > 0 ? 1 : 0) + (gaps.length > 0 ? 1 : 0) + (originShown ? 0 : 1);
   const height = stripH + topPad + ph + 118 + 18 * keyRows;
-  const m: DrawingMap = { k, ox: left - k * xMin, oy: T + k * yMax };
+  const lay = new Layout();
 
   const g = root.group().attr({ 'data-role': 'part-drawing', 'data-part': r.part, 'data-scale': num(k), 'data-ox': num(m.ox), 'data-oy': num(m.oy) });
 
   // title strip
   const strip = g.group().attr({ 'data-role': 'title' });
   strip.rect(width, stripH).move(0, top).attr({ fill: PALETTE.strip });
-  const fmt = (key: keyof typeof q, digits = 10) => `${formatNumber(q[key].value, digits)} ± ${formatError(q[key].error)}`;
   strip.plain(r.part).attr({ x: 14, y: top + 24, style: `font-size:17px;font-weight:600`, fill: PALETTE.ink });
-  const unitNote = opts.reading?.unitSource ? ` (${unitSourceText(opts.reading.unitSource)})` : '';
-  strip.plain(`lengths in ${u}${unitNote} · area ${fmt('area')} ${u}² · centroid (${formatNumber(q.centroidX.value)}, ${formatNumber(q.centroidY.value)}) ± ${formatError(Math.max(q.centroidX.error, q.centroidY.error))} ${u}`)
-    .attr({ x: 14, y: top + 46, style: `font-size:12.5px`, fill: PALETTE.ink });
-  strip.plain(`I1 ${fmt('I1')} ${u}⁴ · I2 ${fmt('I2')} ${u}⁴ (principal second moments)`)
-    .attr({ x: 14, y: top + 64, style: `font-size:12.5px`, fill: PALETTE.ink });
+  titleLines.forEach((t, i) => strip.plain(t).attr({ x: 14, y: top + 46 + 18 * i, style: `font-size:12.5px`, fill: PALETTE.ink }));
+  lay.rect(0, top, width, stripH); // nothing else may stand on the strip
 
   // material: all loops in one path; outers run counter-clockwise and cut-outs clockwise
   let d = '';
@@ -190,101 +226,128 @@ function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: num
   for (const reg of part.regions) {
     og.path(loopPathData(reg.outer, m)).attr({ 'data-loop': 'outer' });
     for (const hole of reg.holes) { og.path(loopPathData(hole, m)).attr({ 'data-loop': 'cutout' }); nCut++; }
+    for (const loop of [reg.outer, ...reg.holes]) for (const sg of loop.segments) lay.segment(sg, m);
   }
   g.attr({ 'data-cutouts': String(nCut) });
 
-  // geometry that is not cut, in muted styles: ignored contours dotted grey, marking lines dashed
-  {
-    if (ig.length > 0) {
-      const gi = g.group().attr({ 'data-role': 'ignored', 'data-count': String(ig.length), fill: 'none', stroke: PALETTE.ignored, 'stroke-width': 0.9, 'stroke-dasharray': '1.5 3' });
-      for (const segs of ig) gi.path(chainPathData(segs, m));
-    }
-    if (mk.length > 0) {
-      const gm = g.group().attr({ 'data-role': 'marking', 'data-count': String(mk.length), fill: 'none', stroke: PALETTE.marking, 'stroke-width': 1.1, 'stroke-dasharray': '6 3' });
-      for (const segs of mk) gm.path(chainPathData(segs, m));
-    }
+  // geometry that is not cut, in muted styles: ignored contours dotted grey, marking lines dashed; clipped to
+  // the drawn extent by a nested viewport (no ids needed)
+  const extBox: Box = [left - 4, EY0 - 4, EX1 + 4, EY1 + 4];
+  const muted = ig.length + mk.length > 0
+    ? g.element('svg').attr({ x: num(extBox[0]), y: num(extBox[1]), width: num(extBox[2] - extBox[0]), height: num(extBox[3] - extBox[1]), viewBox: `${num(extBox[0])} ${num(extBox[1])} ${num(extBox[2] - extBox[0])} ${num(extBox[3] - extBox[1])}`, overflow: 'hidden', 'data-role': 'muted-extent' })
+    : g;
+  if (ig.length > 0) {
+    const gi = muted.group().attr({ 'data-role': 'ignored', 'data-count': String(ig.length), fill: 'none', stroke: PALETTE.ignored, 'stroke-width': 0.9, 'stroke-dasharray': '1.5 3' });
+    for (const segs of ig) { gi.path(chainPathData(segs, m)); for (const sg of segs) lay.segment(sg, m, extBox); }
+  }
+  if (mk.length > 0) {
+    const gm = muted.group().attr({ 'data-role': 'marking', 'data-count': String(mk.length), fill: 'none', stroke: PALETTE.marking, 'stroke-width': 1.1, 'stroke-dasharray': '6 3' });
+    for (const segs of mk) { gm.path(chainPathData(segs, m)); for (const sg of segs) lay.segment(sg, m, extBox); }
   }
   if (gaps.length > 0) {
     const gg = g.group().attr({ 'data-role': 'joined-gaps', 'data-count': String(gaps.length), fill: 'none', stroke: PALETTE.axis, 'stroke-width': 1 });
-    for (const p of gaps) gg.circle(9).center(mapX(m, p.x), mapY(m, p.y));
+    for (const p of gaps) { gg.circle(9).center(mapX(m, p.x), mapY(m, p.y)); lay.reserve([mapX(m, p.x) - 5, mapY(m, p.y) - 5, mapX(m, p.x) + 5, mapY(m, p.y) + 5]); }
   }
 
-  // bounding box and its dimensions
-  const X0 = mapX(m, xMin), X1 = mapX(m, xMax), Y0 = mapY(m, yMax), Y1 = mapY(m, yMin);
+  // bounding box and its dimensions; a label too long for its dimension line stands beyond the line's end
   const bg = g.group().attr({ 'data-role': 'bounding-box', stroke: PALETTE.frame, fill: 'none', 'stroke-width': 0.8 });
+  const bline = (x1: number, y1: number, x2: number, y2: number) => { bg.line(x1, y1, x2, y2); lay.line(x1, y1, x2, y2); };
   bg.rect(X1 - X0, Y1 - Y0).move(X0, Y0).attr({ 'stroke-dasharray': '5 4' });
-  const dimY = Y1 + 26, dimX = X1 + 26;
-  bg.line(X0, dimY, X1, dimY);
-  bg.line(X0, dimY - 6, X0, dimY + 6); bg.line(X1, dimY - 6, X1, dimY + 6);
-  bg.line(X0, Y1 + 4, X0, dimY + 8); bg.line(X1, Y1 + 4, X1, dimY + 8);
-  bg.line(dimX, Y0, dimX, Y1);
-  bg.line(dimX - 6, Y0, dimX + 6, Y0); bg.line(dimX - 6, Y1, dimX + 6, Y1);
-  bg.line(X1 + 4, Y0, dimX + 8, Y0); bg.line(X1 + 4, Y1, dimX + 8, Y1);
-  g.plain(`${formatNumber(w, 7)} ${u}`).attr({ x: (X0 + X1) / 2, y: dimY - 6, 'text-anchor': 'middle', style: HALO, fill: PALETTE.ink, 'data-role': 'width-label' });
-  g.plain(`${formatNumber(h, 7)} ${u}`).attr({ x: 0, y: 0, transform: `translate(${num(dimX - 6)} ${num((Y0 + Y1) / 2)}) rotate(-90)`, 'text-anchor': 'middle', style: HALO, fill: PALETTE.ink, 'data-role': 'height-label' });
+  lay.rect(X0, Y0, X1 - X0, Y1 - Y0);
+  const dimY = EY1 + 26, dimX = EX1 + 26;
+  bline(X0, dimY, X1, dimY);
+  bline(X0, dimY - 6, X0, dimY + 6); bline(X1, dimY - 6, X1, dimY + 6);
+  bline(X0, Y1 + 4, X0, dimY + 8); bline(X1, Y1 + 4, X1, dimY + 8);
+  bline(dimX, Y0, dimX, Y1);
+  bline(dimX - 6, Y0, dimX + 6, Y0); bline(dimX - 6, Y1, dimX + 6, Y1);
+  bline(X1 + 4, Y0, dimX + 8, Y0); bline(X1 + 4, Y1, dimX + 8, Y1);
+  if (widthInside) {
+    g.plain(widthText).attr({ x: (X0 + X1) / 2, y: dimY - 6, 'text-anchor': 'middle', style: HALO, fill: PALETTE.ink, 'data-role': 'width-label' });
+    lay.reserve(textBox((X0 + X1) / 2, dimY - 6, widthText, 12, 'middle'));
+  } else {
+    g.plain(widthText).attr({ x: Math.max(X1, EX1) + 12, y: dimY + 4, style: HALO, fill: PALETTE.ink, 'data-role': 'width-label' });
+    lay.reserve(textBox(Math.max(X1, EX1) + 12, dimY + 4, widthText, 12));
+  }
+  if (heightInside) {
+    g.plain(heightText).attr({ x: 0, y: 0, transform: `translate(${num(dimX - 6)} ${num((Y0 + Y1) / 2)}) rotate(-90)`, 'text-anchor': 'middle', style: HALO, fill: PALETTE.ink, 'data-role': 'height-label' });
+    const hw = textWidth(heightText, 12) / 2;
+    lay.reserve([dimX - 6 - 12, (Y0 + Y1) / 2 - hw, dimX - 6 + 4, (Y0 + Y1) / 2 + hw]);
+  } else {
+    g.plain(heightText).attr({ x: dimX + 10, y: (Y0 + Y1) / 2 + 4, style: HALO, fill: PALETTE.ink, 'data-role': 'height-label' });
+    lay.reserve(textBox(dimX + 10, (Y0 + Y1) / 2 + 4, heightText, 12));
+  }
 
-  // principal axes through the centroid (a white halo keeps them legible on dark shading)
+  // principal axes through the centroid (a white halo keeps them legible on dark shading), clipped just
+  // outside the bounding box so that they stop short of the dimension labels
   const cx = q.centroidX.value, cy = q.centroidY.value;
   const CX = mapX(m, cx), CY = mapY(m, cy);
   const ax = g.group().attr({ 'data-role': 'principal-axes' });
-  const clipBox: [number, number, number, number] = [X0 - 12, Y0 - 12, X1 + 12, Y1 + 12];
+  const clipBox: Box = [X0 - 6, Y0 - 6, X1 + 6, Y1 + 6];
   const angleDefined = !(q.principalAngle.error >= 90);
   if (angleDefined) {
     const th = (q.principalAngle.value * Math.PI) / 180;
-    const half = Math.hypot(X1 - X0, Y1 - Y0);
+    const half = Math.hypot(X1 - X0, Y1 - Y0) + 12;
     const axes: [string, number][] = [['I1', th], ['I2', th + Math.PI / 2]];
     for (const [name, a] of axes) {
       const dx = Math.cos(a), dy = -Math.sin(a); // drawing y points down
       const s = clipLine(CX, CY, dx, dy, -half, half, clipBox);
+      // the key sits in the margin above the part, never on the drawing's lines: a line sample and the words
+      const label = name === 'I1' ? `I1 axis, ${q.principalAngle.value.toFixed(2).replace(/^-(0\.00)$/, '$1')}° from +x` : 'I2 axis';
+      const kx = name === 'I1' ? left : left + 250, ky = EY0 - 22;
+      ax.line(kx, ky - 4, kx + 26, ky - 4).attr({ stroke: PALETTE.axis, 'stroke-width': 1.4, 'stroke-dasharray': name === 'I1' ? 'none' : '10 3 2 3' });
+      ax.plain(label).attr({ x: kx + 32, y: ky, 'text-anchor': 'start', style: `font-size:12px;font-weight:600`, fill: PALETTE.axis, 'data-role': `${name}-label` });
+      lay.line(kx, ky - 4, kx + 26, ky - 4);
+      lay.reserve(textBox(kx + 32, ky, label, 12, 'start', true));
       if (!s) continue;
       const pts = [CX + dx * s[0], CY + dy * s[0], CX + dx * s[1], CY + dy * s[1]] as const;
       ax.line(...pts).attr({ stroke: PALETTE.paper, 'stroke-width': 4, 'stroke-opacity': 0.85 });
       ax.line(...pts).attr({ stroke: PALETTE.axis, 'stroke-width': 1.4, 'stroke-dasharray': name === 'I1' ? 'none' : '10 3 2 3', 'data-axis': name });
-      // the key sits in the margin above the part, never on the drawing's lines: a line sample and the words
-      const label = name === 'I1' ? `I1 axis, ${q.principalAngle.value.toFixed(2)}° from +x` : 'I2 axis';
-      const kx = name === 'I1' ? X0 : X0 + 250, ky = Y0 - 22;
-      ax.line(kx, ky - 4, kx + 26, ky - 4).attr({ stroke: PALETTE.axis, 'stroke-width': 1.4, 'stroke-dasharray': name === 'I1' ? 'none' : '10 3 2 3' });
-      ax.plain(label).attr({ x: kx + 32, y: ky, 'text-anchor': 'start', style: `font-size:12px;font-weight:600`, fill: PALETTE.axis, 'data-role': `${name}-label` });
+      lay.line(...pts);
     }
   } else {
-    ax.plain('I1 = I2 within the estimate: every centroidal axis is principal').attr({ x: left, y: T - 14, style: `font-size:12px`, fill: PALETTE.axis });
+    const t = 'I1 = I2 within the estimate: every centroidal axis is principal';
+    ax.plain(t).attr({ x: left, y: EY0 - 18, style: `font-size:12px`, fill: PALETTE.axis });
+    lay.reserve(textBox(left, EY0 - 18, t, 12));
   }
 
-  // centroid marker: ring with two opposite filled quarters
-  const cg = g.group().attr({ 'data-role': 'centroid', 'data-x': num(cx), 'data-y': num(cy), transform: `translate(${num(CX)} ${num(CY)})` });
-  cg.circle(16).center(0, 0).attr({ fill: PALETTE.paper, stroke: PALETTE.ink, 'stroke-width': 1.4 });
-  cg.path('M0 0L8 0A8 8 0 0 0 0 -8ZM0 0L-8 0A8 8 0 0 0 0 8Z').attr({ fill: PALETTE.ink });
-  cg.plain('centroid').attr({ x: 11, y: 16, style: `font-size:11px;paint-order:stroke;stroke:#ffffff;stroke-width:3px`, fill: PALETTE.ink });
-
-  // scale bar in the part's units: four alternating blocks
-  const len = roundLength(w / 2.5);
+  // scale bar in the part's units: four alternating blocks (one length for every part of a sheet)
+  const len = scale ? (scale.barLength * mmPer(scale.barUnit)) / mmPer(u) : roundLength(Math.max(w, h) / 2.5);
   const sb = g.group().attr({ 'data-role': 'scale-bar', 'data-length': num(len) });
   const sbY = T + ph + 62, bl = (k * len) / 4;
   for (let i = 0; i < 4; i++) sb.rect(bl, 7).move(left + i * bl, sbY).attr({ fill: i % 2 === 0 ? PALETTE.ink : PALETTE.paper, stroke: PALETTE.ink, 'stroke-width': 0.8 });
-  sb.plain('0').attr({ x: left, y: sbY + 22, 'text-anchor': 'middle', style: `font-size:11px`, fill: PALETTE.ink });
-  if (2 * bl >= 40) sb.plain(formatNumber(len / 2, 6)).attr({ x: left + 2 * bl, y: sbY + 22, 'text-anchor': 'middle', style: `font-size:11px`, fill: PALETTE.ink });
-  sb.plain(`${formatNumber(len, 6)} ${u}`).attr({ x: left + 4 * bl, y: sbY + 22, 'text-anchor': 'middle', style: `font-size:11px`, fill: PALETTE.ink });
+  lay.rect(left, sbY, 4 * bl, 7);
+  const barText = (x: number, t: string) => {
+    sb.plain(t).attr({ x, y: sbY + 22, 'text-anchor': 'middle', style: `font-size:11px`, fill: PALETTE.ink });
+    lay.reserve(textBox(x, sbY + 22, t, 11, 'middle'));
+  };
+  barText(left, '0');
+  if (2 * bl >= 40) barText(left + 2 * bl, formatNumber(len / 2, 6));
+  barText(left + 4 * bl, `${formatNumber(len, 6)} ${u}`);
 
-  // key to the muted styles, beside the scale bar, when the drawing shows geometry that is not cut
+  // key to the muted styles and to the origin, under the scale bar
   const shown = [
     ...(mk.length > 0 ? [{ dash: '6 3', colour: PALETTE.marking, text: `marking, not cut: ${mk.length} line${mk.length === 1 ? '' : 's'}` }] : []),
     ...(ig.length > 0 ? [{ dash: '1.5 3', colour: PALETTE.ignored, text: `ignored: ${ig.length} contour${ig.length === 1 ? '' : 's'} (hidden, skipped layer or border)` }] : []),
     ...(gaps.length > 0 ? [{ dash: '', colour: PALETTE.axis, text: `gap closed when joining loose ends: ${gaps.length}` }] : []),
+    ...(originShown ? [] : [{ dash: 'origin', colour: PALETTE.axis, text: `origin (0, 0) lies outside this drawing: the box's lower-left corner is at (${formatNumber(xMin)}, ${formatNumber(yMin)}) ${u}` }]),
   ];
   if (shown.length > 0) {
     const kg = g.group().attr({ 'data-role': 'reading-key' });
     shown.forEach((it, i) => {
       const ky = sbY + 44 + 18 * i;
-      if (it.dash) kg.line(left, ky - 4, left + 26, ky - 4).attr({ stroke: it.colour, 'stroke-width': 1.2, 'stroke-dasharray': it.dash });
+      if (it.dash === 'origin') originMark(kg, left + 4, ky + 2, 'origin-direction', 12);
+      else if (it.dash) kg.line(left, ky - 4, left + 26, ky - 4).attr({ stroke: it.colour, 'stroke-width': 1.2, 'stroke-dasharray': it.dash });
       else kg.circle(9).center(left + 13, ky - 4).attr({ fill: 'none', stroke: it.colour, 'stroke-width': 1 });
-      kg.plain(it.text).attr({ x: left + 34, y: ky, style: 'font-size:11px', fill: PALETTE.ink });
+      lay.reserve([left - 2, ky - 14, left + 30, ky + 4]);
+      kg.plain(it.text).attr({ x: left + 34, y: ky, style: 'font-size:11px', fill: PALETTE.ink, ...(it.dash === 'origin' ? { 'data-role': 'origin-note' } : {}) });
+      lay.reserve(textBox(left + 34, ky, it.text, 11));
     });
   }
 
   // legend of the shading
   if (shadeVals) {
     const bins = binValues(shadeVals);
-    const lx = X1 + 78, ly = T;
+    const lx = EX1 + 78, ly = T;
     const lg = g.group().attr({ 'data-role': 'legend', 'data-scale-kind': bins.scale });
     lg.plain(shadeVals.title.length > 34 ? shadeVals.title.slice(0, 33) + '…' : shadeVals.title).attr({ x: lx, y: ly, style: `font-size:12px;font-weight:600`, fill: PALETTE.ink });
     lg.plain(bins.scale === 'log' ? 'per triangle; steps equal in log₁₀' : 'at triangle centres; equal steps').attr({ x: lx, y: ly + 16, style: `font-size:11px`, fill: PALETTE.ink });
@@ -298,11 +361,48 @@ function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: num
     if (bins.scale === 'log' && bins.edges[bins.edges.length - 1] < 1e-12) {
       lg.plain('all at round-off level (below 1e-12)').attr({ x: lx, y: ly + 28 + RAMP_STEPS * sh + 16, style: `font-size:11px`, fill: PALETTE.ink });
     }
+    lay.reserve([lx - 4, ly - 14, lx + legendW, ly + 28 + RAMP_STEPS * sh + 22]);
   }
+
+  // the origin: a ring with x and y arrows, labels placed clear of everything drawn so far
+  if (originShown) {
+    const og2 = g.group().attr({ 'data-role': 'origin', 'data-x': '0', 'data-y': '0', transform: `translate(${num(OX)} ${num(OY)})` });
+    originMark(og2, 0, 0, 'origin-arrows', 30);
+    lay.line(OX, OY, OX + 30, OY); lay.line(OX, OY, OX, OY - 30);
+    lay.reserve([OX - 5, OY - 5, OX + 5, OY + 5]);
+    placeText(og2, lay, OX, OY, '(0, 0)', 11, 'origin-label', [[-9, 16, 'end'], [9, 16, 'start'], [-9, -8, 'end'], [9, -8, 'start'], [-9, 30, 'end'], [9, 30, 'start'], [-9, -22, 'end'], [-24, 16, 'end'], [-24, -8, 'end']]);
+    placeText(og2, lay, OX, OY, 'x', 11, 'origin-x', [[36, 4, 'start'], [30, 16, 'middle'], [30, -7, 'middle'], [44, 4, 'start']]);
+    placeText(og2, lay, OX, OY, 'y', 11, 'origin-y', [[0, -36, 'middle'], [-8, -28, 'end'], [8, -28, 'start'], [0, -46, 'middle']]);
+  }
+
+  // centroid marker: ring with two opposite filled quarters; its label where nothing is drawn
+  const cg = g.group().attr({ 'data-role': 'centroid', 'data-x': num(cx), 'data-y': num(cy), transform: `translate(${num(CX)} ${num(CY)})` });
+  cg.circle(16).center(0, 0).attr({ fill: PALETTE.paper, stroke: PALETTE.ink, 'stroke-width': 1.4 });
+  cg.path('M0 0L8 0A8 8 0 0 0 0 -8ZM0 0L-8 0A8 8 0 0 0 0 8Z').attr({ fill: PALETTE.ink });
+  lay.reserve([CX - 9, CY - 9, CX + 9, CY + 9]);
+  const around: [number, number, 'start' | 'end' | 'middle'][] = [];
+  for (const f of [1, 1.8, 2.8, 4]) around.push([11 * f, 16 * f, 'start'], [11 * f, -6 * f, 'start'], [-11 * f, 16 * f, 'end'], [-11 * f, -6 * f, 'end'], [0, 22 * f, 'middle'], [0, -12 * f, 'middle']);
+  placeText(cg, lay, CX, CY, 'centroid', 11, 'centroid-label', around);
   return { width, height, map: m };
 }
 
-function finish(svg: Svg, width: number, height: number, title: string): string {
+/** A ring with x and y arrows at (x, y) (drawing units), arrows `len` long. */
+function originMark(into: SvgEl, x: number, y: number, role: string, len: number): void {
+  const o = into.group().attr({ 'data-role': role, fill: 'none', stroke: PALETTE.axis, 'stroke-width': 1.3 });
+  o.circle(7).center(x, y);
+  o.path(`M${num(x + 3.5)} ${num(y)}L${num(x + len)} ${num(y)}M${num(x + len - 5)} ${num(y - 3)}L${num(x + len)} ${num(y)}L${num(x + len - 5)} ${num(y + 3)}` +
+    `M${num(x)} ${num(y - 3.5)}L${num(x)} ${num(y - len)}M${num(x - 3)} ${num(y - len + 5)}L${num(x)} ${num(y - len)}L${num(x + 3)} ${num(y - len + 5)}`);
+}
+
+/** A small label at one of the offsets (dx, dy, anchor) from (X, Y), the first clear of the layout. */
+function placeText(into: SvgEl, lay: Layout, X: number, Y: number, text: string, px: number, role: string, offsets: readonly [number, number, 'start' | 'middle' | 'end'][]): void {
+  const boxes = offsets.map(([dx, dy, a]) => textBox(X + dx, Y + dy, text, px, a));
+  const { index } = lay.place(boxes);
+  const [dx, dy, a] = offsets[index];
+  into.plain(text).attr({ x: num(dx), y: num(dy), ...(a === 'start' ? {} : { 'text-anchor': a }), style: `font-size:${px}px;paint-order:stroke;stroke:#ffffff;stroke-width:3px`, fill: PALETTE.ink, 'data-role': role });
+}
+
+function finish(svg: SvgEl, width: number, height: number, title: string): string {
   svg.attr({ width: num(width), height: num(height), viewBox: `0 0 ${num(width)} ${num(height)}`, 'font-family': FONT_FAMILY });
   svg.element('title').words(title);
   return svg.svg();
@@ -310,8 +410,7 @@ function finish(svg: Svg, width: number, height: number, title: string): string 
 
 /** One part, one drawing (SVG text). */
 export async function drawPart(r: SectionResult, opts: DrawOptions = {}): Promise<string> {
-  const { SVG } = await loadSvgStack();
-  const svg = SVG();
+  const svg = svgRoot();
   svg.rect('100%', '100%').attr({ fill: PALETTE.paper, 'data-role': 'paper' });
   const { width, height, map } = drawInto(svg, r, opts, 0);
   svg.attr({ 'data-scale': num(map.k), 'data-ox': num(map.ox), 'data-oy': num(map.oy) });
@@ -320,12 +419,17 @@ export async function drawPart(r: SectionResult, opts: DrawOptions = {}): Promis
 
 /** Several parts stacked on one sheet (SVG text). */
 export async function drawSheet(results: SectionResult[], opts: DrawOptions = {}): Promise<string> {
-  const { SVG } = await loadSvgStack();
-  const svg = SVG();
+  const svg = svgRoot();
   svg.rect('100%', '100%').attr({ fill: PALETTE.paper, 'data-role': 'paper' });
-  let top = 0, width = 0;
+  // one scale for every part: the one that fits the largest; every scale bar has the same length
+  const scale = commonScale(results);
+  const head = results.length === 1
+    ? `1 part; its scale bar is ${formatNumber(scale.barLength, 6)} ${scale.barUnit} long`
+    : `${results.length} parts drawn at one scale: every scale bar is ${formatNumber(scale.barLength, 6)} ${scale.barUnit} long`;
+  svg.plain(head).attr({ x: 14, y: 20, style: 'font-size:13px;font-weight:600', fill: PALETTE.ink, 'data-role': 'sheet-scale', 'data-scale-per-mm': num(scale.kPerMm) });
+  let top = 30, width = 28 + textWidth(head, 13, true);
   for (const r of results) {
-    const d = drawInto(svg, r, opts, top);
+    const d = drawInto(svg, r, opts, top, scale);
     top += d.height + 16;
     width = Math.max(width, d.width);
   }

@@ -9,14 +9,15 @@ import { densityText } from './words.js';
 import { MASS_CAUTION } from './cautions.js';
 import { formatNumber, quantityRows, renderRows } from './text.js';
 
-const ORDER = [
+/** Order of the fabrication quantities in every writer. */
+export const FABRICATION_ORDER = [
   'cutLength', 'cutLengthOuter', 'cutLengthInner', 'pierces', 'blankWidth', 'blankHeight', 'blankAngle', 'blankArea',
   'scrapFraction', 'netMass', 'blankMass',
 ] as const;
 
-function ordered(f: FabricationFigures): Record<string, Quantity> {
+export function orderedFabrication(f: FabricationFigures): Record<string, Quantity> {
   const out: Record<string, Quantity> = {};
-  for (const k of ORDER) {
+  for (const k of FABRICATION_ORDER) {
     const q = f.quantities[k];
     if (q) out[k] = q;
   }
@@ -40,7 +41,7 @@ export function fabricationText(f: FabricationFigures, units: string, plate?: Co
   const lines = [
     `fabrication figures — lengths in ${units}`,
     '',
-    renderRows(quantityRows(ordered(f), units)),
+    renderRows(quantityRows(orderedFabrication(f), units)),
     '',
     `bounding rectangle (axis-aligned): ${formatNumber(x.width)} × ${formatNumber(x.height)} ${units}, ` +
       `x ${formatNumber(x.xMin)} to ${formatNumber(x.xMax)}, y ${formatNumber(x.yMin)} to ${formatNumber(x.yMax)}`,
@@ -60,7 +61,7 @@ export function fabricationText(f: FabricationFigures, units: string, plate?: Co
 
 export function fabricationJson(f: FabricationFigures, units: string, plate?: ConstantPlate): Record<string, unknown> {
   const q: Record<string, Quantity> = {};
-  for (const [k, v] of Object.entries(ordered(f))) q[k] = { value: v.value, error: v.error };
+  for (const [k, v] of Object.entries(orderedFabrication(f))) q[k] = { value: v.value, error: v.error };
   return {
     units: { length: units, angle: 'deg', mass: 'kg' },
     quantities: q,

@@ -6,14 +6,17 @@
  *
  * Machine-readable hooks: each quantity row is `<tr data-key="area">` and its value and estimate cells
  * carry `data-value` / `data-error` with the shortest round-trip text of the very numbers `measure --json`
- * prints (JSON.stringify and String give the same digits for finite numbers). The value cell shows all
- * those digits; digits finer than the estimate are set in a lighter shade.
+ * prints (JSON.stringify and String give the same digits for finite numbers). The value cell shows the value
+ * rounded to what its estimate supports (ROUNDING_RULE, stated in the report's header).
  */
 import type { LevelResult, SectionResult } from '../analysis/measure.js';
 import type { MassResult } from '../analysis/plate.js';
 import { densityText, warningText } from './words.js';
 import { GEOMETRY_CAUTION, MASS_CAUTION } from './cautions.js';
-import { formatError, formatNumber } from './text.js';
+import { formatError, formatNumber, formatValue } from './text.js';
+import { ROUNDING_RULE } from './numbers.js';
+import type { FabricationFigures } from '../properties/fabrication.js';
+import { orderedFabrication } from './fabricationText.js';
 import { type Quantity, SECTION_QUANTITIES, quantityInfo, unitText } from '../properties/quantities.js';
 import { convergencePlot, convergencePoints } from './convergence.js';
 import { type DrawOptions, drawPart } from './draw.js';
@@ -29,6 +32,10 @@ export interface ReportPart {
   mass?: MassResult;
   /** Why mass is not shown (printed instead of the mass table). */
   massNote?: string;
+  /** Fabrication figures (cut length, pierces, blank, scrap; masses with a constant plate). */
+  fabrication?: FabricationFigures;
+  /** Length of the marking (etch) lines over this part, when the drawing has any. */
+  markingLength?: number;
   /** How the drawing was read: the interpretation's lines in words, and what the picture shows of it. */
   reading?: { lines: string[]; draw: DrawOptions['reading'] };
 }
@@ -49,26 +56,6 @@ export function escapeHtml(s: string): string {
   return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
 }
 
-/**
- * Split the shortest round-trip text of v into the digits the estimate supports and the finer ones.
- * Exponent forms and zero estimates are not split.
- */
-export function splitDigits(v: number, err: number): [string, string] {
-  const s = num(v);
-  if (!(err > 0) || !Number.isFinite(err) || /e/i.test(s)) return [s, ''];
-  const p = Math.floor(Math.log10(err)); // decimal position of the estimate's leading digit
-  const dot = s.indexOf('.') >= 0 ? s.indexOf('.') : s.length;
-  for (let j = 0; j < s.length; j++) {
-    if (!/\d/.test(s[j])) continue;
-    const pos = j < dot ? dot - j - 1 : -(j - dot);
-    if (pos < p) {
-      // keep a leading "0." visible as supported digits
-      if (j > dot || !/^[-0.]*$/.test(s.slice(0, j))) return [s.slice(0, j), s.slice(j)];
-    }
-  }
-  return [s, ''];
-}
-
 const CSS = `
 :root { color-scheme: light; }
 * { box-sizing: border-box; }
@@ -87,7 +74,6 @@ th, td { text-align: left; padding: 3px 8px; border-bottom: 1px solid #d5dbe1; v
 th { background: #eef1f4; border-bottom: 1.5px solid #1b2530; }
 tbody th { background: none; border-bottom: 1px solid #d5dbe1; font-weight: 400; }
 td.num { text-align: right; white-space: nowrap; }
-.beyond { color: #5f6b77; }
 .plots { display: flex; flex-wrap: wrap; gap: 12px; }
 .caution { border-left: 4px solid #a33f00; padding: 6px 10px; background: #fbf4ee; margin: 6px 0; }
 .warning { border-left: 4px solid #1b2530; padding: 6px 10px; background: #eef1f4; margin: 6px 0; }
@@ -101,7 +87,6 @@ footer { margin-top: 32px; font-size: 12px; border-top: 1px solid #d5dbe1; paddi
   table, figure, .plots, .caution, dl { break-inside: avoid; }
   tr { break-inside: avoid; }
   th { background: #fff; }
-  .beyond { color: #444; }
   .caution, .warning { background: #fff; }
 }
 `;
@@ -110,10 +95,9 @@ function quantityTable(q: Record<string, Quantity>, keys: readonly string[], len
   const rows = keys.map((key) => {
     const v = q[key];
     const info = quantityInfo(key);
-    const [sig, rest] = splitDigits(v.value, v.error);
     const unit = info ? unitText(info.dimension, lengthUnit) : '';
     return `<tr data-key="${escapeHtml(key)}"><th scope="row"><code>${escapeHtml(key)}</code></th>` +
-      `<td class="num" data-value="${num(v.value)}">${escapeHtml(sig)}${rest ? `<span class="beyond">${escapeHtml(rest)}</span>` : ''}</td>` +
+      `<td class="num" data-value="${num(v.value)}">${escapeHtml(formatValue(v.value, v.error))}</td>` +
       `<td class="num" data-error="${num(v.error)}">± ${escapeHtml(formatError(v.error))}</td>` +
       `<td>${escapeHtml(unit)}</td><td>${escapeHtml(info?.description ?? '')}</td></tr>`;
   });
@@ -161,38 +145,80 @@ function massBlock(p: ReportPart): string {
     `${m.method.tolerance === null ? 'no tolerance requested' : `tolerance ${m.method.tolerance}`}, stop: ${escapeHtml(stopText(m.method))}.</p>`;
 }
 
+/** Fabrication block: cut length, pierces, blank, scrap (and masses with a constant plate), box, marking. */
+function fabricationBlock(p: ReportPart): string {
+  const f = p.fabrication;
+  if (!f) return '';
+  const u = p.result.units, x = f.box;
+  const items: [string, string][] = [
+    ['bounding box', `${formatNumber(x.width)} × ${formatNumber(x.height)} ${u}, x ${formatNumber(x.xMin)} to ${formatNumber(x.xMax)}, y ${formatNumber(x.yMin)} to ${formatNumber(x.yMax)} ${u}`],
+    ['blank', `smallest enclosing rectangle ${formatNumber(f.blank.width, 8)} × ${formatNumber(f.blank.height, 8)} ${u}, long side at ${formatNumber(f.blank.angle, 6)}° from +x`],
+    ['pierces', 'one per closed contour (outer contours and cut-outs); cut length: every contour once'],
+    ['marking', p.markingLength !== undefined && p.markingLength > 0 ? `${formatNumber(p.markingLength)} ${u} of marking (etch) lines, not cut` : 'no marking lines'],
+  ];
+  if (!f.quantities.netMass) items.push(['masses', 'not computed (give a thickness and a material or density)']);
+  return `<h3>Fabrication</h3>
+${quantityTable(orderedFabrication(f), Object.keys(orderedFabrication(f)), u, 'fabrication')}
+<dl class="trace" data-role="fabrication-notes">${items.map(([k, v]) => `<dt>${escapeHtml(k)}</dt><dd>${escapeHtml(v)}</dd>`).join('')}</dl>`;
+}
+
+/** Convergence plots where the values came from refinement and changed; otherwise a sentence saying why not. */
+async function convergenceBlock(p: ReportPart): Promise<string> {
+  const r = p.result;
+  if (r.method.path === 'boundary') {
+    return '<p data-role="convergence-note">No convergence to show: the values come from exact boundary integrals (no mesh, no refinement); each ± is the round-off allowance.</p>';
+  }
+  const levels = p.convergence ?? r.levels;
+  const keys = [['area', 'area'], ['Ix', 'length4']] as const;
+  const moved = keys.filter(([k]) => convergencePoints(levels, k).some((c) => c.change > 0));
+  if (moved.length === 0) {
+    return `<p data-role="convergence-note">No convergence to show: area and Ix did not change at all in floating point over ${levels.length - 1} refinements (${levels.map((l) => l.triangles).join(' → ')} triangles); the result is exact for this mesh, and each ± is the round-off allowance.</p>`;
+  }
+  const plots = await Promise.all(moved.map(([k, dim]) => convergencePlot(convergencePoints(levels, k), k, unitText(dim, r.units), k)));
+  const anyZero = moved.some(([k]) => convergencePoints(levels, k).some((c) => c.change === 0));
+  return `<div class="plots">${plots.join('')}</div>
+<p><small>Change of each value from one refinement of the curved triangles to the next (${levels.length - 1} refinements; straight triangles are exact and are not refined; ${levels.map((l) => l.triangles).join(' → ')} triangles).${anyZero ? ' Open markers on the bottom edge: no change at all in floating point.' : ''} The table's values come from the run described under Method.</small></p>`;
+}
+
 async function partSection(p: ReportPart, index: number): Promise<string> {
   const r = p.result;
   const drawing = await drawPart(r, { reading: p.reading?.draw });
   const q = r.quantities as Record<string, Quantity>;
   const keys = SECTION_QUANTITIES.map((i) => i.key);
-  const levels = p.convergence ?? r.levels;
-  const plots = await Promise.all([
-    convergencePlot(convergencePoints(levels, 'area'), 'area', unitText('area', r.units), 'area'),
-    convergencePlot(convergencePoints(levels, 'Ix'), 'Ix', unitText('length4', r.units), 'Ix'),
-  ]);
-  const anyZero = (['area', 'Ix'] as const).some((k) => convergencePoints(levels, k).some((c) => c.change === 0));
   const holes = r.geometry.part.regions.reduce((n, g) => n + g.holes.length, 0);
   const warn = r.warnings.map((w) => `<p class="warning">Warning: ${escapeHtml(warningText(w))}</p>`).join('\n');
   return `<section class="part" data-part="${escapeHtml(r.part)}" data-index="${index}">
 <h2>${escapeHtml(r.part)}</h2>
 ${p.reading ? `<ul data-role="reading">${p.reading.lines.map((l) => `<li>${escapeHtml(l)}</li>`).join('')}</ul>` : ''}
 <p>Lengths in ${escapeHtml(r.units)}; ${r.geometry.part.regions.length} region${r.geometry.part.regions.length === 1 ? '' : 's'}, ${holes} cut-out${holes === 1 ? '' : 's'}.</p>
-<figure data-role="drawing">${drawing}<figcaption>Material shaded, cut-outs clear; centroid marked; solid line: I1 axis, dash-dot line: I2 axis; dashed frame: bounding box. Curves drawn exactly (SVG arcs and Béziers).</figcaption></figure>
+<figure data-role="drawing">${drawing}<figcaption>Material shaded, cut-outs clear; centroid marked; solid line: I1 axis, dash-dot line: I2 axis; dashed frame: bounding box; ring with x and y arrows: the origin (0, 0) of the coordinates (or, when it lies off the drawing, a note under the scale bar). Curves drawn exactly (SVG arcs and Béziers).</figcaption></figure>
 <h3>Quantities</h3>
 ${quantityTable(q, keys, r.units, 'quantities')}
 <h3>Method</h3>
 ${methodList(r)}
 <h3>Convergence</h3>
-<div class="plots">${plots.join('')}</div>
-<p><small>Change of each value from one refinement of the curved triangles to the next (${levels.length - 1} refinements; straight triangles are exact and are not refined; ${levels.map((l) => l.triangles).join(' → ')} triangles).${anyZero ? ' Open markers on the bottom edge: no change at all in floating point.' : ''} The table's values come from the run described under Method.</small></p>
+${await convergenceBlock(p)}
 <h3>Mass and materials</h3>
 ${massBlock(p)}
+${fabricationBlock(p)}
 <h3>Cautions</h3>
 ${warn}
 <p class="caution">${escapeHtml(GEOMETRY_CAUTION)}</p>
 ${p.mass ? `<p class="caution">${escapeHtml(MASS_CAUTION)}</p>` : ''}
 </section>`;
+}
+
+const BARE_NUMBER = /^\s*[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?\s*$/i;
+
+/**
+ * One setting with its unit: a bare thickness is in the part's length unit and a bare density in kg/m³
+ * (the settings grammar, src/model/settings.ts); an expression says its unit in brackets; counts have none.
+ */
+export function settingText(key: string, value: string, lengthUnit: string): string {
+  const unit = key === 'thickness' ? lengthUnit : key === 'density' ? 'kg/m³' : undefined;
+  if (unit === undefined) return key === 'degree' ? `rule degree ${value}` : key === 'levels' ? `${value} refinement levels` : `${key} ${value}`;
+  if (BARE_NUMBER.test(value)) return `${key} ${value.trim()} ${unit}`;
+  return /\b[xy]\b/.test(value) ? `${key} ${value} (${unit})` : `${key} ${value}`; // an expression in x and y
 }
 
 /** The report as one HTML document. */
@@ -201,14 +227,16 @@ export async function buildReport(input: ReportInput): Promise<string> {
   for (let i = 0; i < input.parts.length; i++) sections.push(await partSection(input.parts[i], i + 1));
   const names = input.parts.map((p) => p.result.part);
   const title = `${names.length === 1 ? names[0] : `${names.length} parts`} — platewise report`;
-  const settings = Object.entries(input.settings ?? {}).filter(([, v]) => v !== undefined).map(([k, v]) => `${k} ${v}`).join(', ') || 'defaults';
+  const lengthUnit = input.parts[0]?.result.units ?? 'mm';
+  const settings = Object.entries(input.settings ?? {}).filter(([, v]) => v !== undefined).map(([k, v]) => settingText(k, String(v), lengthUnit)).join(', ') || 'defaults';
   const trace = `<dl class="trace" data-role="trace">
 <dt>input file</dt><dd><code data-role="file">${escapeHtml(input.file.name)}</code></dd>
 <dt>SHA-256</dt><dd><code data-role="sha256">${escapeHtml(input.file.sha256)}</code></dd>
 <dt>tool</dt><dd>platewise <span data-role="version">${escapeHtml(input.version)}</span></dd>
 <dt>date</dt><dd><time data-role="date" datetime="${escapeHtml(input.date)}">${escapeHtml(input.date)}</time></dd>
 <dt>settings</dt><dd>${escapeHtml(settings)}</dd>
-</dl>`;
+</dl>
+<p data-role="rounding-rule"><small>${escapeHtml(ROUNDING_RULE)}</small></p>`;
   return `<!doctype html>
 <html lang="en">
 <head>

@@ -15,7 +15,7 @@ import { type MassMomentUnit, type MassUnit, massFromKg, massMomentFromSI } from
 import { MASS_QUANTITIES, type MassKey } from '../properties/mass.js';
 import type { Quantity } from '../properties/quantities.js';
 import { densityText, integralWarningText } from './words.js';
-import { type QuantityRow, formatError, formatNumber, renderRows } from './text.js';
+import { type QuantityRow, formatError, formatNumber, formatValue, renderRows } from './text.js';
 
 export interface MassUnits {
   mass: MassUnit;
@@ -45,7 +45,7 @@ function convertAll(q: Record<MassKey, Quantity>, u: MassUnits): Record<string, 
 function rows(q: Record<MassKey, Quantity>, length: string, u: MassUnits): QuantityRow[] {
   return MASS_QUANTITIES.map((i) => {
     const c = convert(i.key as MassKey, q[i.key as MassKey], u);
-    return { key: i.key, value: formatNumber(c.value), error: formatError(c.error), unit: unitOf(i.key as MassKey, length, u) };
+    return { key: i.key, value: formatValue(c.value, c.error), error: formatError(c.error), unit: unitOf(i.key as MassKey, length, u) };
   });
 }
 
@@ -97,13 +97,13 @@ export function integralText(r: ExpressionResult, fUnit?: string): string {
   const f = fUnit ? fUnit : '(unit of f)';
   const L = r.units;
   const rowsOut: QuantityRow[] = [
-    { key: '∫ f dA', value: formatNumber(r.integral.value), error: formatError(r.integral.error), unit: `${f}·${L}²` },
-    { key: '∫ f·x dA', value: formatNumber(r.momentX.value), error: formatError(r.momentX.error), unit: `${f}·${L}³` },
-    { key: '∫ f·y dA', value: formatNumber(r.momentY.value), error: formatError(r.momentY.error), unit: `${f}·${L}³` },
+    { key: '∫ f dA', value: formatValue(r.integral.value, r.integral.error), error: formatError(r.integral.error), unit: `${f}·${L}²` },
+    { key: '∫ f·x dA', value: formatValue(r.momentX.value, r.momentX.error), error: formatError(r.momentX.error), unit: `${f}·${L}³` },
+    { key: '∫ f·y dA', value: formatValue(r.momentY.value, r.momentY.error), error: formatError(r.momentY.error), unit: `${f}·${L}³` },
   ];
   if (r.pointX && r.pointY) {
-    rowsOut.push({ key: 'point of action x', value: formatNumber(r.pointX.value), error: formatError(r.pointX.error), unit: L });
-    rowsOut.push({ key: 'point of action y', value: formatNumber(r.pointY.value), error: formatError(r.pointY.error), unit: L });
+    rowsOut.push({ key: 'point of action x', value: formatValue(r.pointX.value, r.pointX.error), error: formatError(r.pointX.error), unit: L });
+    rowsOut.push({ key: 'point of action y', value: formatValue(r.pointY.value, r.pointY.error), error: formatError(r.pointY.error), unit: L });
   }
   const m = r.method;
   const out = [

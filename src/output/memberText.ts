@@ -8,7 +8,7 @@ import type { MemberResult } from '../analysis/torsionMember.js';
 import type { TorsionFact } from '../analysis/torsion.js';
 import { LENGTH_POWER, type Quantity, quantityInfo, unitText } from '../properties/quantities.js';
 import { GEOMETRY_CAUTION } from './cautions.js';
-import { formatError, formatNumber } from './numbers.js';
+import { formatError, formatNumber, formatValue } from './numbers.js';
 
 export const PRISMATIC_NOTE =
   'Torsion constant, shear centre and warping constant treat the shape as the cross-section of a long prismatic member ' +
@@ -41,7 +41,7 @@ export function torsionFactText(f: TorsionFact): string {
 function rows(r: MemberResult, keys: readonly string[], src: Record<string, Quantity>, to: LengthUnit, out: string[]): void {
   for (const k of keys) {
     const c = convert(k, src[k], r.units, to);
-    out.push(`  ${k.padEnd(14)} ${formatNumber(c.value).padStart(18)} ± ${formatError(c.error).padEnd(8)} ${c.unit}`);
+    out.push(`  ${k.padEnd(14)} ${formatValue(c.value, c.error).padStart(18)} ± ${formatError(c.error).padEnd(8)} ${c.unit}`);
   }
 }
 

@@ -6,8 +6,8 @@ import { GEOMETRY_CAUTION } from './cautions.js';
 import { warningJson, warningText } from './words.js';
 import { type Quantity, SECTION_QUANTITIES, quantityInfo, unitText } from '../properties/quantities.js';
 
-export { formatError, formatNumber } from './numbers.js';
-import { formatError, formatNumber } from './numbers.js';
+export { formatError, formatNumber, formatValue } from './numbers.js';
+import { formatError, formatValue } from './numbers.js';
 
 export interface QuantityRow { key: string; value: string; error: string; unit: string; }
 
@@ -15,7 +15,7 @@ export function quantityRows(q: Record<string, Quantity>, lengthUnit: string, ma
   const rows: QuantityRow[] = [];
   for (const [key, v] of Object.entries(q)) {
     const info = quantityInfo(key);
-    rows.push({ key, value: formatNumber(v.value), error: formatError(v.error), unit: info ? unitText(info.dimension, lengthUnit, massUnit) : '' });
+    rows.push({ key, value: formatValue(v.value, v.error), error: formatError(v.error), unit: info ? unitText(info.dimension, lengthUnit, massUnit) : '' });
   }
   return rows;
 }

@@ -46,6 +46,11 @@ export interface StatedValue {
   dimension: Dimension;
   /** The number as written, in `unit`. */
   value: number;
+  /**
+   * Place value of the last digit written, in `unit` ("0.588" → 0.001, "1.20e3" → 10, "588" → 1). A JSON
+   * number gives its shortest text (JSON itself drops trailing zeros: write "0.5880 m" as a text to keep them).
+   */
+  lastDigit: number;
   /** The unit as written and parsed (for dimensionless values without a unit: scale of a plain number). */
   unit: ParsedUnit;
   tolerance: StatedTolerance | null;
@@ -105,11 +110,21 @@ export function unitFor(dim: Dimension, text: string, where: string): ParsedUnit
   return u;
 }
 
-/** "12.5 in²" → number and unit text; a plain number gives unit ''. */
-export function splitValueText(s: string, where: string): { value: number; unit: string } {
+/** Place value of the last digit of a number as written: "0.588" → 0.001, "1.20e3" → 10, "588" → 1. */
+export function lastDigitOf(numberText: string): number {
+  const m = /^[+-]?(\d*)(?:\.(\d*))?(?:[eE]([+-]?\d+))?$/.exec(numberText.trim());
+  if (!m) return NaN;
+  const decimals = (m[2] ?? '').length, exponent = m[3] !== undefined ? Number(m[3]) : 0;
+  // 10^(exponent − decimals) computed as a quotient or product of exact powers of ten
+  const p = exponent - decimals;
+  return p >= 0 ? 10 ** p : 1 / 10 ** -p;
+}
+
+/** "12.5 in²" → number, the place value of its last digit, and unit text; a plain number gives unit ''. */
+export function splitValueText(s: string, where: string): { value: number; lastDigit: number; unit: string } {
   const m = /^\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*(.*?)\s*$/.exec(s);
   if (!m) throw new InputError(where, `expected a number, optionally followed by a unit (such as "12.5 mm²"), got ${describeValue(s)}`);
-  return { value: Number(m[1]), unit: m[2] };
+  return { value: Number(m[1]), lastDigit: lastDigitOf(m[1]), unit: m[2] };
 }
 
 /** Largest relative tolerance accepted: 100% (beyond it every computed value of the right sign passes). */
@@ -188,16 +203,18 @@ export function parseReferenceJson(text: string, label: string, options: Referen
     const dim = checkQuantity(e.quantity, at(`${w}.quantity`), options);
     if (seen.has(e.quantity)) throw new InputError(at(`${w}.quantity`), `"${e.quantity}" is already stated at ${seen.get(e.quantity)}; expected each quantity once`);
     seen.set(e.quantity, w);
-    let value: number, unitText: string, unitWhere: string;
+    let value: number, lastDigit: number, unitText: string, unitWhere: string;
     if (typeof e.value === 'number') {
       if (!Number.isFinite(e.value)) throw new InputError(at(`${w}.value`), `expected a finite number, got ${e.value}`);
       value = e.value;
+      lastDigit = lastDigitOf(String(e.value));
       if (e.unit !== undefined && typeof e.unit !== 'string') throw new InputError(at(`${w}.unit`), `expected a unit text, got ${describeValue(e.unit)}`);
       unitText = (e.unit as string | undefined) ?? '';
       unitWhere = e.unit === undefined ? at(w) : at(`${w}.unit`);
     } else if (typeof e.value === 'string') {
       const sv = splitValueText(e.value, at(`${w}.value`));
       value = sv.value;
+      lastDigit = sv.lastDigit;
       unitText = sv.unit;
       if (e.unit !== undefined) {
         if (typeof e.unit !== 'string') throw new InputError(at(`${w}.unit`), `expected a unit text, got ${describeValue(e.unit)}`);
@@ -240,7 +257,7 @@ export function parseReferenceJson(text: string, label: string, options: Referen
       }
     }
     if (e.note !== undefined && typeof e.note !== 'string') throw new InputError(at(`${w}.note`), `expected a text, got ${describeValue(e.note)}`);
-    out.push({ quantity: e.quantity, dimension: dim, value, unit, tolerance, note: e.note as string | undefined, where: at(w) });
+    out.push({ quantity: e.quantity, dimension: dim, value, lastDigit, unit, tolerance, note: e.note as string | undefined, where: at(w) });
   });
   return { source: label, part: obj.part as string | undefined, values: out };
 }
@@ -272,7 +289,7 @@ export function parseReferenceCsv(text: string, label: string, options: Referenc
     const unit = unitFor(dim, unitText, unitWhere);
     const tolerance = rec.tolerance !== undefined ? parseToleranceText(rec.tolerance, dim, at('tolerance')) : null;
     const note = rec.note !== undefined && rec.note.trim() !== '' ? rec.note : undefined;
-    out.push({ quantity: name, dimension: dim, value: sv.value, unit, tolerance, note, where: csvWhere(label, loc.line, 1) });
+    out.push({ quantity: name, dimension: dim, value: sv.value, lastDigit: sv.lastDigit, unit, tolerance, note, where: csvWhere(label, loc.line, 1) });
   });
   return { source: label, values: out };
 }

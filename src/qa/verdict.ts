@@ -24,6 +24,11 @@
  * - counts (pierces): exact (T = 0).
  * - ratios (scrap fraction): 0.001 absolute (0.1 percentage point).
  * - masses, mass moments, forces: 0.5 % relative: masses are usually stated to 3 significant figures.
+ *
+ * Tolerance from the stated digits (optional, `toleranceFromDigits`): a value without a tolerance of its own
+ * is taken to be right to half a unit in its last written digit (0.588 m → ± 0.0005 m, 7 → ± 0.5, 1.20e3 → ± 5),
+ * converted to the computed value's unit. Common practice, no source: the rounding a value stated to that
+ * many digits can carry. A tolerance written in the reference still wins.
  */
 import type { LengthUnit } from '../base/units.js';
 import { type Dimension, type Quantity, quantityInfo, unitText } from '../properties/quantities.js';
@@ -82,6 +87,10 @@ export interface CompareContext {
   lengthUnit: LengthUnit;
   /** Bounding-box diagonal of the part, in its unit (for the default length tolerance). */
   partSize: number;
+  /** Values without a tolerance of their own: half a unit in the last stated digit instead of the defaults. */
+  toleranceFromDigits?: boolean;
+  /** The one constant thickness the masses were computed with (part's unit), for the thickness-slip hint. */
+  thickness?: number;
 }
 
 const PRODUCT_SCALE: Record<string, [string, string]> = {
@@ -139,7 +148,8 @@ export interface ComparisonRow {
   /** Absolute tolerance used, in `unit`. */
   tolerance: number;
   toleranceText: string;
-  toleranceSource: 'reference' | 'default';
+  /** Where the tolerance came from: the reference, the stated digits (toleranceFromDigits), or a default. */
+  toleranceSource: 'reference' | 'digits' | 'default';
   verdict: Verdict;
   /** Why a row is inconclusive when that is not the error estimate (not computed, not finite). */
   note?: string;
@@ -175,6 +185,11 @@ function rowFor(sv: StatedValue, quantities: Readonly<Record<string, Quantity | 
     tol = sv.tolerance.kind === 'relative'
       ? { kind: 'relative', fraction: sv.tolerance.fraction }
       : { kind: 'absolute', value: sv.tolerance.value * factorToReport(sv.tolerance.unit, context.lengthUnit) };
+  } else if (context.toleranceFromDigits && sv.lastDigit > 0) {
+    source = 'digits';
+    const half = sv.lastDigit / 2;
+    text = `half the last stated digit: ± ${Number(half.toPrecision(12))}${sv.unit.text ? ' ' + sv.unit.text : ''}`;
+    tol = { kind: 'absolute', value: half * f };
   } else {
     source = 'default';
     const d = defaultTolerance(sv.quantity, sv.dimension, context, quantities);
@@ -192,7 +207,7 @@ function rowFor(sv: StatedValue, quantities: Readonly<Record<string, Quantity | 
   const row: ComparisonRow = { ...common, computed: q.value, error: q.error, difference: j.difference, tolerance: j.tolerance, verdict: j.verdict };
   if (!Number.isFinite(q.value) || !Number.isFinite(q.error)) row.note = 'computed value or its error is not finite';
   else if (q.errorIsBound === false) row.note = 'the computed error is an estimate, not a bound';
-  const hint = hintFor(row, sv.dimension);
+  const hint = hintFor(row, sv.dimension, context.thickness, context.lengthUnit);
   if (hint) row.hint = hint;
   return row;
 }

@@ -6,17 +6,16 @@
  * in test-artifacts/browser/ (git-ignored). Needs the dist build (tsc) and Chromium (.ci/run installs it).
  */
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { type BrowserContext, chromium } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
+import { ARTIFACTS, useChromium } from './chromium.js';
+import { formatValue } from '../../src/output/numbers.js';
+
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const CLI = join(ROOT, 'dist', 'cli', 'main.js');
-const CHROMIUM = '/usr/bin/chromium';
-const ARTIFACTS = join(ROOT, 'test-artifacts', 'browser');
 
 function platewise(args: string[]) {
   const r = spawnSync(process.execPath, [CLI, ...args], { cwd: ROOT, encoding: 'utf8' });
@@ -30,25 +29,7 @@ const CASES = [
   { sample: 'samples/bracket.svg', cutouts: 5 },
 ];
 
-let profile: string;
-let ctx: BrowserContext;
-
-beforeAll(async () => {
-  if (!existsSync(CHROMIUM)) throw new Error(`${CHROMIUM} is missing: install Debian's package (apt-get update && apt-get install -y chromium)`);
-  mkdirSync(ARTIFACTS, { recursive: true });
-  profile = mkdtempSync(join(tmpdir(), 'platewise-chromium-'));
-  ctx = await chromium.launchPersistentContext(profile, {
-    executablePath: CHROMIUM,
-    headless: true,
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
-    viewport: { width: 1000, height: 900 },
-  });
-});
-
-afterAll(async () => {
-  await ctx?.close();
-  if (profile) rmSync(profile, { recursive: true, force: true });
-});
+const browser = useChromium();
 
 describe('HTML report in Chromium', () => {
   for (const c of CASES) {
@@ -57,7 +38,7 @@ describe('HTML report in Chromium', () => {
       const html = join(ARTIFACTS, `${name}.html`);
       platewise(['report', c.sample, '-o', html, '--force']); // test artefacts are replaced on every run
       const json = JSON.parse(platewise(['measure', c.sample, '--json']));
-      const page = await ctx.newPage();
+      const page = await browser().newPage();
       const requested: string[] = [];
       page.on('request', (r) => requested.push(r.url()));
       await page.goto(pathToFileURL(html).href, { waitUntil: 'load' });
@@ -70,7 +51,9 @@ describe('HTML report in Chromium', () => {
       expect(rows.map((r) => r.key)).toEqual(Object.keys(json.quantities));
       for (const r of rows) {
         expect(Number(r.value), r.key).toBe(json.quantities[r.key].value);
-        expect(Number(r.text), `${r.key} as shown`).toBe(json.quantities[r.key].value);
+        // shown rounded to what the estimate supports, never further from the value than the estimate
+        expect(r.text, `${r.key} as shown`).toBe(formatValue(json.quantities[r.key].value, json.quantities[r.key].error));
+        expect(Math.abs(Number(r.text) - json.quantities[r.key].value), r.key).toBeLessThanOrEqual(Math.max(json.quantities[r.key].error, 1e-9 * Math.abs(json.quantities[r.key].value)));
         expect(Number(r.error), r.key).toBe(json.quantities[r.key].error);
       }
 
@@ -88,7 +71,11 @@ describe('HTML report in Chromium', () => {
       expect(Math.abs(drawing.box.width / drawing.scale - json.quantities.width.value)).toBeLessThan(1e-3);
       expect(Math.abs(drawing.box.height / drawing.scale - json.quantities.height.value)).toBeLessThan(1e-3);
 
-      expect(await page.$$eval('svg[data-role="convergence"]', (s) => s.length)).toBe(2);
+      // exact boundary results: no plots, a sentence instead
+      expect(json.method.path).toBe('boundary');
+      expect(await page.$$eval('svg[data-role="convergence"]', (s) => s.length)).toBe(0);
+      expect(await page.$eval('[data-role="convergence-note"]', (e) => e.textContent)).toMatch(/exact boundary integrals/);
+      expect(await page.$$eval('table[data-role="fabrication"] tr[data-key]', (t) => t.map((x) => x.getAttribute('data-key')))).toEqual(expect.arrayContaining(['cutLength', 'pierces', 'blankWidth', 'blankHeight']));
       expect(requested.filter((u) => !u.startsWith('file:'))).toEqual([]);
 
       await page.screenshot({ path: join(ARTIFACTS, `${name}.png`), fullPage: true });

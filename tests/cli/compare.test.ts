@@ -123,6 +123,22 @@ describe('compare: verdicts and exit statuses', () => {
   });
 });
 
+describe('compare --digits-tolerance', () => {
+  // the perimeter of the plate above: 2(200 + 100) + 40π = 725.6637 mm (closed form); stated as 0.7257 m
+  // it is 0.036 mm off: fails the default 0.01 mm + 0.01 % of the diagonal (0.032 mm), passes ± 0.00005 m
+  const ref = file('digits.csv', 'quantity,value,unit\nperimeter,0.7257,m\narea,18743,mm²\n');
+  it('JSON and CSV say the tolerance came from the stated digits', () => {
+    expect(platewise(['compare', plate, '--reference', ref, '--json']).status).toBe(1);
+    const j = platewise(['compare', plate, '--reference', ref, '--json', '--digits-tolerance']);
+    expect(j.status, j.stdout + j.stderr).toBe(0);
+    const rows = JSON.parse(j.stdout).rows;
+    expect(rows[0]).toMatchObject({ quantity: 'perimeter', verdict: 'pass', toleranceSource: 'digits', toleranceText: 'half the last stated digit: ± 0.00005 m' });
+    expect(rows[0].tolerance).toBeCloseTo(0.05, 12);
+    const c = parseCsvRecords(platewise(['compare', plate, '--reference', ref, '--csv', '--digits-tolerance']).stdout, 'out');
+    expect(c.records.map((x) => [x.toleranceSource, x.verdict])).toEqual([['digits', 'pass'], ['digits', 'pass']]);
+  });
+});
+
 describe('compare: bad input exits 2 with one line', () => {
   const cases: [string, string | object, RegExp][] = [
     ['unknown quantity', { values: [{ quantity: 'aera', value: 1, unit: 'mm²' }] }, /values\[0\]\.quantity: unknown quantity "aera"; did you mean "area"\?/],

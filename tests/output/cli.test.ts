@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { ROOT, runCli as platewise } from '../helpers.js';
 import { parseXml } from '../../src/read/xml.js';
-import { splitDigits } from '../../src/output/html.js';
+import { formatValue } from '../../src/output/numbers.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'platewise-report-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -94,7 +94,8 @@ describe('platewise report', () => {
 
   it('each table value and estimate is the very number measure --json prints', () => {
     const json = JSON.parse(platewise(['measure', 'samples/base-plate-bp1.json', '--json']).stdout);
-    const rows = [...html.matchAll(/<tr data-key="([^"]+)">.*?data-value="([^"]+)".*?data-error="([^"]+)"/g)];
+    const table = html.slice(html.indexOf('<table data-role="quantities">'), html.indexOf('</table>', html.indexOf('<table data-role="quantities">')));
+    const rows = [...table.matchAll(/<tr data-key="([^"]+)">.*?data-value="([^"]+)".*?data-error="([^"]+)"/g)];
     const keys = Object.keys(json.quantities);
     expect(rows.map((m) => m[1])).toEqual(keys);
     for (const [, key, v, e] of rows) {
@@ -120,11 +121,14 @@ describe('platewise report', () => {
     for (const u of urls) expect(['http://www.w3.org/2000/svg', 'http://www.w3.org/1999/xlink']).toContain(u);
   });
 
-  it('has the parts a reader needs: drawing, method, convergence plots for area and Ix, cautions, print rules', () => {
+  it('has the parts a reader needs: drawing with origin, method, convergence note (exact boundary result), fabrication, cautions, print rules', () => {
     expect(html).toContain('data-role="drawing"');
+    expect(html).toContain('data-role="origin"');
     expect(html).toContain('data-role="method"');
-    expect(html).toMatch(/data-role="convergence" data-key="area"/);
-    expect(html).toMatch(/data-role="convergence" data-key="Ix"/);
+    expect(html).not.toContain('data-role="convergence"');
+    expect(html).toMatch(/data-role="convergence-note">No convergence to show: the values come from exact boundary integrals/);
+    expect(html).toMatch(/<table data-role="fabrication">.*<tr data-key="cutLength">/s);
+    expect(html).toMatch(/<tr data-key="pierces">.*?data-value="6"/);
     expect(html).toContain('Caution: these are geometric properties');
     expect(html).toMatch(/@page \{ size: auto; margin:/);
     expect(html).toContain('data-role="mass-missing"');
@@ -160,14 +164,32 @@ describe('markup in names', () => {
   });
 });
 
-describe('digits beyond the estimate', () => {
-  it('keeps every digit and marks the ones finer than the estimate', () => {
-    // the estimate's leading digit sets the last supported place: 0.05 → hundredths, 50 → tens
-    expect(splitDigits(12345.678, 0.05)).toEqual(['12345.67', '8']);
-    expect(splitDigits(12345.678, 50)).toEqual(['1234', '5.678']);
-    expect(splitDigits(85826.94722303865, 1.2e-9)).toEqual(['85826.947223038', '65']);
-    expect(splitDigits(85826.94722303865, 1e-12)).toEqual(['85826.94722303865', '']);
-    expect(splitDigits(1e-20, 1e-25)).toEqual(['1e-20', '']);
-    expect(splitDigits(3, 0)).toEqual(['3', '']);
+describe('report settings carry their units', () => {
+  it('a bare thickness is in the part\'s unit, a bare density in kg/m³, an expression says its unit', async () => {
+    const { settingText } = await import('../../src/output/html.js');
+    expect(settingText('thickness', '10', 'mm')).toBe('thickness 10 mm');
+    expect(settingText('thickness', '3/8 in', 'mm')).toBe('thickness 3/8 in');
+    expect(settingText('density', '7850', 'in')).toBe('density 7850 kg/m³');
+    expect(settingText('thickness', '10 + x/100', 'mm')).toBe('thickness 10 + x/100 (mm)');
+    expect(settingText('levels', '3', 'mm')).toBe('3 refinement levels');
+    const o = join(dir, 'settings.html');
+    expect(platewise(['report', 'samples/gusset-g2.json', '--thickness', '10', '--density', '7850', '-o', o]).status).toBe(0);
+    expect(readFileSync(o, 'utf8')).toMatch(/<dt>settings<\/dt><dd>thickness 10 mm, density 7850 kg\/m³<\/dd>/);
+  });
+});
+
+describe('the report shows values rounded to their estimates (tests/output/rounding.test.ts has the rule)', () => {
+  it('each value cell shows the rounded value and keeps the full one in data-value; the rule is stated once', () => {
+    const o = join(dir, 'rounded.html');
+    expect(platewise(['report', 'samples/gusset-g2.json', '-o', o]).status).toBe(0);
+    const h = readFileSync(o, 'utf8');
+    const json = JSON.parse(platewise(['measure', 'samples/gusset-g2.json', '--json']).stdout);
+    for (const [key, q] of Object.entries(json.quantities) as [string, { value: number; error: number }][]) {
+      const m = new RegExp(`<tr data-key="${key}">.*?data-value="([^"]+)">([^<]*)<`).exec(h);
+      expect(m, key).not.toBeNull();
+      expect(Number(m![1]), key).toBe(q.value);
+      expect(m![2], key).toBe(formatValue(q.value, q.error));
+    }
+    expect(h.split('data-role="rounding-rule"').length - 1).toBe(1);
   });
 });
