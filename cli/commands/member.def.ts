@@ -12,6 +12,8 @@ export function defineMember(program: Command): void {
     .option('--order <k>', 'finite-element order for torsion, 2-4 (default 3)', intArg('--order'))
     .option('--triangles <n>', 'torsion: the coarser of the two meshes has at least this many triangles (default 400)', intArg('--triangles'))
     .option('--no-torsion', 'skip torsion, shear centre and warping constant')
+    .option('--net-line <points>', 'net section along a line or polyline "x,y x,y …" in the part\'s coordinates (repeat for several lines)', (v: string, prev: string[] = []) => [...prev, v])
+    .option('--thickness <t>', 'plate thickness for the net area (a number, or with a unit: "10 mm"); the part file\'s own thickness otherwise')
     .option('--bolts [diameters]', 'bolt group of the circular holes: all, or those of the comma-separated diameters'))
     .action((file: string, opts) => run(async () => (await import('./member.js')).member(file, opts)));
 }
