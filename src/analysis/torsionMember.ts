@@ -6,6 +6,8 @@
  */
 import { type NetLine, type NetSectionGeometry, netSection } from '../geometry/netSection.js';
 import type { Part } from '../geometry/part.js';
+import { InputError } from '../base/errors.js';
+import { type PlateModel, netThickness } from '../model/plate.js';
 import { type Bolt, type BoltGroup, boltGroup, circularHoles, selectBolts } from '../properties/boltGroup.js';
 import { plasticSection } from '../properties/plasticSection.js';
 import type { PlasticKey, Quantity } from '../properties/quantities.js';
@@ -74,4 +76,69 @@ export function analyzeMember(input: Part, options: MemberOptions = {}): MemberR
     torsion, boltGroup: group, netSections,
     cautions: torsion ? ['geometry', 'prismatic-member'] : ['geometry'],
   };
+}
+
+/** What a drawing of the section may show besides the part (facts in the part's unit; words in src/output). */
+export interface SectionMarks {
+  shearCentre?: { x: number; y: number; error: number; errorIsBound: boolean };
+  /** plastic neutral axes: a point on each and its direction (unit), with the offset's estimate */
+  plasticAxes?: { key: 'plasticAxisY' | 'plasticAxisX' | 'plasticAxis1' | 'plasticAxis2'; px: number; py: number; dx: number; dy: number; error: number }[];
+  netSections?: NetSectionResult[];
+}
+
+export interface MarkOptions {
+  shearCentre?: boolean;
+  plasticAxes?: boolean;
+  netLines?: readonly NetLine[];
+}
+
+/**
+ * The marks a drawing shows on request: the shear centre (torsion solve at default settings), the plastic
+ * neutral axes (parallel to x and y always; parallel to the principal axes when those are defined and turned
+ * away from x and y), and net sections along the user's lines.
+ */
+export function analyzeMarks(input: Part, want: MarkOptions, thickness?: number): SectionMarks {
+  const r = analyzeMember(input, { torsion: want.shearCentre ? {} : false, netLines: want.netLines, thickness });
+  const out: SectionMarks = {};
+  if (r.torsion) {
+    const { shearCentreX: sx, shearCentreY: sy } = r.torsion.quantities;
+    // at re-entrant corners the torsion estimate rests on the asymptotic rate and may understate (a fact of the solve)
+    const bound = sx.errorIsBound !== false && sy.errorIsBound !== false && !r.torsion.facts.some((f) => f.code === 'reentrant-corners');
+    out.shearCentre = { x: sx.value, y: sy.value, error: Math.max(sx.error, sy.error), errorIsBound: bound };
+  }
+  if (want.plasticAxes) {
+    const q = r.section.quantities, p = r.plastic;
+    const cx = q.centroidX.value, cy = q.centroidY.value;
+    const axes: NonNullable<SectionMarks['plasticAxes']> = [
+      { key: 'plasticAxisY', px: cx, py: p.plasticAxisY.value, dx: 1, dy: 0, error: p.plasticAxisY.error },
+      { key: 'plasticAxisX', px: p.plasticAxisX.value, py: cy, dx: 0, dy: 1, error: p.plasticAxisX.error },
+    ];
+    const th = (q.principalAngle.value * Math.PI) / 180, c = Math.cos(th), s = Math.sin(th);
+    const turned = Math.abs(Math.sin(2 * th)) > 1e-9 && q.principalAngle.error < 90;
+    if (turned) {
+      axes.push({ key: 'plasticAxis1', px: cx - s * p.plasticAxis1.value, py: cy + c * p.plasticAxis1.value, dx: c, dy: s, error: p.plasticAxis1.error });
+      axes.push({ key: 'plasticAxis2', px: cx + c * p.plasticAxis2.value, py: cy + s * p.plasticAxis2.value, dx: -s, dy: c, error: p.plasticAxis2.error });
+    }
+    out.plasticAxes = axes;
+  }
+  if (r.netSections) out.netSections = r.netSections;
+  return out;
+}
+
+/** The marks named in a drawing option's text ("shear-centre,plastic-axes"); `where` names the option. */
+export function parseMarkNames(text: string, where: string): { shearCentre: boolean; plasticAxes: boolean } {
+  const names = text.split(',').map((t) => t.trim()).filter((t) => t.length > 0);
+  if (names.length === 0) throw new InputError(where, 'expected shear-centre, plastic-axes or both, comma-separated; got an empty text');
+  for (const n of names) if (n !== 'shear-centre' && n !== 'plastic-axes') throw new InputError(where, `unknown mark "${n}"; expected shear-centre or plastic-axes`);
+  return { shearCentre: names.includes('shear-centre'), plasticAxes: names.includes('plastic-axes') };
+}
+
+/**
+ * Marks for each one-layer plate model (a layered plate is refused: the marks belong to one shape). The net
+ * area uses the file's constant thickness or the given one; a thickness that varies gives lengths only.
+ */
+export function modelMarks(model: PlateModel, want: MarkOptions, thickness?: string): SectionMarks {
+  if (model.layers.length !== 1) throw new InputError(model.name, `section marks need one shape; this plate has ${model.layers.length} layers`);
+  const layer = model.layers[0];
+  return analyzeMarks(layer.part, want, want.netLines ? netThickness(layer, thickness, 'omit') : undefined);
 }

@@ -17,11 +17,13 @@ import type { SectionResult } from '../analysis/measure.js';
 import { InputError, OptionError } from '../base/errors.js';
 import { type Mesh, triangleCount } from '../mesh/mesh.js';
 import { formatError, formatNumber } from './text.js';
-import { type DrawingMap, chainPathData, loopPathData, mapX, mapY, num, segmentCommands } from './pathData.js';
+import { type DrawingMap, chainPathData, clipLine, loopPathData, mapX, mapY, num, segmentCommands } from './pathData.js';
 import type { NotCut } from '../read/interpret.js';
 import type { UnitSource } from '../model/plate.js';
 import { type Segment, ops } from '../geometry/segments.js';
 import { unitSourceText } from './words.js';
+import type { SectionMarks } from '../analysis/torsionMember.js';
+import { drawMarkKey, drawSectionMarks, drawShearCentre, keyWidth, markKeyRows } from './sectionMarks.js';
 import { RAMP_STEPS, type TriangleValues, binValues, errorIndicator, functionValues, rampColour } from './shade.js';
 
 export interface DrawOptions {
@@ -35,6 +37,8 @@ export interface DrawOptions {
   shadeTitle?: string;
   /** How the drawing was read: marking and ignored geometry (muted), gaps closed when joining, the unit's source. */
   reading?: { notCut?: NotCut; gapsClosed?: readonly { x: number; y: number }[]; unitSource?: UnitSource };
+  /** Section marks on request (shear centre, plastic neutral axes, net lines), keyed under the scale bar. */
+  marks?: SectionMarks;
 }
 
 /** Our palette: chosen for contrast on white, distinct under colour-vision deficiencies, ordered in grey. */
@@ -75,17 +79,6 @@ export function roundLength(target: number): number {
   const p = 10 ** Math.floor(Math.log10(target));
   const f = target / p;
   return (f >= 5 ? 5 : f >= 2 ? 2 : 1) * p;
-}
-
-/** Clip the segment P + s·D, s in [s0, s1], to a rectangle (Liang–Barsky); null when outside. */
-function clipLine(px: number, py: number, dx: number, dy: number, s0: number, s1: number, box: [number, number, number, number]): [number, number] | null {
-  const p = [-dx, dx, -dy, dy], q = [px - box[0], box[2] - px, py - box[1], box[3] - py];
-  for (let i = 0; i < 4; i++) {
-    if (p[i] === 0) { if (q[i] < 0) return null; continue; }
-    const r = q[i] / p[i];
-    if (p[i] < 0) s0 = Math.max(s0, r); else s1 = Math.min(s1, r);
-  }
-  return s0 <= s1 ? [s0, s1] : null;
 }
 
 /** Closed path of a mesh triangle; curved edges follow their segment's own command. */
@@ -134,7 +127,8 @@ function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: num
   const T = top + stripH + topPad;
   const pw = k * w, ph = k * h;
   const legendW = shadeVals ? 250 : 0;
-  const width = Math.max(640, left + pw + 110 + legendW);
+  const markRows = opts.marks ? markKeyRows(opts.marks, u) : [];
+  const width = Math.max(640, left + pw + 110 + legendW, left + keyWidth(markRows) + 20);
   // geometry that is not cut and lies over this part's box: drawn muted, with a key under the scale bar
   const nc = opts.reading?.notCut;
   const near = (segs: readonly Segment[]) => {
@@ -250,11 +244,14 @@ function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: num
     ax.plain('I1 = I2 within the estimate: every centroidal axis is principal').attr({ x: left, y: T - 14, style: `font-size:12px`, fill: PALETTE.axis });
   }
 
+  if (opts.marks) drawSectionMarks(g, opts.marks, m, clipBox);
+
   // centroid marker: ring with two opposite filled quarters
   const cg = g.group().attr({ 'data-role': 'centroid', 'data-x': num(cx), 'data-y': num(cy), transform: `translate(${num(CX)} ${num(CY)})` });
   cg.circle(16).center(0, 0).attr({ fill: PALETTE.paper, stroke: PALETTE.ink, 'stroke-width': 1.4 });
   cg.path('M0 0L8 0A8 8 0 0 0 0 -8ZM0 0L-8 0A8 8 0 0 0 0 8Z').attr({ fill: PALETTE.ink });
   cg.plain('centroid').attr({ x: 11, y: 16, style: `font-size:11px;paint-order:stroke;stroke:#ffffff;stroke-width:3px`, fill: PALETTE.ink });
+  if (opts.marks) drawShearCentre(g, opts.marks, m);
 
   // scale bar in the part's units: four alternating blocks
   const len = roundLength(w / 2.5);
@@ -281,6 +278,8 @@ function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: num
     });
   }
 
+  if (markRows.length > 0) drawMarkKey(g, markRows, left, sbY + 44 + 18 * shown.length);
+
   // legend of the shading
   if (shadeVals) {
     const bins = binValues(shadeVals);
@@ -299,7 +298,7 @@ function drawInto(root: Container, r: SectionResult, opts: DrawOptions, top: num
       lg.plain('all at round-off level (below 1e-12)').attr({ x: lx, y: ly + 28 + RAMP_STEPS * sh + 16, style: `font-size:11px`, fill: PALETTE.ink });
     }
   }
-  return { width, height, map: m };
+  return { width, height: height + 18 * markRows.length, map: m };
 }
 
 function finish(svg: Svg, width: number, height: number, title: string): string {
@@ -319,13 +318,13 @@ export async function drawPart(r: SectionResult, opts: DrawOptions = {}): Promis
 }
 
 /** Several parts stacked on one sheet (SVG text). */
-export async function drawSheet(results: SectionResult[], opts: DrawOptions = {}): Promise<string> {
+export async function drawSheet(results: SectionResult[], opts: DrawOptions = {}, marks?: readonly (SectionMarks | undefined)[]): Promise<string> {
   const { SVG } = await loadSvgStack();
   const svg = SVG();
   svg.rect('100%', '100%').attr({ fill: PALETTE.paper, 'data-role': 'paper' });
   let top = 0, width = 0;
-  for (const r of results) {
-    const d = drawInto(svg, r, opts, top);
+  for (const [i, r] of results.entries()) {
+    const d = drawInto(svg, r, marks ? { ...opts, marks: marks[i] } : opts, top);
     top += d.height + 16;
     width = Math.max(width, d.width);
   }

@@ -12,7 +12,8 @@
 import type { LevelResult, SectionResult } from '../analysis/measure.js';
 import type { MassResult } from '../analysis/plate.js';
 import { densityText, warningText } from './words.js';
-import { GEOMETRY_CAUTION, MASS_CAUTION } from './cautions.js';
+import { GEOMETRY_CAUTION, MASS_CAUTION, NET_SECTION_NOTE } from './cautions.js';
+import { PRISMATIC_NOTE } from './memberText.js';
 import { formatError, formatNumber } from './text.js';
 import { type Quantity, SECTION_QUANTITIES, quantityInfo, unitText } from '../properties/quantities.js';
 import { convergencePlot, convergencePoints } from './convergence.js';
@@ -31,6 +32,8 @@ export interface ReportPart {
   massNote?: string;
   /** How the drawing was read: the interpretation's lines in words, and what the picture shows of it. */
   reading?: { lines: string[]; draw: DrawOptions['reading'] };
+  /** Section marks asked for (shear centre, plastic neutral axes, net lines), drawn and keyed on the drawing. */
+  marks?: DrawOptions['marks'];
 }
 
 export interface ReportInput {
@@ -163,7 +166,7 @@ function massBlock(p: ReportPart): string {
 
 async function partSection(p: ReportPart, index: number): Promise<string> {
   const r = p.result;
-  const drawing = await drawPart(r, { reading: p.reading?.draw });
+  const drawing = await drawPart(r, { reading: p.reading?.draw, marks: p.marks });
   const q = r.quantities as Record<string, Quantity>;
   const keys = SECTION_QUANTITIES.map((i) => i.key);
   const levels = p.convergence ?? r.levels;
@@ -192,6 +195,8 @@ ${massBlock(p)}
 ${warn}
 <p class="caution">${escapeHtml(GEOMETRY_CAUTION)}</p>
 ${p.mass ? `<p class="caution">${escapeHtml(MASS_CAUTION)}</p>` : ''}
+${p.marks?.shearCentre ? `<p class="caution">${escapeHtml(PRISMATIC_NOTE)}</p>` : ''}
+${p.marks?.netSections?.length ? `<p class="caution">${escapeHtml(NET_SECTION_NOTE)}</p>` : ''}
 </section>`;
 }
 

@@ -7,16 +7,12 @@ import { type LengthUnit, lengthFactor } from '../base/units.js';
 import type { MemberResult, NetSectionResult } from '../analysis/torsionMember.js';
 import type { TorsionFact } from '../analysis/torsion.js';
 import { LENGTH_POWER, type Quantity, quantityInfo, unitText } from '../properties/quantities.js';
-import { GEOMETRY_CAUTION } from './cautions.js';
+import { GEOMETRY_CAUTION, NET_SECTION_NOTE } from './cautions.js';
 import { formatError, formatNumber } from './numbers.js';
 
 export const PRISMATIC_NOTE =
   'Torsion constant, shear centre and warping constant treat the shape as the cross-section of a long prismatic member ' +
   '(Saint-Venant torsion, linear elastic, isotropic); they say nothing about the plate loaded in its own plane.';
-
-export const NET_SECTION_NOTE =
-  'Net sections are geometry only: which line governs (a staggered chain by the s²/4g rule or another), hole allowances, ' +
-  'shear lag and the resistance stay with the user and the governing code.';
 
 /** A net section's quantities in unit `to` (lengths × f, the area × f²). */
 function netQuantities(n: NetSectionResult, from: LengthUnit, to: LengthUnit) {

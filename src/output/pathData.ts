@@ -75,3 +75,14 @@ export function chainPathData(segs: readonly Segment[], m: DrawingMap): string {
   for (const s of segs) d += segmentCommands(s, 0, 1, m);
   return d;
 }
+
+/** Clip the segment P + s·D, s in [s0, s1], to a rectangle (Liang–Barsky); null when outside. */
+export function clipLine(px: number, py: number, dx: number, dy: number, s0: number, s1: number, box: [number, number, number, number]): [number, number] | null {
+  const p = [-dx, dx, -dy, dy], q = [px - box[0], box[2] - px, py - box[1], box[3] - py];
+  for (let i = 0; i < 4; i++) {
+    if (p[i] === 0) { if (q[i] < 0) return null; continue; }
+    const r = q[i] / p[i];
+    if (p[i] < 0) s0 = Math.max(s0, r); else s1 = Math.min(s1, r);
+  }
+  return s0 <= s1 ? [s0, s1] : null;
+}

@@ -2,8 +2,8 @@ import { writeFileSync, mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { GEOMETRY_CAUTION } from '../../src/output/cautions.js';
-import { NET_SECTION_NOTE, PRISMATIC_NOTE } from '../../src/output/memberText.js';
+import { GEOMETRY_CAUTION, NET_SECTION_NOTE } from '../../src/output/cautions.js';
+import { PRISMATIC_NOTE } from '../../src/output/memberText.js';
 import { runCli } from '../helpers.js';
 
 const dir = mkdtempSync(join(tmpdir(), 'pw-member-'));
