@@ -36,7 +36,7 @@ export interface NetLine {
 export interface NetInterval {
   /** Distance along the line from its first point to the start and the end of a run of material. */
   from: number; to: number;
-  /** Bounds on the error of from and to (zero where the run starts or ends at the line's own end). */
+  /** Bounds on the error of from and to (zero where the run starts or ends at the line's own end, inside the material). */
   fromError: number; toError: number;
   fromPoint: [number, number]; toPoint: [number, number];
 }
@@ -242,14 +242,15 @@ export function netSection(part: Part, line: NetLine): NetSectionGeometry {
     return P[P.length - 1];
   };
   const intervals: NetInterval[] = netRuns.map((r) => ({
-    from: r.from, to: r.to, fromError: r.from === 0 ? 0 : atS(r.from, false), toError: r.to === length ? 0 : atS(r.to, false),
+    from: r.from, to: r.to, fromError: atS(r.from, false), toError: atS(r.to, false),
     fromPoint: pointAt(r.from), toPoint: pointAt(r.to),
   }));
   return {
     points: P.map(([x, y]) => [x, y]), length, lengthError,
     gross, grossError, net, netError, intervals, crossings,
-    startsInMaterial: netRuns.length > 0 && netRuns[0].from === 0,
-    endsInMaterial: netRuns.length > 0 && netRuns[netRuns.length - 1].to === length,
+    // a line that starts or ends on the boundary itself does not start or end inside the material
+    startsInMaterial: netRuns.length > 0 && netRuns[0].from === 0 && atS(0, false) === 0,
+    endsInMaterial: netRuns.length > 0 && netRuns[netRuns.length - 1].to === length && atS(length, false) === 0,
   };
 }
 

@@ -96,6 +96,16 @@ describe('net section along a line', () => {
     expect(shallow.grossError, 'a grazing crossing is far less certain than a square one').toBeGreaterThan(1e3 * diag.grossError);
   });
 
+  it('a line from edge to edge is not flagged as starting in the material; one starting inside is (common practice, no source)', () => {
+    const p = part(rect(0, 0, 300, 200));
+    const edge = cut(p, '0,100 300,100');
+    exact(edge.gross, edge.grossError, 300, 1e-9, 'edge to edge');
+    expect([edge.startsInMaterial, edge.endsInMaterial]).toEqual([false, false]);
+    const inside = cut(p, '50,100 310,100');
+    exact(inside.net, inside.netError, 250, 1e-9, 'from inside');
+    expect([inside.startsInMaterial, inside.endsInMaterial]).toEqual([true, false]);
+  });
+
   it('refuses a line that misses the part or is malformed, in one located line', () => {
     const p = part(rect(0, 0, 100, 50));
     const msg = (f: () => unknown) => { try { f(); } catch (e) { expect(e).toBeInstanceOf(InputError); return String((e as Error).message); } throw new Error('no error'); };
