@@ -4,7 +4,7 @@ import { InputError } from '../../src/base/errors.js';
 import { checkOutputTarget, readInputText, writeFileAtomic, writeFilesAtomic } from '../../src/base/files.js';
 import { detectFormat } from '../../src/read/detect.js';
 import { readModels } from '../../src/read/models.js';
-import { modelMarks } from '../../src/analysis/torsionMember.js';
+import { marksOfModels } from '../../src/analysis/torsionMember.js';
 import { type DrawingFlags, type MarkFlags, markWants, readOptions } from './settings.js';
 
 export interface DrawFlags extends DrawingFlags, MarkFlags {
@@ -46,7 +46,7 @@ export async function draw(file: string, flags: DrawFlags): Promise<string> {
   const models = readModels(input.text, input.label, readOpts);
   const reports = models.map((m) => analyzePart(m, { section, mass: 'never', fabrication: 'never' }));
   const results = reports.map((r) => r.section);
-  const marks = wants ? models.map((m) => modelMarks(m, wants)) : undefined;
+  const marks = wants ? marksOfModels(models, wants) : undefined;
   // the drawing stack is loaded only here, never by measure
   const { drawPart, drawSheet } = await import('../../src/output/draw.js');
   const shade = shadeText(flags.shade, input.text, input.label, readOpts.format ?? detectFormat(input.label === 'stdin' ? undefined : input.label, input.text));

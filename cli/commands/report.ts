@@ -7,7 +7,7 @@ import { checkOutputTarget, readInputText, writeFileAtomic } from '../../src/bas
 import { readModels } from '../../src/read/models.js';
 import { interpretationText, unitSourceText } from '../../src/output/words.js';
 import { VERSION } from '../version.js';
-import { modelMarks } from '../../src/analysis/torsionMember.js';
+import { marksOfModels } from '../../src/analysis/torsionMember.js';
 import { type DrawingFlags, type MarkFlags, markWants, plateSettings, readOptions } from './settings.js';
 
 export interface ReportFlags extends DrawingFlags, MarkFlags {
@@ -33,7 +33,7 @@ export async function report(file: string, flags: ReportFlags): Promise<string> 
   const given = plateSettings(flags);
   // exactly the run `measure` makes with the same flags, so the table equals `measure --json`
   const reports = models.map((m) => analyzePart(m, { section, given, mass: 'optional', fabrication: 'never' }));
-  const marks = wants ? models.map((m) => modelMarks(m, wants, flags.thickness)) : undefined;
+  const marks = wants ? marksOfModels(models, wants, flags.thickness) : undefined;
   // the convergence plot needs at least three refinement levels: a separate run on the same shape
   const convergence = reports.map((r) => (r.section.levels.length > CONVERGENCE_LEVELS
     ? r.section.levels

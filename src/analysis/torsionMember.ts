@@ -21,6 +21,8 @@ export interface MemberOptions {
   /** lines along which to take net sections, with the plate thickness (part unit) for the net area */
   netLines?: readonly NetLine[];
   thickness?: number;
+  /** one part of several: a line that misses this part is null here instead of refused */
+  netLinesMayMiss?: boolean;
 }
 
 /** A net section along a user's line: lengths with bounds, the runs of material, and with a thickness the net area. */
@@ -33,9 +35,14 @@ export interface NetSectionResult extends Omit<NetSectionGeometry, 'length' | 'l
   thickness?: number;
 }
 
-/** The net section of a prepared part along a line; the thickness (part unit, exact as given) makes the net area. */
-export function measureNetSection(part: Part, line: NetLine, thickness?: number): NetSectionResult {
-  const { length, lengthError, gross, grossError, net, netError, ...rest } = netSection(part, line);
+/**
+ * The net section of a prepared part along a line; the thickness (part unit, exact as given) makes the net
+ * area. A line that misses the part is refused, or with `ifMissed: 'none'` gives null.
+ */
+export function measureNetSection(part: Part, line: NetLine, thickness?: number, ifMissed: 'refuse' | 'none' = 'refuse'): NetSectionResult | null {
+  const g = netSection(part, line, ifMissed);
+  if (!g) return null;
+  const { length, lengthError, gross, grossError, net, netError, ...rest } = g;
   return {
     where: line.where, ...rest,
     length: { value: length, error: lengthError },
@@ -54,7 +61,8 @@ export interface MemberResult {
   exactFibres: boolean;
   torsion?: TorsionResult;
   boltGroup?: BoltGroup & { selectedFrom: number };
-  netSections?: NetSectionResult[];
+  /** one per line, null where the line misses this part (files of several parts) */
+  netSections?: (NetSectionResult | null)[];
   /** the cautions every output carries: geometry, and torsion's prismatic-member assumption */
   cautions: ('geometry' | 'prismatic-member')[];
 }
@@ -62,7 +70,7 @@ export interface MemberResult {
 export function analyzeMember(input: Part, options: MemberOptions = {}): MemberResult {
   const part = preparePart(input);
   // lines first: a line that misses the part is refused before any long computation
-  const netSections = options.netLines?.map((l) => measureNetSection(part, l, options.thickness));
+  const netSections = options.netLines?.map((l) => measureNetSection(part, l, options.thickness, options.netLinesMayMiss ? 'none' : 'refuse'));
   const section = measureSection(input);
   const pl = plasticSection(part, section.quantities);
   const torsion = options.torsion === false ? undefined : measureTorsion(input, options.torsion ?? {});
@@ -83,7 +91,7 @@ export interface SectionMarks {
   shearCentre?: { x: number; y: number; error: number; errorIsBound: boolean };
   /** plastic neutral axes: a point on each and its direction (unit), with the offset's estimate */
   plasticAxes?: { key: 'plasticAxisY' | 'plasticAxisX' | 'plasticAxis1' | 'plasticAxis2'; px: number; py: number; dx: number; dy: number; error: number }[];
-  netSections?: NetSectionResult[];
+  netSections?: (NetSectionResult | null)[];
 }
 
 export interface MarkOptions {
@@ -97,8 +105,8 @@ export interface MarkOptions {
  * neutral axes (parallel to x and y always; parallel to the principal axes when those are defined and turned
  * away from x and y), and net sections along the user's lines.
  */
-export function analyzeMarks(input: Part, want: MarkOptions, thickness?: number): SectionMarks {
-  const r = analyzeMember(input, { torsion: want.shearCentre ? {} : false, netLines: want.netLines, thickness });
+export function analyzeMarks(input: Part, want: MarkOptions, thickness?: number, netLinesMayMiss = false): SectionMarks {
+  const r = analyzeMember(input, { torsion: want.shearCentre ? {} : false, netLines: want.netLines, thickness, netLinesMayMiss });
   const out: SectionMarks = {};
   if (r.torsion) {
     const { shearCentreX: sx, shearCentreY: sy } = r.torsion.quantities;
@@ -133,12 +141,44 @@ export function parseMarkNames(text: string, where: string): { shearCentre: bool
   return { shearCentre: names.includes('shear-centre'), plasticAxes: names.includes('plastic-axes') };
 }
 
+/** A one-layer model's shape (member properties and marks belong to one shape). */
+function oneShape(model: PlateModel, what: string) {
+  if (model.layers.length !== 1) throw new InputError(model.name, `${what} need one shape; this plate has ${model.layers.length} layers`);
+  return model.layers[0];
+}
+
 /**
- * Marks for each one-layer plate model (a layered plate is refused: the marks belong to one shape). The net
- * area uses the file's constant thickness or the given one; a thickness that varies gives lengths only.
+ * With several parts, a net line is taken on each part it crosses and shows as missed on the others; a line
+ * that misses every part is refused (as it would be on one part).
  */
-export function modelMarks(model: PlateModel, want: MarkOptions, thickness?: string): SectionMarks {
-  if (model.layers.length !== 1) throw new InputError(model.name, `section marks need one shape; this plate has ${model.layers.length} layers`);
-  const layer = model.layers[0];
-  return analyzeMarks(layer.part, want, want.netLines ? netThickness(layer, thickness, 'omit') : undefined);
+function refuseLinesMissingEverywhere(lines: readonly NetLine[] | undefined, found: readonly ((NetSectionResult | null)[] | undefined)[], models: readonly PlateModel[]): void {
+  lines?.forEach((l, i) => {
+    if (found.some((f) => f?.[i])) return;
+    // the one-part refusal names the line and the outline's extent
+    if (models.length === 1) measureNetSection(models[0].layers[0].part, l);
+    throw new InputError(l.where, `the line ${l.points.map(([x, y]) => `(${x}, ${y})`).join(' → ')} misses every one of the ${models.length} parts`);
+  });
+}
+
+/** Member analysis of every one-layer model of a file; the thickness text (a flag) is used for net areas. */
+export function analyzeMemberModels(models: readonly PlateModel[], options: Omit<MemberOptions, 'thickness' | 'netLinesMayMiss'>, thickness?: string): MemberResult[] {
+  const results = models.map((m) => {
+    const layer = oneShape(m, 'member properties');
+    return analyzeMember(layer.part, { ...options, netLinesMayMiss: models.length > 1, thickness: options.netLines ? netThickness(layer, thickness) : undefined });
+  });
+  refuseLinesMissingEverywhere(options.netLines, results.map((r) => r.netSections), models);
+  return results;
+}
+
+/**
+ * Marks for every one-layer model of a file (a layered plate is refused: the marks belong to one shape). The
+ * net area uses the file's constant thickness or the given one; a thickness that varies gives lengths only.
+ */
+export function marksOfModels(models: readonly PlateModel[], want: MarkOptions, thickness?: string): SectionMarks[] {
+  const marks = models.map((m) => {
+    const layer = oneShape(m, 'section marks');
+    return analyzeMarks(layer.part, want, want.netLines ? netThickness(layer, thickness, 'omit') : undefined, models.length > 1);
+  });
+  refuseLinesMissingEverywhere(want.netLines, marks.map((k) => k.netSections), models);
+  return marks;
 }

@@ -118,8 +118,13 @@ function crossingBound(seg: Parameters<typeof ops>[0], tb: number, ux: number, u
   return (4 * delta) / (sin + Math.sqrt(2 * kappa * delta));
 }
 
-/** The net section of `part` along `line`; throws an InputError naming `line.where` for a malformed line or one that misses the part. */
-export function netSection(part: Part, line: NetLine): NetSectionGeometry {
+/**
+ * The net section of `part` along `line`; throws an InputError naming `line.where` for a malformed line, and for
+ * one that misses the part unless `ifMissed` is 'none' (one part of several: then null).
+ */
+export function netSection(part: Part, line: NetLine): NetSectionGeometry;
+export function netSection(part: Part, line: NetLine, ifMissed: 'refuse' | 'none'): NetSectionGeometry | null;
+export function netSection(part: Part, line: NetLine, ifMissed: 'refuse' | 'none' = 'refuse'): NetSectionGeometry | null {
   const P = line.points, where = line.where;
   const pieces: LineSegment[] = [];
   for (let i = 0; i + 1 < P.length; i++) {
@@ -230,6 +235,7 @@ export function netSection(part: Part, line: NetLine): NetSectionGeometry {
   const grossError = hitsAll.filter((h) => h.outer).reduce((t, h) => t + h.bound, 0) + roundoff(gross);
   const netError = hitsAll.reduce((t, h) => t + h.bound, 0) + roundoff(net);
   if (!(gross > 0)) {
+    if (ifMissed === 'none') return null;
     throw new InputError(where, `the line ${P.map(([x, y]) => `(${fmt(x)}, ${fmt(y)})`).join(' → ')} misses the part (its outline spans x ${fmt(Math.min(...boxes.map((b) => b[0])))} to ${fmt(Math.max(...boxes.map((b) => b[2])))}, y ${fmt(Math.min(...boxes.map((b) => b[1])))} to ${fmt(Math.max(...boxes.map((b) => b[3])))})`);
   }
   const pointAt = (s: number): [number, number] => {

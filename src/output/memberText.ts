@@ -105,7 +105,7 @@ export function memberText(results: readonly MemberResult[], to?: LengthUnit): s
       out.push(`  principal sums ${formatNumber(g.principal[0] * f * f)}, ${formatNumber(g.principal[1] * f * f)}; larger along ${formatNumber(g.principalAngle, 6)}° from +x`);
       for (const b of g.bolts) out.push(`  bolt Ø${formatNumber(b.diameter * f, 6)} at (${formatNumber(b.x * f)}, ${formatNumber(b.y * f)}): ${formatNumber(b.distance * f)} ${u} from the centroid`);
     }
-    for (const n of r.netSections ?? []) netSectionText(n, r.units, u, out);
+    (r.netSections ?? []).forEach((n, i) => (n ? netSectionText(n, r.units, u, out) : out.push(` net line ${i + 1}: misses this part`)));
     out.push('');
   }
   out.push(GEOMETRY_CAUTION);
@@ -130,7 +130,8 @@ export function memberJson(results: readonly MemberResult[], to?: LengthUnit): s
         sumRR: r.boltGroup.sumRR * f * f, principal: r.boltGroup.principal.map((v) => v * f * f), principalAngle: r.boltGroup.principalAngle,
         sumUnit: `${u}²`, bolts: r.boltGroup.bolts.map((b) => ({ x: b.x * f, y: b.y * f, diameter: b.diameter * f, distance: b.distance * f })),
       } : undefined,
-      netSections: r.netSections?.map((n) => ({
+      // null: the line misses this part (files of several parts)
+      netSections: r.netSections?.map((n) => n && ({
         line: n.points.map((p) => p.map((v) => v * f)), where: n.where, crossings: n.crossings,
         ...netQuantities(n, r.units, u), startsInMaterial: n.startsInMaterial, endsInMaterial: n.endsInMaterial,
       })),

@@ -36,6 +36,7 @@ export function markKeyRows(marks: SectionMarks, unit: string): KeyRow[] {
     if (marks.plasticAxes.length > 2) rows.push({ colour: COLOUR.plastic, dash: '3 3', text: 'plastic neutral axes ∥ principal axes 1 and 2 (same style)' });
   }
   (marks.netSections ?? []).forEach((n, i) => {
+    if (!n) return;
     const area = n.netArea ? `, net area ${formatNumber(n.netArea.value, 7)} ± ${formatError(n.netArea.error)} ${unit}²` : '';
     rows.push({ colour: COLOUR.net, dash: NET_DASHES[i % NET_DASHES.length], text: `net line ${i + 1} (thick where material): net ${formatNumber(n.netLength.value, 7)} ± ${formatError(n.netLength.error)} of gross ${formatNumber(n.grossLength.value, 7)} ${unit}${area}` });
   });
@@ -61,6 +62,7 @@ export function drawSectionMarks(g: Container, marks: SectionMarks, m: DrawingMa
     }
   }
   (marks.netSections ?? []).forEach((n, i) => {
+    if (!n) return;
     const dash = NET_DASHES[i % NET_DASHES.length];
     const ng = g.group().attr({ 'data-role': 'net-line', 'data-index': String(i + 1) });
     const seg = (x0: number, y0: number, x1: number, y1: number, attrs: Record<string, string | number>) => {

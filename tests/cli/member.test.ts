@@ -80,4 +80,21 @@ describe('platewise member', () => {
       expect(r.stderr).toMatch(re);
     }
   });
+
+  it('--net-line on a file of several parts: taken where it crosses, missed elsewhere, refused when it misses them all; draw keeps going', () => {
+    const two = join(dir, 'two.svg');
+    writeFileSync(two, '<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 300 100"><rect x="0" y="0" width="100" height="100"/><circle cx="50" cy="50" r="10" fill="white"/><rect x="200" y="0" width="100" height="100"/></svg>');
+    const r = runCli(['member', two, '--units', 'mm', '--no-torsion', '--json', '--net-line', '50,-10 50,110']);
+    expect(r.status, r.stderr).toBe(0);
+    const [a, b] = JSON.parse(r.stdout).parts;
+    // 100 high less a Ø20 hole (common practice, no source)
+    expect(Math.abs(a.netSections[0].netLength.value - 80)).toBeLessThanOrEqual(a.netSections[0].netLength.error);
+    expect(b.netSections).toEqual([null]);
+    const all = runCli(['member', two, '--units', 'mm', '--no-torsion', '--net-line', '150,-10 150,110']);
+    expect(all.status).toBe(2);
+    expect(all.stderr).toMatch(/^platewise: --net-line: the line \(150, -10\) → \(150, 110\) misses every one of the 2 parts\n$/);
+    const d = runCli(['draw', two, '--units', 'mm', '--sheet', '--net-line', '50,-10 50,110']);
+    expect(d.status, d.stderr).toBe(0);
+    expect([...d.stdout.matchAll(/data-role="net-line"/g)]).toHaveLength(1);
+  });
 });
