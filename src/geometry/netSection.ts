@@ -51,7 +51,7 @@ export interface NetSectionGeometry {
   net: number; netError: number;
   /** Runs of material, in order along the line. */
   intervals: NetInterval[];
-  /** Boundary crossings met (touches included). */
+  /** Places where the line meets the boundary (touches included; a joint of two segments counts once). */
   crossings: number;
   startsInMaterial: boolean; endsInMaterial: boolean;
 }
@@ -196,8 +196,9 @@ export function netSection(part: Part, line: NetLine, ifMissed: 'refuse' | 'none
         for (const h of xs) hits.push({ s: Math.min(L, Math.max(0, h.ta * L)), bound: crossingBound(seg, h.tb, ux, uy, delta), outer });
       }
     });
-    crossings += hits.length;
     hits.sort((p, q) => p.s - q.s);
+    // a crossing at the joint of two segments is found by both: count places, not reports
+    crossings += hits.filter((h, i) => i === 0 || h.s - hits[i - 1].s > 2 * delta).length;
     hitsAll.push(...hits.map((h) => ({ ...h, s: offset + h.s })));
     // stretches between consecutive distinct breakpoints
     const cuts = [0, ...hits.map((h) => h.s), L];
