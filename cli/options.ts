@@ -35,3 +35,16 @@ export function addDrawingOptions(cmd: import('commander').Command): import('com
     .option('--sheet-border <how>', 'material inside a cut-out (a sheet border around parts): refuse (default), skip the border, or part (keep all)')
     .option('--join-tolerance <length>', 'DXF: largest gap between loose entity ends that is closed (drawing units; default from the drawing size)', numberArg('--join-tolerance'));
 }
+
+/** Repeatable option values, in order. */
+export const collect = (v: string, prev: string[] = []) => [...prev, v];
+
+/** --net-line (repeatable), shared by member, draw and report. */
+export function addNetLineOption(cmd: import('commander').Command): import('commander').Command {
+  return cmd.option('--net-line <points>', 'net section along a line or polyline "x,y x,y …" in the part\'s coordinates (repeat for several lines)', collect);
+}
+
+/** Section marks on drawings (draw, report). */
+export function addMarkOptions(cmd: import('commander').Command): import('commander').Command {
+  return addNetLineOption(cmd.option('--show <marks>', 'section marks on the drawing: shear-centre, plastic-axes (comma-separated), keyed under the scale bar'));
+}

@@ -1,9 +1,9 @@
 import type { Command } from 'commander';
-import { intArg, addDrawingOptions } from '../options.js';
+import { addDrawingOptions, addMarkOptions, intArg } from '../options.js';
 import { run } from '../run.js';
 
 export function defineDraw(program: Command): void {
-  addDrawingOptions(program
+  addMarkOptions(addDrawingOptions(program
     .command('draw')
     .description('SVG drawing of a part: material, cut-outs, centroid, principal axes, bounding box, scale bar')
     .argument('<file>', 'part file (platewise JSON, SVG, DXF, GeoJSON or WKT), or - for standard input')
@@ -13,6 +13,6 @@ export function defineDraw(program: Command): void {
     .option('--shade <what>', '"error" (refinement error indicator per triangle), "thickness" or "density" (from the part file), or an expression in x and y')
     .option('--sheet', 'all parts of the file on one drawing')
     .option('--degree <n>', 'Dunavant rule degree on curved triangles (1-20)', intArg('--degree'))
-    .option('--triangulation <mode>', 'delaunator (default), cdt2d or sweep'))
+    .option('--triangulation <mode>', 'delaunator (default), cdt2d or sweep')))
     .action((file: string, opts) => run(async () => (await import('./draw.js')).draw(file, opts)));
 }

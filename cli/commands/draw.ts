@@ -4,9 +4,10 @@ import { InputError } from '../../src/base/errors.js';
 import { checkOutputTarget, readInputText, writeFileAtomic, writeFilesAtomic } from '../../src/base/files.js';
 import { detectFormat } from '../../src/read/detect.js';
 import { readModels } from '../../src/read/models.js';
-import { type DrawingFlags, readOptions } from './settings.js';
+import { marksOfModels } from '../../src/analysis/torsionMember.js';
+import { type DrawingFlags, type MarkFlags, markWants, readOptions } from './settings.js';
 
-export interface DrawFlags extends DrawingFlags {
+export interface DrawFlags extends DrawingFlags, MarkFlags {
   output?: string; force?: boolean; mesh?: boolean; shade?: string; sheet?: boolean;
   degree?: number; triangulation?: string; format?: string; units?: string;
 }
@@ -40,10 +41,12 @@ export async function draw(file: string, flags: DrawFlags): Promise<string> {
   // the output name is checked before any work (the numbered names once the parts are known)
   if (flags.output !== undefined) checkOutputTarget(flags.output, [file], write);
   const readOpts = readOptions(flags);
+  const wants = markWants(flags);
   const input = readInputText(file);
   const models = readModels(input.text, input.label, readOpts);
   const reports = models.map((m) => analyzePart(m, { section, mass: 'never', fabrication: 'never' }));
   const results = reports.map((r) => r.section);
+  const marks = wants ? marksOfModels(models, wants) : undefined;
   // the drawing stack is loaded only here, never by measure
   const { drawPart, drawSheet } = await import('../../src/output/draw.js');
   const shade = shadeText(flags.shade, input.text, input.label, readOpts.format ?? detectFormat(input.label === 'stdin' ? undefined : input.label, input.text));
@@ -53,13 +56,13 @@ export async function draw(file: string, flags: DrawFlags): Promise<string> {
   const reading = first ? { notCut: first.notCut, gapsClosed: first.interpretation?.gapsClosed, unitSource: first.unitSource } : undefined;
   const opts = { mesh: flags.mesh, shade, degree: flags.degree, shadeTitle: named ? `${flags.shade!.trim()} = ${shade} ${unit}` : undefined, reading };
   if (flags.sheet || (results.length > 1 && flags.output === undefined)) {
-    const svg = await drawSheet(results, opts);
+    const svg = await drawSheet(results, opts, marks);
     if (flags.output === undefined) return svg + '\n';
     writeFileAtomic(flags.output, svg + '\n', [file], write);
     return '';
   }
   const svgs: string[] = [];
-  for (const r of results) svgs.push(await drawPart(r, opts));
+  for (const [i, r] of results.entries()) svgs.push(await drawPart(r, marks ? { ...opts, marks: marks[i] } : opts));
   if (flags.output === undefined) return svgs[0] + '\n';
   const names = svgs.length === 1 ? [flags.output] : svgs.map((_, i) => numberedName(flags.output!, i + 1));
   writeFilesAtomic(svgs.map((s, i) => ({ target: names[i], data: s + '\n' })), [file], write);

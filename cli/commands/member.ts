@@ -1,14 +1,16 @@
 /** `platewise member`: flags in, one call per part into analyzeMember, a writer out. */
-import { analyzeMember } from '../../src/analysis/torsionMember.js';
+import { analyzeMemberModels } from '../../src/analysis/torsionMember.js';
 import { InputError } from '../../src/base/errors.js';
 import { readInputText } from '../../src/base/files.js';
 import { isLengthUnit } from '../../src/base/units.js';
 import { memberJson, memberText } from '../../src/output/memberText.js';
+import { parseNetLine } from '../../src/geometry/netSection.js';
 import { readModels } from '../../src/read/models.js';
 import { type DrawingFlags, readOptions } from './settings.js';
 
 export interface MemberFlags extends DrawingFlags {
   json?: boolean; printUnit?: string; order?: number; triangles?: number; torsion?: boolean; bolts?: string | boolean;
+  netLine?: string[]; thickness?: string;
 }
 
 export function member(file: string, flags: MemberFlags): string {
@@ -24,15 +26,14 @@ export function member(file: string, flags: MemberFlags): string {
       return v;
     });
   }
+  const netLines = flags.netLine?.map((t) => parseNetLine(t, '--net-line'));
+  if (flags.thickness !== undefined && !netLines) throw new InputError('--thickness', 'is used for the net area; give a --net-line');
   const input = readInputText(file);
   const models = readModels(input.text, input.label, readOptions(flags));
-  const results = models.map((m) => {
-    if (m.layers.length !== 1) throw new InputError(m.name, `member properties need one shape; this plate has ${m.layers.length} layers`);
-    return analyzeMember(m.layers[0].part, {
-      torsion: flags.torsion === false ? false : { order: flags.order, minTriangles: flags.triangles },
-      bolts,
-    });
-  });
+  const results = analyzeMemberModels(models, {
+    torsion: flags.torsion === false ? false : { order: flags.order, minTriangles: flags.triangles },
+    bolts, netLines,
+  }, flags.thickness);
   const unit = flags.printUnit as Parameters<typeof memberText>[1];
   return flags.json ? memberJson(results, unit) : memberText(results, unit);
 }

@@ -1,9 +1,9 @@
 import type { Command } from 'commander';
-import { intArg, addDrawingOptions } from '../options.js';
+import { addDrawingOptions, addMarkOptions, intArg } from '../options.js';
 import { run } from '../run.js';
 
 export function defineReport(program: Command): void {
-  addDrawingOptions(program
+  addMarkOptions(addDrawingOptions(program
     .command('report')
     .description('self-contained HTML report: drawing, quantities with estimates, method, convergence, mass, cautions')
     .argument('<file>', 'part file (platewise JSON, SVG, DXF, GeoJSON or WKT), or - for standard input')
@@ -14,6 +14,6 @@ export function defineReport(program: Command): void {
     .option('--triangulation <mode>', 'delaunator (default), cdt2d or sweep')
     .option('--thickness <t>', 'plate thickness in the part\'s length unit (number or expression in x and y), for mass')
     .option('--density <rho>', 'density in kg/m³ (number or expression in x and y), for mass')
-    .option('--material <name>', 'material from the built-in table (see platewise materials), for mass'))
+    .option('--material <name>', 'material from the built-in table (see platewise materials), for mass')))
     .action((file: string, opts) => run(async () => (await import('./report.js')).report(file, opts)));
 }

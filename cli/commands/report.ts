@@ -7,9 +7,10 @@ import { checkOutputTarget, readInputText, writeFileAtomic } from '../../src/bas
 import { readModels } from '../../src/read/models.js';
 import { interpretationText, unitSourceText } from '../../src/output/words.js';
 import { VERSION } from '../version.js';
-import { type DrawingFlags, plateSettings, readOptions } from './settings.js';
+import { marksOfModels } from '../../src/analysis/torsionMember.js';
+import { type DrawingFlags, type MarkFlags, markWants, plateSettings, readOptions } from './settings.js';
 
-export interface ReportFlags extends DrawingFlags {
+export interface ReportFlags extends DrawingFlags, MarkFlags {
   output?: string; force?: boolean; degree?: number; levels?: number; triangulation?: string; format?: string; units?: string;
   thickness?: string; density?: string; material?: string;
   /** Fixed date (ISO) instead of now: for reproducible output in tests. */
@@ -26,11 +27,13 @@ export async function report(file: string, flags: ReportFlags): Promise<string> 
   const write = { force: flags.force, flag: '--output' };
   if (flags.output !== undefined) checkOutputTarget(flags.output, [file], write);
   if (flags.output !== undefined && !/\.html?$/i.test(flags.output)) throw new InputError('--output', `the report is an HTML page; name the file .html (got "${flags.output}"); for a PDF, open the page in a browser and print it`);
+  const wants = markWants(flags);
   const input = readInputText(file);
   const models = readModels(input.text, input.label, readOptions(flags));
   const given = plateSettings(flags);
   // exactly the run `measure` makes with the same flags, so the table equals `measure --json`
   const reports = models.map((m) => analyzePart(m, { section, given, mass: 'optional', fabrication: 'always' }));
+  const marks = wants ? marksOfModels(models, wants, flags.thickness) : undefined;
   // the convergence plot needs at least three refinement levels: a separate run on the same shape, made only
   // where the table's values come from a mesh (exact boundary results have no convergence to show)
   const convergence = reports.map((r) => (r.section.method.path === 'boundary' || r.section.levels.length > CONVERGENCE_LEVELS
@@ -47,7 +50,7 @@ export async function report(file: string, flags: ReportFlags): Promise<string> 
     date: flags.date ?? new Date().toISOString(),
     settings: { degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation, format: flags.format, units: flags.units, thickness: flags.thickness, density: flags.density, material: flags.material },
     parts: reports.map((r, i) => ({
-      result: r.section, convergence: convergence[i], mass: r.mass, massNote: notes[i], fabrication: r.fabrication,
+      result: r.section, convergence: convergence[i], mass: r.mass, massNote: notes[i], fabrication: r.fabrication, marks: marks?.[i],
       markingLength: r.interpretation?.parts.find((p) => p.name === r.part)?.markingLength,
       reading: {
         lines: r.interpretation ? interpretationText(r.interpretation, r.part) : [`length unit ${r.units}: ${unitSourceText(r.unitSource)}`],

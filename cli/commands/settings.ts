@@ -1,5 +1,7 @@
 /** Flags shared by several commands, turned into library settings (the CLI only names where each came from). */
 import { InputError } from '../../src/base/errors.js';
+import { type MarkOptions, parseMarkNames } from '../../src/analysis/torsionMember.js';
+import { parseNetLine } from '../../src/geometry/netSection.js';
 import type { PlateSettings } from '../../src/model/plate.js';
 import { type MassUnits } from '../../src/output/massText.js';
 import { parseMassMomentUnit, parseMassUnit } from '../../src/model/massUnits.js';
@@ -46,5 +48,16 @@ export function readOptions(flags: DrawingFlags): ReadOptions {
     unitsOverride: flags.unitsOverride, cutLayers: list(flags.cutLayers), markLayers: list(flags.markLayers),
     skipLayers: list(flags.skipLayers), markColours: colours, unite: flags.unite, onePart: flags.onePart,
     sheetBorder: flags.sheetBorder as ReadOptions['sheetBorder'], joinTolerance: flags.joinTolerance,
+  };
+}
+
+export interface MarkFlags { show?: string; netLine?: string[] }
+
+/** --show and --net-line as the marks to compute, or undefined when none is asked for. */
+export function markWants(flags: MarkFlags): MarkOptions | undefined {
+  if (flags.show === undefined && flags.netLine === undefined) return undefined;
+  return {
+    ...(flags.show === undefined ? {} : parseMarkNames(flags.show, '--show')),
+    netLines: flags.netLine?.map((t) => parseNetLine(t, '--net-line')),
   };
 }

@@ -233,3 +233,20 @@ export function constantPlate(layers: ResolvedLayer[] | null): ConstantPlate | u
   if (l.thickness.constant === undefined || l.density.constant === undefined) return undefined;
   return { thickness: l.thickness.constant, density: l.density.constant, material: l.material, densityFrom: l.densityFrom };
 }
+
+/**
+ * The constant thickness (part unit) of a one-layer plate for a net area: the part file's own, or the given
+ * text (labelled --thickness) where the file gives none; undefined when neither does. A thickness given in
+ * both places is refused; one that varies over the plate is refused, or with `varying: 'omit'` gives undefined.
+ */
+export function netThickness(layer: LayerSpec, given: string | undefined, varying: 'refuse' | 'omit' = 'refuse'): number | undefined {
+  if (given !== undefined && layer.thickness) {
+    throw new InputError('--thickness', `the part file already gives a thickness (at "${layer.thickness.where}"); give it in one place`);
+  }
+  const g = layer.thickness ?? (given === undefined ? undefined : { text: given, where: '--thickness' });
+  if (!g) return undefined;
+  const f = thicknessField(g, layer.part.units);
+  if (f.constant === undefined && varying === 'omit') return undefined;
+  if (f.constant === undefined) throw new InputError(f.where, `a net area needs one constant thickness; "${f.text}" varies over the plate`);
+  return f.constant;
+}

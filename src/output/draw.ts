@@ -23,6 +23,8 @@ import type { NotCut } from '../read/interpret.js';
 import type { UnitSource } from '../model/plate.js';
 import { type Segment, ops } from '../geometry/segments.js';
 import { unitSourceText } from './words.js';
+import type { SectionMarks } from '../analysis/torsionMember.js';
+import { drawMarkKey, drawSectionMarks, drawShearCentre, keyWidth, markKeyRows } from './sectionMarks.js';
 import { RAMP_STEPS, type TriangleValues, binValues, errorIndicator, functionValues, rampColour } from './shade.js';
 
 export interface DrawOptions {
@@ -36,6 +38,8 @@ export interface DrawOptions {
   shadeTitle?: string;
   /** How the drawing was read: marking and ignored geometry (muted), gaps closed when joining, the unit's source. */
   reading?: { notCut?: NotCut; gapsClosed?: readonly { x: number; y: number }[]; unitSource?: UnitSource };
+  /** Section marks on request (shear centre, plastic neutral axes, net lines), keyed under the scale bar. */
+  marks?: SectionMarks;
 }
 
 /** Our palette: chosen for contrast on white, distinct under colour-vision deficiencies, ordered in grey. */
@@ -137,6 +141,7 @@ function drawInto(root: SvgEl, r: SectionResult, opts: DrawOptions, top: number,
   const u = r.units;
   const [xMin, yMin, xMax, yMax] = [q.xMin.value, q.yMin.value, q.xMax.value, q.yMax.value];
   const w = xMax - xMin, h = yMax - yMin;
+  const markRows = opts.marks ? markKeyRows(opts.marks, u) : [];
   // geometry that is not cut and lies over this part's box: drawn muted, with a key under the scale bar
   const nc = opts.reading?.notCut;
   const near = (segs: readonly Segment[]) => {
@@ -172,7 +177,7 @@ function drawInto(root: SvgEl, r: SectionResult, opts: DrawOptions, top: number,
     `centroid (${formatValue(q.centroidX.value, cErr)}, ${formatValue(q.centroidY.value, cErr)}) ± ${formatError(cErr)} ${u}`,
     `I1 ${fmt('I1')} ${u}⁴ · I2 ${fmt('I2')} ${u}⁴ (principal second moments)`,
   ];
-  const width = Math.max(640, left + pw + 110 + legendW, 28 + textWidth(r.part, 17, true), 28 + Math.max(...pieces.map((p) => textWidth(p, 12.5))),
+  const width = Math.max(640, left + pw + 110 + legendW, left + keyWidth(markRows) + 20, 28 + textWidth(r.part, 17, true), 28 + Math.max(...pieces.map((p) => textWidth(p, 12.5))),
     heightInside ? 0 : left + pw + 36 + textWidth(heightText, 12) + 12, widthInside ? 0 : left + pw + 12 + textWidth(widthText, 12) + 12);
   const titleLines = packLines(pieces, 12.5, width - 28);
   const stripH = 56 + 18 * (titleLines.length - 1);
@@ -310,6 +315,8 @@ function drawInto(root: SvgEl, r: SectionResult, opts: DrawOptions, top: number,
     lay.reserve(textBox(left, EY0 - 18, t, 12));
   }
 
+  if (opts.marks) drawSectionMarks(g, opts.marks, m, clipBox, lay);
+
   // scale bar in the part's units: four alternating blocks (one length for every part of a sheet)
   const len = scale ? (scale.barLength * mmPer(scale.barUnit)) / mmPer(u) : roundLength(Math.max(w, h) / 2.5);
   const sb = g.group().attr({ 'data-role': 'scale-bar', 'data-length': num(len) });
@@ -344,6 +351,8 @@ function drawInto(root: SvgEl, r: SectionResult, opts: DrawOptions, top: number,
     });
   }
 
+  if (markRows.length > 0) drawMarkKey(g, markRows, left, sbY + 44 + 18 * shown.length);
+
   // legend of the shading
   if (shadeVals) {
     const bins = binValues(shadeVals);
@@ -375,6 +384,8 @@ function drawInto(root: SvgEl, r: SectionResult, opts: DrawOptions, top: number,
     placeText(og2, lay, OX, OY, 'y', 11, 'origin-y', [[0, -36, 'middle'], [-8, -28, 'end'], [8, -28, 'start'], [0, -46, 'middle']]);
   }
 
+  if (opts.marks) drawShearCentre(g, opts.marks, m, lay);
+
   // centroid marker: ring with two opposite filled quarters; its label where nothing is drawn
   const cg = g.group().attr({ 'data-role': 'centroid', 'data-x': num(cx), 'data-y': num(cy), transform: `translate(${num(CX)} ${num(CY)})` });
   cg.circle(16).center(0, 0).attr({ fill: PALETTE.paper, stroke: PALETTE.ink, 'stroke-width': 1.4 });
@@ -383,7 +394,7 @@ function drawInto(root: SvgEl, r: SectionResult, opts: DrawOptions, top: number,
   const around: [number, number, 'start' | 'end' | 'middle'][] = [];
   for (const f of [1, 1.8, 2.8, 4]) around.push([11 * f, 16 * f, 'start'], [11 * f, -6 * f, 'start'], [-11 * f, 16 * f, 'end'], [-11 * f, -6 * f, 'end'], [0, 22 * f, 'middle'], [0, -12 * f, 'middle']);
   placeText(cg, lay, CX, CY, 'centroid', 11, 'centroid-label', around);
-  return { width, height, map: m };
+  return { width, height: height + 18 * markRows.length, map: m };
 }
 
 /** A ring with x and y arrows at (x, y) (drawing units), arrows `len` long. */
@@ -418,7 +429,7 @@ export async function drawPart(r: SectionResult, opts: DrawOptions = {}): Promis
 }
 
 /** Several parts stacked on one sheet (SVG text). */
-export async function drawSheet(results: SectionResult[], opts: DrawOptions = {}): Promise<string> {
+export async function drawSheet(results: SectionResult[], opts: DrawOptions = {}, marks?: readonly (SectionMarks | undefined)[]): Promise<string> {
   const svg = svgRoot();
   svg.rect('100%', '100%').attr({ fill: PALETTE.paper, 'data-role': 'paper' });
   // one scale for every part: the one that fits the largest; every scale bar has the same length
@@ -428,8 +439,8 @@ export async function drawSheet(results: SectionResult[], opts: DrawOptions = {}
     : `${results.length} parts drawn at one scale: every scale bar is ${formatNumber(scale.barLength, 6)} ${scale.barUnit} long`;
   svg.plain(head).attr({ x: 14, y: 20, style: 'font-size:13px;font-weight:600', fill: PALETTE.ink, 'data-role': 'sheet-scale', 'data-scale-per-mm': num(scale.kPerMm) });
   let top = 30, width = 28 + textWidth(head, 13, true);
-  for (const r of results) {
-    const d = drawInto(svg, r, opts, top, scale);
+  for (const [i, r] of results.entries()) {
+    const d = drawInto(svg, r, marks ? { ...opts, marks: marks[i] } : opts, top, scale);
     top += d.height + 16;
     width = Math.max(width, d.width);
   }

@@ -12,7 +12,8 @@
 import type { LevelResult, SectionResult } from '../analysis/measure.js';
 import type { MassResult } from '../analysis/plate.js';
 import { densityText, warningText } from './words.js';
-import { GEOMETRY_CAUTION, MASS_CAUTION } from './cautions.js';
+import { GEOMETRY_CAUTION, MASS_CAUTION, NET_SECTION_NOTE } from './cautions.js';
+import { PRISMATIC_NOTE } from './memberText.js';
 import { formatError, formatNumber, formatValue } from './text.js';
 import { ROUNDING_RULE } from './numbers.js';
 import type { FabricationFigures } from '../properties/fabrication.js';
@@ -38,6 +39,8 @@ export interface ReportPart {
   markingLength?: number;
   /** How the drawing was read: the interpretation's lines in words, and what the picture shows of it. */
   reading?: { lines: string[]; draw: DrawOptions['reading'] };
+  /** Section marks asked for (shear centre, plastic neutral axes, net lines), drawn and keyed on the drawing. */
+  marks?: DrawOptions['marks'];
 }
 
 export interface ReportInput {
@@ -182,7 +185,7 @@ async function convergenceBlock(p: ReportPart): Promise<string> {
 
 async function partSection(p: ReportPart, index: number): Promise<string> {
   const r = p.result;
-  const drawing = await drawPart(r, { reading: p.reading?.draw });
+  const drawing = await drawPart(r, { reading: p.reading?.draw, marks: p.marks });
   const q = r.quantities as Record<string, Quantity>;
   const keys = SECTION_QUANTITIES.map((i) => i.key);
   const holes = r.geometry.part.regions.reduce((n, g) => n + g.holes.length, 0);
@@ -205,6 +208,8 @@ ${fabricationBlock(p)}
 ${warn}
 <p class="caution">${escapeHtml(GEOMETRY_CAUTION)}</p>
 ${p.mass ? `<p class="caution">${escapeHtml(MASS_CAUTION)}</p>` : ''}
+${p.marks?.shearCentre ? `<p class="caution">${escapeHtml(PRISMATIC_NOTE)}</p>` : ''}
+${p.marks?.netSections?.length ? `<p class="caution">${escapeHtml(NET_SECTION_NOTE)}</p>` : ''}
 </section>`;
 }
 

@@ -4,15 +4,51 @@
  * Every output carries the geometry caution and, with torsion, the prismatic-member note.
  */
 import { type LengthUnit, lengthFactor } from '../base/units.js';
-import type { MemberResult } from '../analysis/torsionMember.js';
+import type { MemberResult, NetSectionResult } from '../analysis/torsionMember.js';
 import type { TorsionFact } from '../analysis/torsion.js';
 import { LENGTH_POWER, type Quantity, quantityInfo, unitText } from '../properties/quantities.js';
-import { GEOMETRY_CAUTION } from './cautions.js';
+import { GEOMETRY_CAUTION, NET_SECTION_NOTE } from './cautions.js';
 import { formatError, formatNumber, formatValue } from './numbers.js';
 
 export const PRISMATIC_NOTE =
   'Torsion constant, shear centre and warping constant treat the shape as the cross-section of a long prismatic member ' +
   '(Saint-Venant torsion, linear elastic, isotropic); they say nothing about the plate loaded in its own plane.';
+
+/** A net section's quantities in unit `to` (lengths × f, the area × f²). */
+function netQuantities(n: NetSectionResult, from: LengthUnit, to: LengthUnit) {
+  const f = lengthFactor(from, to);
+  const len = (q: Quantity) => ({ value: q.value * f, error: q.error * f, unit: to as string });
+  return {
+    length: len(n.length), grossLength: len(n.grossLength), netLength: len(n.netLength), holeLength: len(n.holeLength),
+    netArea: n.netArea ? { value: n.netArea.value * f * f, error: n.netArea.error * f * f, unit: `${to}²` } : undefined,
+    thickness: n.thickness === undefined ? undefined : { value: n.thickness * f, unit: to as string },
+    intervals: n.intervals.map((i) => ({
+      from: i.from * f, to: i.to * f, fromError: i.fromError * f, toError: i.toError * f,
+      fromPoint: i.fromPoint.map((v) => v * f), toPoint: i.toPoint.map((v) => v * f),
+    })),
+  };
+}
+
+function netSectionText(n: NetSectionResult, from: LengthUnit, to: LengthUnit, out: string[]): void {
+  const q = netQuantities(n, from, to);
+  const pt = ([x, y]: readonly number[]) => `(${formatNumber(x)}, ${formatNumber(y)})`;
+  out.push(` net section along ${n.points.map((p) => pt(p.map((v) => v * lengthFactor(from, to)))).join(' → ')} (${n.where}; ${n.crossings} boundary crossing${n.crossings === 1 ? '' : 's'})`);
+  const row = (k: string, v: { value: number; error: number; unit: string }, what: string) =>
+    out.push(`  ${k.padEnd(14)} ${formatNumber(v.value).padStart(18)} ± ${formatError(v.error).padEnd(8)} ${v.unit.padEnd(4)} ${what}`);
+  row('length', q.length, 'the line itself');
+  row('grossLength', q.grossLength, 'inside the outline, holes counted as material');
+  row('netLength', q.netLength, 'through material');
+  row('holeLength', q.holeLength, 'gross − net: taken by holes');
+  if (q.netArea) row('netArea', q.netArea, `netLength × thickness ${formatNumber(q.thickness!.value)} ${to}`);
+  else out.push('  (no thickness given: no net area)');
+  out.push(`  material along the line, from its first point (${to}):`);
+  for (const i of q.intervals) {
+    out.push(`   ${formatNumber(i.from)} ± ${formatError(i.fromError)} to ${formatNumber(i.to)} ± ${formatError(i.toError)}: ${pt(i.fromPoint)} → ${pt(i.toPoint)}`);
+  }
+  if (n.startsInMaterial || n.endsInMaterial) {
+    out.push(`  note: the line ${n.startsInMaterial && n.endsInMaterial ? 'starts and ends' : n.startsInMaterial ? 'starts' : 'ends'} inside the material; lengths count only the line as given`);
+  }
+}
 
 const SECTION_KEYS = ['area', 'centroidX', 'centroidY', 'Ix', 'Iy', 'Ixy', 'I1', 'I2', 'principalAngle', 'SxTop', 'SxBottom', 'SyRight', 'SyLeft'] as const;
 const PLASTIC_KEYS = ['Zx', 'Zy', 'Z1', 'Z2', 'plasticAxisY', 'plasticAxisX', 'plasticAxis1', 'plasticAxis2', 'S1', 'S2', 'fibre1', 'fibre2', 'shapeFactorX', 'shapeFactorY', 'shapeFactor1', 'shapeFactor2'] as const;
@@ -69,10 +105,12 @@ export function memberText(results: readonly MemberResult[], to?: LengthUnit): s
       out.push(`  principal sums ${formatNumber(g.principal[0] * f * f)}, ${formatNumber(g.principal[1] * f * f)}; larger along ${formatNumber(g.principalAngle, 6)}° from +x`);
       for (const b of g.bolts) out.push(`  bolt Ø${formatNumber(b.diameter * f, 6)} at (${formatNumber(b.x * f)}, ${formatNumber(b.y * f)}): ${formatNumber(b.distance * f)} ${u} from the centroid`);
     }
+    (r.netSections ?? []).forEach((n, i) => (n ? netSectionText(n, r.units, u, out) : out.push(` net line ${i + 1}: misses this part`)));
     out.push('');
   }
   out.push(GEOMETRY_CAUTION);
   if (results.some((r) => r.torsion)) out.push(PRISMATIC_NOTE);
+  if (results.some((r) => r.netSections?.length)) out.push(NET_SECTION_NOTE);
   return out.join('\n') + '\n';
 }
 
@@ -92,7 +130,13 @@ export function memberJson(results: readonly MemberResult[], to?: LengthUnit): s
         sumRR: r.boltGroup.sumRR * f * f, principal: r.boltGroup.principal.map((v) => v * f * f), principalAngle: r.boltGroup.principalAngle,
         sumUnit: `${u}²`, bolts: r.boltGroup.bolts.map((b) => ({ x: b.x * f, y: b.y * f, diameter: b.diameter * f, distance: b.distance * f })),
       } : undefined,
+      // null: the line misses this part (files of several parts)
+      netSections: r.netSections?.map((n) => n && ({
+        line: n.points.map((p) => p.map((v) => v * f)), where: n.where, crossings: n.crossings,
+        ...netQuantities(n, r.units, u), startsInMaterial: n.startsInMaterial, endsInMaterial: n.endsInMaterial,
+      })),
     };
   });
-  return JSON.stringify({ parts, cautions: [GEOMETRY_CAUTION, ...(results.some((r) => r.torsion) ? [PRISMATIC_NOTE] : [])] }, null, 2) + '\n';
+  const notes = [...(results.some((r) => r.torsion) ? [PRISMATIC_NOTE] : []), ...(results.some((r) => r.netSections?.length) ? [NET_SECTION_NOTE] : [])];
+  return JSON.stringify({ parts, cautions: [GEOMETRY_CAUTION, ...notes] }, null, 2) + '\n';
 }

@@ -75,3 +75,4 @@ export function chainPathData(segs: readonly Segment[], m: DrawingMap): string {
   for (const s of segs) d += segmentCommands(s, 0, 1, m);
   return d;
 }
+

@@ -6,7 +6,7 @@
  * kind does not compile here until it has samples.
  */
 import { describe, expect, it } from 'vitest';
-import { type Affine, type Out2, type Segment, type SegmentKind, OPS, ops, segmentEnd, segmentPoint, segmentStart } from '../../src/geometry/segments.js';
+import { type Affine, type Out2, type Segment, type SegmentKind, OPS, exactCrossings, ops, segmentEnd, segmentPoint, segmentStart } from '../../src/geometry/segments.js';
 import { applyAffine } from '../../src/geometry/transform.js';
 
 const SAMPLES = {
@@ -90,6 +90,28 @@ describe.each(ALL.map((s) => [s.kind, s] as const))('%s: SegmentOps contract', (
         let lo = cuts[k], hi = cuts[k + 1];
         for (let i = 0; i < 200; i++) { const mid = (lo + hi) / 2; if ((segmentPoint(s, mid)[1] < y) === (yb > ya)) lo = mid; else hi = mid; }
         expect(Math.abs(x - segmentPoint(s, (lo + hi) / 2)[0])).toBeLessThan(1e-9);
+      }
+    }
+  });
+  it('every kind crosses a line exactly: a line through the point at u in several directions finds ta = u there, on both', () => {
+    for (const u of [0.1, 0.37, 0.8]) {
+      const [px, py] = segmentPoint(s, u);
+      for (const th of [0.3, 1.1, 2.4]) {
+        const line: Segment = { kind: 'line', x0: px - 20 * Math.cos(th), y0: py - 20 * Math.sin(th), x1: px + 20 * Math.cos(th), y1: py + 20 * Math.sin(th) };
+        const hits = exactCrossings(s, line, 1e-9);
+        expect(hits, `${s.kind} has a closed-form crossing with a line`).not.toBeNull();
+        const near = hits!.filter((h) => Math.abs(h.ta - u) < 1e-7);
+        if (near.length === 0) {
+          // only a tangent line may miss the point as a separate crossing
+          const d: Out2 = [0, 0]; o.derivative(s, u, d);
+          expect(Math.abs(d[0] * Math.sin(th) - d[1] * Math.cos(th)) / Math.hypot(d[0], d[1]), `${s.kind} u=${u} th=${th}`).toBeLessThan(1e-6);
+          continue;
+        }
+        for (const h of hits!) {
+          // every reported crossing lies on both the segment (at ta) and the line (at tb)
+          expect(dist(segmentPoint(s, h.ta), [h.x, h.y])).toBeLessThan(1e-9);
+          expect(dist(segmentPoint(line, h.tb), [h.x, h.y])).toBeLessThan(1e-9);
+        }
       }
     }
   });

@@ -193,3 +193,43 @@ describe('the report shows values rounded to their estimates (tests/output/round
     expect(h.split('data-role="rounding-rule"').length - 1).toBe(1);
   });
 });
+
+describe('section marks on draw and report (--show, --net-line)', () => {
+  // invented splice plate, symmetric about y = 100: the shear centre lies on that axis (symmetry, common practice)
+  const plate = join(dir, 'marks-plate.json');
+  writeFileSync(plate, JSON.stringify({
+    part: 'splice (invented)', units: 'mm', thickness: 10, outline: { rectangle: { corner: [0, 0], size: [300, 200] } },
+    cutouts: [[100, 40], [100, 160], [160, 100]].map((center) => ({ circle: { center, diameter: 22 } })),
+  }));
+
+  it('draw marks the shear centre where member puts it, the plastic axes and the net runs; report carries the same key', () => {
+    const svgFile = join(dir, 'marks.svg');
+    const d = platewise(['draw', plate, '--show', 'shear-centre,plastic-axes', '--net-line', '100,-10 100,210', '-o', svgFile]);
+    expect(d.status, d.stderr).toBe(0);
+    const svg = readFileSync(svgFile, 'utf8');
+    const m = platewise(['member', plate, '--json']);
+    const t = JSON.parse(m.stdout).parts[0].torsion;
+    const sc = /data-role="shear-centre" data-x="([-\d.e]+)" data-y="([-\d.e]+)"/.exec(svg)!;
+    expect(Math.abs(Number(sc[1]) - t.shearCentreX.value)).toBeLessThanOrEqual(1e-9 * 300);
+    expect(Math.abs(Number(sc[2]) - 100)).toBeLessThanOrEqual(t.shearCentreY.error);
+    expect([...svg.matchAll(/data-role="plastic-axis"/g)]).toHaveLength(2); // principal axes along x and y: no turned pair
+    expect([...svg.matchAll(/data-role="net-run"/g)]).toHaveLength(3);
+    const html = join(dir, 'marks.html');
+    const r = platewise(['report', plate, '--show', 'plastic-axes', '--net-line', '100,-10 100,210', '-o', html]);
+    expect(r.status, r.stderr).toBe(0);
+    const page = readFileSync(html, 'utf8');
+    expect(page).toContain('Net sections are geometry only');
+    expect(page).toMatch(/data-role="mark-label"[^>]*>net line 1 \(thick where material\): net 156 ± [^ ]+ of gross 200 mm, net area 1560 ±/);
+  });
+
+  it('refuses an unknown mark or a line that misses the part: exit 2, one line, nothing written', () => {
+    const out = join(dir, 'never.svg');
+    for (const [args, re] of [[['--show', 'centroid'], /^platewise: --show: unknown mark "centroid"/], [['--net-line', '500,0 600,0'], /^platewise: --net-line: the line .* misses the part/]] as const) {
+      const r = platewise(['draw', plate, ...args, '-o', out]);
+      expect(r.status).toBe(2);
+      expect(r.stderr).toMatch(re);
+      expect(r.stderr.trim().split('\n')).toHaveLength(1);
+      expect(existsSync(out)).toBe(false);
+    }
+  });
+});

@@ -143,4 +143,47 @@ describe('axis labels never sit on the drawing\'s lines', () => {
       expect(a.x + 7.5 * a.text.length, sample).toBeLessThan(b.x);
     }
   });
+
+  it('section-mark labels (shear centre, plastic neutral axes, net lines) stand in the key under the part, clear of every drawn line and of each other', () => {
+    const cases: [string, string[]][] = [
+      ['samples/gusset-g2.json', ['--show', 'shear-centre,plastic-axes', '--net-line', '30,-10 30,100 100,140 100,320']],
+      ['samples/lifting-lug-ll4.json', ['--show', 'plastic-axes', '--net-line', '-1000,10 1000,12', '--net-line', '0,-1000 1,1000']],
+    ];
+    const num = (m: string, k: string) => Number(new RegExp(` ${k}="([-\\d.e]+)"`).exec(m)![1]);
+    for (const [sample, args] of cases) {
+      const out = join(dir, `marks-${sample.replace(/\W/g, '-')}.svg`);
+      const r = runCli(['draw', join(ROOT, sample), ...args, '-o', out]);
+      expect(r.status, r.stderr).toBe(0);
+      const svg = readFileSync(out, 'utf8');
+      const lines = [...svg.matchAll(/<line [^>]*>/g)].map((m) => [num(m[0], 'x1'), num(m[0], 'y1'), num(m[0], 'x2'), num(m[0], 'y2')]);
+      expect(svg).toMatch(/data-role="net-run"/);
+      expect(svg).toMatch(/data-role="plastic-axis"/);
+      const labels = [...svg.matchAll(/<text [^>]*data-role="mark-label"[^>]*>([^<]*)</g)].map((m) => ({ x: num(m[0], 'x'), y: num(m[0], 'y'), n: m[1].length }));
+      expect(labels.length, sample).toBeGreaterThanOrEqual(2);
+      const width = Number(/<svg [^>]*width="([\d.]+)"/.exec(svg)![1]);
+      // an 11 px label occupies about [y − 11, y + 3] and 6.4 px per character (generous)
+      const boxes = labels.map((l) => [l.x, l.y - 11, l.x + 6.4 * l.n, l.y + 3]);
+      for (const b of boxes) {
+        expect(b[2], `${sample}: label inside the drawing`).toBeLessThanOrEqual(width);
+        for (const [x1, y1, x2, y2] of lines) {
+          // Liang–Barsky: does the segment meet the box?
+          let t0 = 0, t1 = 1;
+          const dx = x2 - x1, dy = y2 - y1;
+          const p = [-dx, dx, -dy, dy], q = [x1 - b[0], b[2] - x1, y1 - b[1], b[3] - y1];
+          let meets = true;
+          for (let i = 0; i < 4 && meets; i++) {
+            if (p[i] === 0) { if (q[i] < 0) meets = false; continue; }
+            const t = q[i] / p[i];
+            if (p[i] < 0) t0 = Math.max(t0, t); else t1 = Math.min(t1, t);
+            if (t0 > t1) meets = false;
+          }
+          expect(meets, `${sample}: label box ${b.map((v) => v.toFixed(1))} meets line ${[x1, y1, x2, y2].map((v) => v.toFixed(1))}`).toBe(false);
+        }
+      }
+      // below the part and its frame (the material path's lowest point), and apart from each other
+      const frameBottom = Math.max(...[...svg.matchAll(/data-role="bounding-box"[\s\S]*?<rect [^>]*>/g)].map((m) => num(/<rect [^>]*>/.exec(m[0])![0], 'y') + num(/<rect [^>]*>/.exec(m[0])![0], 'height')));
+      for (const b of boxes) expect(b[1], sample).toBeGreaterThan(frameBottom);
+      for (let i = 1; i < boxes.length; i++) expect(boxes[i][1], sample).toBeGreaterThanOrEqual(boxes[i - 1][3]);
+    }
+  });
 });

@@ -20,3 +20,17 @@ export function angleInClosedSweep(a: number, a0: number, a1: number): boolean {
   if (b < lo) b += TWO_PI;
   return b <= hi;
 }
+
+/**
+ * Parameter in [0, 1] of angle `ang` on the sweep from a0 to a1 (either direction), or NaN when outside
+ * it by more than the angular slack (within the slack beyond an end: a parameter just outside [0, 1]).
+ */
+export function sweepParam(ang: number, a0: number, a1: number, slack: number): number {
+  const d = a1 - a0;
+  let rel = (ang - a0) * Math.sign(d);
+  rel = ((rel % TWO_PI) + TWO_PI) % TWO_PI;
+  const span = Math.abs(d);
+  if (rel <= span + slack) return rel / span;
+  if (rel >= TWO_PI - slack) return (rel - TWO_PI) / span;
+  return NaN;
+}

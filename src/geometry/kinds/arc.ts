@@ -3,7 +3,7 @@
  * Stored exactly, never as a polyline. Every operation is a closed form.
  */
 import { applyAffine } from './affine.js';
-import { angleInClosedSweep, angleInSweep } from './angles.js';
+import { angleInClosedSweep, angleInSweep, sweepParam } from './angles.js';
 import { type EllipticalArcSegment, transformEllipse } from './ellipticalArc.js';
 import type { LineSegment } from './line.js';
 import { trigArcMoments, trigArcNodes } from './moments.js';
@@ -18,16 +18,7 @@ export interface ArcSegment {
 
 const TWO_PI = 2 * Math.PI;
 
-/** Parameter of angle `ang` on an arc, or NaN when outside its sweep (with angular slack `slack`). */
-function arcParam(s: ArcSegment, ang: number, slack: number): number {
-  const d = s.a1 - s.a0;
-  let rel = (ang - s.a0) * Math.sign(d);
-  rel = ((rel % TWO_PI) + TWO_PI) % TWO_PI;
-  const span = Math.abs(d);
-  if (rel <= span + slack) return rel / span;
-  if (rel >= TWO_PI - slack) return (rel - TWO_PI) / span;
-  return NaN;
-}
+const arcParam = (s: ArcSegment, ang: number, slack: number): number => sweepParam(ang, s.a0, s.a1, slack);
 
 /** Crossings of a line (ta) and an arc (tb) within `tol`; a tangent within tol counts once. */
 export function lineArcCrossings(a: LineSegment, c: ArcSegment, tol: number): Crossing[] {

@@ -3,7 +3,7 @@
  */
 import { bernstein, bernsteinProductIntegral, bernsteinRestrict } from '../../numeric/bernstein.js';
 import { quadraticRoots } from '../../numeric/roots.js';
-import type { Out2, PathCommand } from './types.js';
+import type { Crossing, Out2, PathCommand } from './types.js';
 
 /** Relative safety margin added to the numerical bounds (turning, deviation). */
 export const MARGIN = 1e-12;
@@ -134,4 +134,57 @@ export function bezierCommand(xs: number[], ys: number[], t0: number, t1: number
   if (t0 > t1) { px = px.slice().reverse(); py = py.slice().reverse(); }
   if (px.length === 3) return { cmd: 'Q', args: [px[1], py[1], px[2], py[2]] };
   return { cmd: 'C', args: [px[1], py[1], px[2], py[2], px[3], py[3]] };
+}
+
+/**
+ * Crossings of a Bézier curve (control points xs, ys; `point` its kind's evaluator; ta on the curve) with a
+ * line segment (tb on it), within `tol`. The signed distance of the curve from the line is a polynomial of
+ * the curve's degree (≤ 3) whose Bernstein coefficients are the control points' distances; its derivative
+ * (degree ≤ 2) has its roots in closed form, which split [0, 1] into monotone pieces with at most one root
+ * each, found by bisection to the last bit. A turning point of the distance within tol of zero is a touch
+ * (one crossing, the curve tangent to the line).
+ */
+export function bezierLineCrossings<S>(
+  xs: readonly number[], ys: readonly number[], point: (s: S, t: number, out: Out2) => void, s: S,
+  line: { x0: number; y0: number; x1: number; y1: number }, tol: number,
+): Crossing[] {
+  const ex = line.x1 - line.x0, ey = line.y1 - line.y0, L = Math.hypot(ex, ey);
+  if (!(L > 0)) return [];
+  const nx = -ey / L, ny = ex / L;
+  const n = xs.length - 1;
+  const g = xs.map((x, i) => nx * (x - line.x0) + ny * (ys[i] - line.y0));
+  if (Math.min(...g) > tol || Math.max(...g) < -tol) return [];
+  // derivative of the distance in Bernstein form (degree n − 1), then in powers of t
+  const d = g.slice(1).map((v, i) => n * (v - g[i]));
+  const turns = inOpenUnit(d.length === 3
+    ? quadraticRoots(d[0] - 2 * d[1] + d[2], 2 * (d[1] - d[0]), d[0])
+    : d.length === 2 ? quadraticRoots(0, d[1] - d[0], d[0]) : []);
+  const p: Out2 = [0, 0];
+  const dist = (t: number) => { point(s, t, p); return nx * (p[0] - line.x0) + ny * (p[1] - line.y0); };
+  const roots: number[] = [];
+  const knots = [0, ...turns, 1];
+  for (let i = 0; i < knots.length; i++) {
+    const t = knots[i], gt = dist(t);
+    if (Math.abs(gt) <= tol) { roots.push(t); continue; }
+    if (i + 1 === knots.length) break;
+    const u = knots[i + 1], gu = dist(u);
+    if (Math.abs(gu) <= tol || (gt > 0) === (gu > 0)) continue;
+    let lo = t, hi = u;
+    for (let k = 0; k < 200; k++) {
+      const mid = (lo + hi) / 2;
+      if (mid <= lo || mid >= hi) break;
+      if ((dist(mid) > 0) === (gt > 0)) lo = mid; else hi = mid;
+    }
+    roots.push((lo + hi) / 2);
+  }
+  const out: Crossing[] = [];
+  const slack = tol / L;
+  for (const ta of roots) {
+    point(s, ta, p);
+    const tb = ((p[0] - line.x0) * ex + (p[1] - line.y0) * ey) / (L * L);
+    if (tb < -slack || tb > 1 + slack) continue;
+    if (out.length > 0 && out[out.length - 1].ta === ta) continue;
+    out.push({ x: p[0], y: p[1], ta, tb });
+  }
+  return out;
 }

@@ -7,7 +7,8 @@
 import { adaptiveGaussLegendre } from '../../numeric/gaussLegendre.js';
 import { quadraticRoots } from '../../numeric/roots.js';
 import { applyAffine, isIdentity } from './affine.js';
-import { angleBetween, areaWeights, bezierArea, bezierCommand, bezierDeviation, bezierSubCurve, bisectCrossingX, inOpenUnit } from './bezier.js';
+import { angleBetween, areaWeights, bezierArea, bezierCommand, bezierDeviation, bezierLineCrossings, bezierSubCurve, bisectCrossingX, inOpenUnit } from './bezier.js';
+import type { LineSegment } from './line.js';
 import { bezierMoments, bezierNodes } from './moments.js';
 import type { Affine, Out2, SegmentOps } from './types.js';
 
@@ -148,5 +149,6 @@ export const cubicOps: SegmentOps<CubicSegment> = {
     return inOpenUnit(quadraticRoots(...cubicDerivCoeffs(s.y0, s.y1, s.y2, s.y3)));
   },
   crossingX: (s, ta, tb, y) => bisectCrossingX(cubicOps.point, s, ta, tb, y),
+  crossings: { line: (a, b: LineSegment, tol: number) => bezierLineCrossings(xsOf(a), ysOf(a), cubicOps.point, a, b, tol) },
   pathCommands: (s, t0, t1) => [bezierCommand(xsOf(s), ysOf(s), t0, t1)],
 };

@@ -7,9 +7,10 @@
  */
 import { adaptiveGaussLegendre } from '../../numeric/gaussLegendre.js';
 import { applyAffine, isIdentity } from './affine.js';
-import { angleInSweep } from './angles.js';
+import { angleInSweep, sweepParam } from './angles.js';
+import type { LineSegment } from './line.js';
 import { trigArcMoments, trigArcNodes } from './moments.js';
-import { MAX_ARC_COMMAND_SWEEP, type Affine, type Out2, type PathCommand, type SegmentOps } from './types.js';
+import { MAX_ARC_COMMAND_SWEEP, type Affine, type Crossing, type Out2, type PathCommand, type SegmentOps } from './types.js';
 
 export interface EllipticalArcSegment {
   kind: 'ellipticalArc';
@@ -65,6 +66,37 @@ export function transformEllipse(s: EllipticalArcSegment, m: Affine): Elliptical
   const [cx, cy] = applyAffine(m, s.cx, s.cy);
   if (sy >= 0) return { kind: 'ellipticalArc', cx, cy, rx: sx, ry: sy, phi, t0: s.t0 + w, t1: s.t1 + w };
   return { kind: 'ellipticalArc', cx, cy, rx: sx, ry: -sy, phi, t0: -s.t0 - w, t1: -s.t1 - w };
+}
+
+/**
+ * Crossings of an elliptical arc (ta) with a line segment (tb) within `tol`, in closed form: in the frame
+ * where the ellipse is the unit circle (turned by −phi, scaled by 1/rx, 1/ry) the line stays a line with the
+ * same parameter, and meets the circle where a quadratic in that parameter vanishes. A tangent within tol
+ * (measured against the smaller radius) counts once.
+ */
+function ellipseLineCrossings(e: EllipticalArcSegment, a: LineSegment, tol: number): Crossing[] {
+  const c = Math.cos(e.phi), n = Math.sin(e.phi);
+  const toU = (x: number, y: number): [number, number] => {
+    const dx = x - e.cx, dy = y - e.cy;
+    return [(c * dx + n * dy) / e.rx, (-n * dx + c * dy) / e.ry];
+  };
+  const [u0, v0] = toU(a.x0, a.y0), [u1, v1] = toU(a.x1, a.y1);
+  const du = u1 - u0, dv = v1 - v0, dd = du * du + dv * dv;
+  if (!(dd > 0)) return [];
+  const s0 = -(u0 * du + v0 * dv) / dd;
+  const h = Math.hypot(u0 + du * s0, v0 + dv * s0);
+  const rel = tol / Math.min(Math.abs(e.rx), Math.abs(e.ry));
+  if (h > 1 + rel) return [];
+  const half = h >= 1 - rel ? 0 : Math.sqrt((1 - h) * (1 + h) / dd);
+  const L = Math.hypot(a.x1 - a.x0, a.y1 - a.y0), slackT = tol / L;
+  const out: Crossing[] = [];
+  for (const tb of half === 0 ? [s0] : [s0 - half, s0 + half]) {
+    if (tb < -slackT || tb > 1 + slackT) continue;
+    const ta = sweepParam(Math.atan2(v0 + dv * tb, u0 + du * tb), e.t0, e.t1, rel);
+    if (Number.isNaN(ta)) continue;
+    out.push({ x: a.x0 + (a.x1 - a.x0) * tb, y: a.y0 + (a.y1 - a.y0) * tb, ta, tb });
+  }
+  return out;
 }
 
 export const ellipticalArcOps: SegmentOps<EllipticalArcSegment> = {
@@ -172,6 +204,7 @@ export const ellipticalArcOps: SegmentOps<EllipticalArcSegment> = {
     const c = Math.cos(s.phi), n = Math.sin(s.phi);
     return sweepParams(Math.atan2(s.ry * c, s.rx * n), s.t0, s.t1).filter((t) => t > 0 && t < 1);
   },
+  crossings: { line: ellipseLineCrossings },
   crossingX(s, ta, tb, y) {
     // y(θ) = cy + Y sin(θ + δ) with Y = hypot(rx sin φ, ry cos φ), δ = atan2(rx sin φ, ry cos φ)
     const sp = Math.sin(s.phi), cp = Math.cos(s.phi);

@@ -5,7 +5,8 @@
  */
 import { adaptiveGaussLegendre } from '../../numeric/gaussLegendre.js';
 import { applyAffine, isIdentity } from './affine.js';
-import { MARGIN, angleBetween, areaWeights, bezierArea, bezierCommand, bezierDeviation, bezierSubCurve, bisectCrossingX, inOpenUnit } from './bezier.js';
+import { MARGIN, angleBetween, areaWeights, bezierArea, bezierCommand, bezierDeviation, bezierLineCrossings, bezierSubCurve, bisectCrossingX, inOpenUnit } from './bezier.js';
+import type { LineSegment } from './line.js';
 import { bezierMoments, bezierNodes } from './moments.js';
 import type { Affine, Out2, SegmentOps } from './types.js';
 
@@ -108,5 +109,6 @@ export const quadraticOps: SegmentOps<QuadraticSegment> = {
     return dy !== 0 ? inOpenUnit([(s.y0 - s.y1) / dy]) : [];
   },
   crossingX: (s, ta, tb, y) => bisectCrossingX(quadraticOps.point, s, ta, tb, y),
+  crossings: { line: (a, b: LineSegment, tol: number) => bezierLineCrossings(xsOf(a), ysOf(a), quadraticOps.point, a, b, tol) },
   pathCommands: (s, t0, t1) => [bezierCommand(xsOf(s), ysOf(s), t0, t1)],
 };
