@@ -27,7 +27,7 @@ describe('samples/job', () => {
     expect(byFile['endplate-e2.json'].verdict).toBe('fail');
     expect(byFile['endplate-e2.json'].notPassed).toBe('pierces fail: stated 7, computed 8 ± 0, tolerance 0');
     // cleat: 120 × 90 − 4·π·7² (closed form)
-    expect(Number(byFile['cleat-c1.json'].area)).toBeCloseTo(10800 - 196 * Math.PI, 8);
+    expect(Number(byFile['cleat-c1.json']['area [mm2]'])).toBeCloseTo(10800 - 196 * Math.PI, 8);
     expect(r.stderr).toMatch(/verdicts: 1 pass, 1 fail, 0 inconclusive, 2 with nothing stated/);
   });
   it('compare on the end plate: only pierces fails', () => {
