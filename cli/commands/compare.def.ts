@@ -10,6 +10,7 @@ export function defineCompare(program: Command): void {
     .requiredOption('--reference <file>', 'stated values with units and optional tolerances (.json or .csv)')
     .option('--json', 'print JSON instead of a table')
     .option('--csv', 'print CSV (RFC 4180) instead of a table')
+    .option('--decimal-comma', 'with --csv: spreadsheet-locale CSV, semicolons between fields and decimal commas (1,5)')
     .option('--thickness <t>', 'plate thickness, e.g. "10 mm" (a bare number is in the part\'s unit); enables masses')
     .option('--material <name>', 'material from the built-in table (run `platewise materials`), for its density')
     .option('--density <d>', 'density, e.g. "7850 kg/m3" or "7.85 g/cm3" (a bare number is kg/m³); overrides the material')
