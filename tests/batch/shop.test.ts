@@ -7,11 +7,12 @@
  * (EN 1999-1-1:2007, 3.2.5), 1 in = 25.4 mm exactly (NIST SP 811, appendix B), and cost arithmetic done
  * by hand in the comments.
  */
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { spawn } from 'node:child_process';
+import { mkdtempSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { runCli } from '../helpers.js';
+import { CLI, runCli } from '../helpers.js';
 import { parseCsvRecords } from '../../src/base/csv.js';
 import { InJobOrder } from '../../src/batch/order.js';
 import { parseRates } from '../../src/batch/rates.js';
@@ -61,6 +62,37 @@ describe('rows in job order', () => {
     expect(recs.map((x) => x.file)).toEqual(['slow.json', ...names]);
     expect(recs.map((x) => Number(x.row))).toEqual(recs.map((_, i) => i + 1));
   });
+});
+
+describe('interrupted with 2 workers', () => {
+  it('SIGINT: exit 130, every written row whole, row numbers ascending, as many rows as the summary says', async () => {
+    const sub = mkdtempSync(join(dir, 'int-'));
+    writeFileSync(join(sub, 'p.json'), JSON.stringify({ part: 'p (invented)', units: 'mm', outline: { rectangle: { corner: [0, 0], size: [100, 60] } }, cutouts: [{ circle: { center: [50, 30], diameter: 10 } }] }));
+    const holes = Array.from({ length: 300 }, (_, j) => ({ circle: { center: [10 + (j % 30) * 20, 10 + Math.floor(j / 30) * 20], diameter: 8 } }));
+    writeFileSync(join(sub, 'big.json'), JSON.stringify({ part: 'big (invented)', units: 'mm', outline: { rectangle: { corner: [0, 0], size: [600, 200] } }, cutouts: holes }));
+    // every 25th row is a slower part, so rows finish out of order and some wait behind it
+    writeFileSync(join(sub, 'job.csv'), ['file,quantity', ...Array.from({ length: 3000 }, (_, i) => `${i % 25 === 0 ? 'big' : 'p'}.json,1`)].join('\n') + '\n');
+    const status = await new Promise<number | null>((done) => {
+      const c = spawn(process.execPath, [CLI, 'batch', 'job.csv', '-o', 'out.csv', '--quiet', '--jobs', '2', '--levels', '2'], { cwd: sub });
+      let sent = false;
+      // signal once rows are on disk (the temporary file has grown): a state, not a time
+      const poll = setInterval(() => {
+        const tmp = readdirSync(sub).find((f) => f.endsWith('.tmp'));
+        if (!sent && tmp && readFileSync(join(sub, tmp), 'utf8').split('\n').length > 60) { sent = true; c.kill('SIGINT'); }
+      }, 20);
+      const t = setTimeout(() => c.kill('SIGKILL'), 180000);
+      c.on('close', (code) => { clearInterval(poll); clearTimeout(t); done(code); });
+    });
+    expect(status).toBe(130);
+    const t = parseCsvRecords(readFileSync(join(sub, 'out.csv'), 'utf8'), 'out'); // a torn row would not parse with the header's width
+    const ids = t.records.map((r) => Number(r.row));
+    expect(ids).toEqual([...ids].sort((a, b) => a - b));
+    expect(new Set(ids).size).toBe(ids.length);
+    const s = JSON.parse(readFileSync(join(sub, 'out.summary.json'), 'utf8')).summary;
+    expect(s.complete).toBe(false);
+    expect(s.interrupted.rowsFinished).toBe(ids.length);
+    expect(s.parts).toBe(ids.length);
+  }, 200000);
 });
 
 describe('units in the headings, line totals, notes and warnings', () => {
