@@ -21,7 +21,7 @@ export interface BatchFlags extends DrawingFlags {
   decimalComma?: boolean; rates?: string;
 }
 
-const DIALECT_SWITCH = { toSemicolons: 'add --decimal-comma', toCommas: 'leave out --decimal-comma for comma-separated CSV' };
+const DIALECT_SWITCH = { toSemicolons: 'add --decimal-comma', toCommas: '--decimal-comma applies to the manifest and the rates file alike; leave it out for comma-separated CSV' };
 
 /** The summary file beside a CSV output: results.csv → results.summary.json. */
 export function summaryPath(output: string): string {
@@ -62,7 +62,7 @@ export async function batch(source: string, flags: BatchFlags): Promise<string> 
   let rates: ShopRates | undefined;
   if (flags.rates !== undefined) {
     const rt = readInputText(flags.rates, { regularOnly: true });
-    rates = parseRates(rt.text, rt.label, { dialect });
+    rates = parseRates(rt.text, rt.label, { dialect, dialectSwitch: DIALECT_SWITCH });
   }
 
   const jsonl = flags.jsonl || (!flags.csv && flags.output !== undefined && /\.(jsonl|ndjson)$/i.test(flags.output));

@@ -218,6 +218,22 @@ export function formatCsvNumber(x: number, decimalComma = false): string {
 }
 
 /**
+ * Whether the header line is split by the other dialect's separator (a semicolon file read as RFC 4180, or
+ * the other way round), so that the reader can say so instead of reporting one puzzling column.
+ */
+export function otherSeparator(text: string, separator: ',' | ';'): boolean {
+  const first = text.replace(/^\ufeff/, '').split(/\r?\n/, 1)[0] ?? '';
+  return !first.includes(separator) && first.includes(separator === ',' ? ';' : ',');
+}
+
+/** The one line for a file in the other dialect; `switchHint` says how the caller switches (a flag). */
+export function otherSeparatorError(label: string, separator: ',' | ';', what: string, switchHint?: { toSemicolons: string; toCommas: string }): InputError {
+  return new InputError(`${label}:line 1`, separator === ','
+    ? `the columns are separated by semicolons; ${what} is CSV with commas (RFC 4180): save it with comma separators (in a spreadsheet: CSV with "," as the field separator)${switchHint ? `, or ${switchHint.toSemicolons} to read semicolons and decimal commas` : ''}`
+    : `the columns are separated by commas, but semicolons with decimal commas were asked for${switchHint ? `; ${switchHint.toCommas}` : ''}`);
+}
+
+/**
  * A number cell written with a decimal comma, as plain text for the number readers ("1,5 mm" → "1.5 mm").
  * A point between digits is refused: in a decimal-comma locale it separates thousands ("1.500" is 1500
  * there), so reading it either way could be wrong by a factor of 1000.

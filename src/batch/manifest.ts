@@ -35,7 +35,7 @@
 import { readdirSync, statSync } from 'node:fs';
 import { dirname, isAbsolute, join, resolve } from 'node:path';
 import { InputError } from '../base/errors.js';
-import { type CsvDialect, RFC_4180, csvWhere, decimalCommaCell, parseCsvRecords, parseCsvRows } from '../base/csv.js';
+import { type CsvDialect, RFC_4180, csvWhere, decimalCommaCell, otherSeparator, otherSeparatorError, parseCsvRecords, parseCsvRows } from '../base/csv.js';
 import { type InputFormat, INPUT_FORMATS } from '../read/read.js';
 import type { MaterialTable } from '../model/index.js';
 import { type PlateSettings, checkSettings } from '../model/plate.js';
@@ -91,13 +91,7 @@ export function parseManifest(text: string, label: string, baseDir: string, opti
   const dialect = options.dialect ?? RFC_4180;
   const sep = dialect.separator;
   // spreadsheets in many locales save CSV with semicolons: say so instead of a puzzling column error
-  const first = text.replace(/^\ufeff/, '').split(/\r?\n/, 1)[0] ?? '';
-  const other = sep === ',' ? ';' : ',';
-  if (!first.includes(sep) && first.includes(other) && new RegExp(`(^|${other})\\s*"?file"?\\s*(${other}|$)`, 'i').test(first)) {
-    throw new InputError(`${label}:line 1`, sep === ','
-      ? `the columns are separated by semicolons; a manifest is CSV with commas (RFC 4180): save it with comma separators (in a spreadsheet: CSV with "," as the field separator)${options.dialectSwitch ? `, or ${options.dialectSwitch.toSemicolons} to read semicolons and decimal commas` : ''}`
-      : `the columns are separated by commas, but semicolons with decimal commas were asked for${options.dialectSwitch ? `; ${options.dialectSwitch.toCommas}` : ''}`);
-  }
+  if (otherSeparator(text, sep)) throw otherSeparatorError(label, sep, 'a manifest', options.dialectSwitch);
   const t = parseCsvRecords(text, label, { required: ['file'], separator: sep });
   const head = parseCsvRows(text, label, sep).find((r) => !(r.fields.length === 1 && r.fields[0] === ''))!;
   const columns = t.header.map((h) => ({ header: h, ...splitHeader(h) }));

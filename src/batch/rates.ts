@@ -20,7 +20,7 @@
  * Errors name the file, line and column.
  */
 import { InputError } from '../base/errors.js';
-import { type CsvDialect, RFC_4180, csvWhere, decimalCommaCell, parseCsvRecords, parseCsvRows } from '../base/csv.js';
+import { type CsvDialect, RFC_4180, csvWhere, decimalCommaCell, otherSeparator, otherSeparatorError, parseCsvRecords, parseCsvRows } from '../base/csv.js';
 import { editDistance } from '../base/text.js';
 import type { MaterialTable } from '../model/materials.js';
 import { lookupMaterial } from '../model/plate.js';
@@ -68,8 +68,9 @@ function unitList(c: keyof typeof UNITS): string {
 }
 
 /** Read a shop-rates file; `materials` resolves names the same way as everywhere else. */
-export function parseRates(text: string, label: string, options: { materials?: MaterialTable; dialect?: CsvDialect } = {}): ShopRates {
+export function parseRates(text: string, label: string, options: { materials?: MaterialTable; dialect?: CsvDialect; dialectSwitch?: { toSemicolons: string; toCommas: string } } = {}): ShopRates {
   const dialect = options.dialect ?? RFC_4180;
+  if (otherSeparator(text, dialect.separator)) throw otherSeparatorError(label, dialect.separator, 'a rates file', options.dialectSwitch);
   const t = parseCsvRecords(text, label, { separator: dialect.separator });
   const head = parseCsvRows(text, label, dialect.separator).find((r) => !(r.fields.length === 1 && r.fields[0] === ''))!;
   const byName = new Map<Column, { header: string; scale: number }>();

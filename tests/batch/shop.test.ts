@@ -221,8 +221,11 @@ describe('spreadsheet-locale CSV: --decimal-comma', () => {
     expect(hint.stderr).toMatch(/separated by semicolons.*or add --decimal-comma to read semicolons and decimal commas\n$/);
     const other = cli(['batch', 'dc-point.csv', '--decimal-comma']);
     expect(other.status).toBe(2);
-    expect(other.stderr).toMatch(/separated by commas, but semicolons with decimal commas were asked for; leave out --decimal-comma/);
+    expect(other.stderr).toMatch(/separated by commas, but semicolons with decimal commas were asked for; --decimal-comma applies to the manifest and the rates file alike/);
     expect(cli(['batch', 'dc.csv', '--decimal-comma', '--jsonl']).status).toBe(2);
+    const rates = cli(['batch', 'dc.csv', '--decimal-comma', '--rates', 'rates.csv']); // rates.csv has commas (below)
+    expect(rates.status).toBe(2);
+    expect(rates.stderr).toBe('platewise: rates.csv:line 1: the columns are separated by commas, but semicolons with decimal commas were asked for; --decimal-comma applies to the manifest and the rates file alike; leave it out for comma-separated CSV\n');
   });
 });
 
