@@ -36,7 +36,7 @@ Rates file (--rates, CSV; one row per material and thickness; every number's uni
   setupTime min|s|h; money: any currency label, the same in machineRate [X/h] and
   materialPrice [X/kg] (never converted).
   Per part: time = cut length / cutting speed + pierces x pierce time; cost = time x machine rate +
-  blank mass x material price. Per line: quantity x part + setup time (x machine rate) once.
+  blank mass x material price. Per line (a row of results): quantity x part + setup once.
   Kerf, lead-ins, rapid moves, marking and nesting are not modelled: the tool computes, the shop
   decides.
 

@@ -13,7 +13,8 @@
  *   pierceTime [s]       time for one pierce; unit s; zero or more
  *   machineRate [EUR/h]  money per machine hour; any currency label before "/h" (EUR, USD, CHF, £ …)
  *   materialPrice [EUR/kg]  money per kg of material; the same currency label as machineRate, before "/kg"
- *   setupTime [min]      time charged once per line (a manifest row, or a file of a folder); unit min, s or h
+ *   setupTime [min]      time charged once per line (a row of results: one part of a manifest row or of a
+ *                        folder's file); unit min, s or h
  *   note                 optional free text (where the figure came from)
  *
  * One row per material and thickness (a second row for the same pair is refused, naming both lines).

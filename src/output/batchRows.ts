@@ -220,7 +220,7 @@ export const BATCH_CAUTION =
 export const COST_ASSUMPTIONS: readonly string[] = [
   'cutting time per part = cut length / cutting speed + pierces × pierce time; kerf, lead-ins, rapid moves between contours and marking lines are not modelled',
   'machine cost = cutting time × machine rate; material cost = blank mass (smallest enclosing rectangle × thickness × density) × material price; nesting, remnants and offcuts are not modelled',
-  'setup time is charged once per line (manifest row, or file of a folder) at the machine rate',
+  'setup time is charged once per line at the machine rate (a line is a row of results: one part of a manifest row or of a folder\'s file)',
   'rates and prices are the shop\'s own, as given; no currency conversion, tax or margin: the tool computes, the shop decides',
 ];
 
