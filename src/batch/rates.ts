@@ -49,6 +49,9 @@ export interface ShopRates {
   rates: ShopRate[];
 }
 
+/** Slowest cutting speed accepted (mm/min): keeps every time finite. */
+const MIN_SPEED_MM_PER_MIN = 0.001;
+
 /** Thicknesses closer than this (relative) are the same thickness: 3/8 in and 9.525 mm meet. */
 const SAME_THICKNESS = 1e-9;
 
@@ -134,6 +137,8 @@ export function parseRates(text: string, label: string, options: { materials?: M
       const v = Number(plain) * byName.get(c)!.scale;
       if (!Number.isFinite(v) || v > 1e12) throw new InputError(at(c), `${c} ${text} is beyond the range of a shop rate`);
       if (positive ? !(v > 0) : !(v >= 0)) throw new InputError(at(c), `expected ${c} ${positive ? 'more than zero' : 'of zero or more'}, got ${text}`);
+      // a speed of 1e-300 would make every time infinite: far below any machine, refused
+      if (c === 'cuttingSpeed' && v < MIN_SPEED_MM_PER_MIN) throw new InputError(at(c), `a cutting speed of ${text} ${byName.get(c)!.header.replace(/^.*\[|\]$/g, '')} is below ${MIN_SPEED_MM_PER_MIN} mm/min; expected the machine's speed`);
       return v;
     };
     const materialText = raw('material');
