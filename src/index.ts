@@ -5,7 +5,8 @@
  *   mass       analyzePart with thickness, density or material (in the file or as `given` settings)
  *   integrate  integrateExpression
  *   compare    readReference → compareAll on a report's quantities
- *   batch      parseManifest / folderJobs → runPool (or runJob in-process)
+ *   batch      parseManifest / folderJobs → runPool (or runJob in-process) → InJobOrder → batchLine
+ *              (line totals; priceLine under parseRates) → the writers
  *   draw       drawPart / drawSheet (the drawing stack loads only when called)
  *   report     buildReport
  *
@@ -40,6 +41,13 @@ export { parseManifest, folderJobs } from './batch/manifest.js';
 export { runJob } from './batch/task.js';
 export type { BatchRow, JobSettings } from './batch/task.js';
 export { runPool } from './batch/pool.js';
+export { InJobOrder } from './batch/order.js';
+export { batchLine, lineFigures, priceLine } from './batch/lines.js';
+export type { BatchLine, LineCost, LineFigures, NoCost } from './batch/lines.js';
+export { parseRates, findRate } from './batch/rates.js';
+export type { ShopRate, ShopRates } from './batch/rates.js';
+export { SummaryBuilder, batchCsvHeader, batchCsvRow, batchJsonLine, summaryText, COST_ASSUMPTIONS } from './output/batchRows.js';
+export type { BatchSummary, GroupTotals, CostTotals } from './output/batchRows.js';
 // drawings and reports
 export { drawPart, drawSheet } from './output/draw.js';
 export { buildReport } from './output/html.js';

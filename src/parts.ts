@@ -37,5 +37,6 @@ export { resolveLayers, singleLayerModel } from './model/plate.js';
 export { parseThickness, parseDensity, parseLengthUnit } from './model/settings.js';
 export { compileExpression } from './expr/index.js';
 export type { CompiledExpression } from './expr/index.js';
-export { parseCsv, parseCsvRecords, formatCsvRow } from './base/csv.js';
+export { parseCsv, parseCsvRecords, formatCsvRow, RFC_4180, SPREADSHEET_LOCALE } from './base/csv.js';
+export type { CsvDialect } from './base/csv.js';
 export { sectionJson, sectionText } from './output/text.js';

@@ -6,6 +6,10 @@ import { checkOutputTarget, createTemp, publish, readInputText, writeFileAtomic 
 import { acquireLock } from '../../src/batch/lock.js';
 import { type Job, folderJobs, manifestBase, parseManifest } from '../../src/batch/manifest.js';
 import { runPool } from '../../src/batch/pool.js';
+import { InJobOrder } from '../../src/batch/order.js';
+import { type BatchLine, batchLine } from '../../src/batch/lines.js';
+import { type ShopRates, parseRates } from '../../src/batch/rates.js';
+import { RFC_4180, SPREADSHEET_LOCALE } from '../../src/base/csv.js';
 import { type BatchSummary, SummaryBuilder, batchCsvHeader, batchCsvRow, batchJsonLine, summaryText } from '../../src/output/batchRows.js';
 import type { BatchRow } from '../../src/batch/task.js';
 import { checkSettings } from '../../src/model/plate.js';
@@ -14,7 +18,10 @@ import { type DrawingFlags, plateSettings, readOptions } from './settings.js';
 export interface BatchFlags extends DrawingFlags {
   output?: string; force?: boolean; jsonl?: boolean; csv?: boolean; jobs?: number;
   thickness?: string; material?: string; density?: string; degree?: number; levels?: number; quiet?: boolean;
+  decimalComma?: boolean; rates?: string;
 }
+
+const DIALECT_SWITCH = { toSemicolons: 'add --decimal-comma', toCommas: '--decimal-comma applies to the manifest and the rates file alike; leave it out for comma-separated CSV' };
 
 /** The summary file beside a CSV output: results.csv → results.summary.json. */
 export function summaryPath(output: string): string {
@@ -37,6 +44,7 @@ export async function batch(source: string, flags: BatchFlags): Promise<string> 
   if (flags.degree !== undefined && (flags.degree < 1 || flags.degree > 20)) throw new InputError('--degree', `expected 1 to 20, got ${flags.degree}`);
   const defaults = plateSettings(flags);
   checkSettings(defaults);
+  const dialect = flags.decimalComma ? SPREADSHEET_LOCALE : RFC_4180;
 
   // the jobs: everything about the manifest is checked before any work starts
   let jobs: Job[];
@@ -49,11 +57,18 @@ export async function batch(source: string, flags: BatchFlags): Promise<string> 
       throw new InputError(source, 'is a part file; batch takes a folder of part files or a manifest (CSV with a header naming the column "file"); to measure one part use platewise measure');
     }
     const m = readInputText(source);
-    jobs = parseManifest(m.text, m.label, manifestBase(source));
+    jobs = parseManifest(m.text, m.label, manifestBase(source), { dialect, dialectSwitch: DIALECT_SWITCH });
+  }
+  let rates: ShopRates | undefined;
+  if (flags.rates !== undefined) {
+    const rt = readInputText(flags.rates, { regularOnly: true });
+    rates = parseRates(rt.text, rt.label, { dialect, dialectSwitch: DIALECT_SWITCH });
   }
 
   const jsonl = flags.jsonl || (!flags.csv && flags.output !== undefined && /\.(jsonl|ndjson)$/i.test(flags.output));
+  if (jsonl && flags.decimalComma) throw new InputError('--decimal-comma', 'applies to CSV; JSON Lines always write numbers with a decimal point');
   const inputs: string[] = [source];
+  if (flags.rates !== undefined) inputs.push(flags.rates);
   for (const j of jobs) {
     inputs.push(j.path);
     if (j.reference) inputs.push(j.reference.path);
@@ -107,7 +122,8 @@ export async function batch(source: string, flags: BatchFlags): Promise<string> 
   if (flags.jobs !== undefined && flags.jobs > cap && !flags.quiet) {
     process.stderr.write(`platewise: --jobs ${flags.jobs} capped at ${cap} worker${cap === 1 ? '' : 's'} (${availableParallelism()} cores, ${Math.round(freemem() / 2 ** 20)} MiB free memory, ${WORKER_MEMORY_BYTES / 2 ** 20} MiB per worker)\n`);
   }
-  const summary = new SummaryBuilder(size);
+  const summary = new SummaryBuilder(size, rates);
+  const csvOptions = { dialect, currency: rates?.currency };
   const showBar = !flags.quiet && process.stderr.isTTY === true;
   let bar: { increment: (n: number, payload: object) => void; stop: () => void } | null = null;
   // SIGINT / SIGTERM: stop starting jobs, keep every finished row, mark the summary incomplete, one line
@@ -131,26 +147,33 @@ export async function batch(source: string, flags: BatchFlags): Promise<string> 
       b.start(jobs.length, 0, { failed: 0 });
       bar = b;
     }
-    write(jsonl ? '' : batchCsvHeader());
+    write(jsonl ? '' : batchCsvHeader(csvOptions));
+    // workers finish in any order; rows are written in job order (manifest rows, or the folder's sorted
+    // names), each job's rows held until every earlier job's are written, then written whole
+    const index = new Map<Job, number>(jobs.map((j, k) => [j, k]));
+    const order = new InJobOrder<BatchLine[]>((lines) => {
+      let text = '';
+      for (const l of lines) text += jsonl ? batchJsonLine(l) : batchCsvRow(l, csvOptions);
+      write(text); // one write per file's rows: an interrupted run keeps every row it finished, none torn
+      for (const l of lines) summary.add(l); // in job order: the totals do not depend on the number of workers
+    });
     rowsDone = await runPool(jobs, {
       size,
       stop: stop.signal,
       settings: { defaults, degree: flags.degree, levels: flags.levels, read: readOptions(flags) },
-      onRows: (rows: BatchRow[]) => {
-        let text = '';
-        for (const r of rows) text += jsonl ? batchJsonLine(r) : batchCsvRow(r);
-        write(text); // one write per file's rows: an interrupted run keeps every row it finished, none torn
-        for (const r of rows) {
-          summary.add(r);
-          if (r.status !== 'ok') failedParts++;
-        }
+      onRows: (rows: BatchRow[], job: Job) => {
+        for (const r of rows) if (r.status !== 'ok') failedParts++;
+        order.put(index.get(job)!, rows.map((r) => batchLine(r, job.note, rates)));
         bar?.increment(1, { failed: failedParts });
       },
     });
+    // interrupted: rows that finished behind an unfinished one are kept too, still in ascending order
+    order.flush();
     const finished = summary.finish((performance.now() - t0) / 1000);
-    for (const k of ['netMassKg', 'netMassErrorKg', 'blankMassKg', 'cutLengthM', 'pierces', 'pieces'] as const) {
+    for (const k of ['netMassKg', 'netMassErrorKg', 'blankMassKg', 'cutLengthM', 'pierces', 'pieces', 'areaM2', 'markingLengthM'] as const) {
       if (!Number.isFinite(finished[k])) throw new InputError('batch', `the total ${k} is beyond the range of numbers (${finished[k]}); check the quantities and masses of the rows`);
     }
+    if (finished.rates && !Number.isFinite(finished.rates.totalCost)) throw new InputError(flags.rates!, `the total cost is beyond the range of numbers (${finished.rates.totalCost}); check the rates and quantities`);
     result = signal === null
       ? { ...finished, complete: true }
       : { ...finished, complete: false, interrupted: { signal, rowsFinished: rowsDone, rowsTotal: jobs.length } };

@@ -11,6 +11,7 @@ export function defineCompare(program: Command): void {
     .option('--digits-tolerance', 'values without a tolerance of their own are taken as right to half a unit in their last written digit (0.588 m: ± 0.0005 m), instead of the defaults')
     .option('--json', 'print JSON instead of a table')
     .option('--csv', 'print CSV (RFC 4180) instead of a table')
+    .option('--decimal-comma', 'with --csv: spreadsheet-locale CSV, semicolons between fields and decimal commas (1,5)')
     .option('--thickness <t>', 'plate thickness, e.g. "10 mm" (a bare number is in the part\'s unit); enables masses')
     .option('--material <name>', 'material from the built-in table (run `platewise materials`), for its density')
     .option('--density <d>', 'density, e.g. "7850 kg/m3" or "7.85 g/cm3" (a bare number is kg/m³); overrides the material')

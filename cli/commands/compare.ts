@@ -1,3 +1,4 @@
+import { RFC_4180, SPREADSHEET_LOCALE } from '../../src/base/csv.js';
 import { analyzePart } from '../../src/analysis/analyze.js';
 import { checkSectionOptions } from '../../src/analysis/options.js';
 import { InputError, jsonTerminalText, terminalText } from '../../src/base/errors.js';
@@ -13,7 +14,7 @@ import { readModels } from '../../src/read/models.js';
 import { type DrawingFlags, plateSettings, readOptions } from './settings.js';
 
 export interface CompareFlags extends DrawingFlags {
-  reference: string; json?: boolean; csv?: boolean; digitsTolerance?: boolean;
+  reference: string; json?: boolean; csv?: boolean; digitsTolerance?: boolean; decimalComma?: boolean;
   thickness?: string; material?: string; density?: string; part?: string;
   degree?: number; levels?: number; format?: string; units?: string;
 }
@@ -34,6 +35,7 @@ export function pickPart<P extends { name: string }>(parts: P[], label: string, 
 
 export function compare(file: string, flags: CompareFlags): string {
   if (flags.json && flags.csv) throw new InputError('--csv', 'choose one of --json and --csv');
+  if (flags.decimalComma && !flags.csv) throw new InputError('--decimal-comma', 'applies to CSV; add --csv');
   const section = checkSectionOptions({ degree: flags.degree, levels: flags.levels });
   if (file === '-' && flags.reference === '-') throw new InputError('--reference', 'the part already comes from standard input; expected a reference file');
   const readOpts = readOptions(flags);
@@ -60,6 +62,6 @@ export function compare(file: string, flags: CompareFlags): string {
   // a fail or inconclusive verdict is a result, not an error: print it and say so in the exit status
   if (comparison.verdict !== 'pass') process.exitCode = 1;
   if (flags.json) return jsonTerminalText(JSON.stringify(comparisonJson(comparison, meta), null, 2) + '\n');
-  if (flags.csv) return comparisonCsv(comparison);
+  if (flags.csv) return comparisonCsv(comparison, flags.decimalComma ? SPREADSHEET_LOCALE : RFC_4180);
   return terminalText(comparisonText(comparison, meta));
 }

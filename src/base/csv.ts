@@ -9,6 +9,10 @@
  * Malformed input (a quote inside an unquoted field, text after a closing quote, an unterminated quote)
  * is an InputError located as `${label}:line L, column C` (1-based; the column counts characters of the
  * physical line, the BOM not counted).
+ *
+ * Spreadsheet-locale CSV: spreadsheets set to a locale that writes a decimal comma (1,5) save CSV with
+ * semicolons between fields. `CsvDialect` says which: the separator for reading and writing, and whether
+ * numbers are written with a decimal comma. The quoting rules are the same.
  */
 import { InputError } from './errors.js';
 
@@ -21,12 +25,23 @@ export interface CsvRow {
   starts: [number, number][];
 }
 
+/** How a CSV text separates fields and writes decimals. */
+export interface CsvDialect {
+  separator: ',' | ';';
+  decimalComma: boolean;
+}
+
+export const RFC_4180: CsvDialect = { separator: ',', decimalComma: false };
+/** Semicolons between fields, decimal commas in numbers: CSV as spreadsheets in many locales save it. */
+export const SPREADSHEET_LOCALE: CsvDialect = { separator: ';', decimalComma: true };
+
 export function csvWhere(label: string, line: number, column: number): string {
   return `${label}:line ${line}, column ${column}`;
 }
 
 /** Parse CSV text into records with their locations. Empty text gives no records. */
-export function parseCsvRows(text: string, label: string): CsvRow[] {
+export function parseCsvRows(text: string, label: string, separator: ',' | ';' = ','): CsvRow[] {
+  const sepName = separator === ',' ? 'a comma' : 'a semicolon';
   let i = text.charCodeAt(0) === 0xfeff ? 1 : 0;
   const n = text.length;
   const rows: CsvRow[] = [];
@@ -75,15 +90,15 @@ export function parseCsvRows(text: string, label: string): CsvRow[] {
       if (!closed) {
         throw new InputError(csvWhere(label, openLine, openCol), 'this quoted field is never closed (expected a closing double quote)');
       }
-      if (i < n && text[i] !== ',' && text[i] !== '\r' && text[i] !== '\n') {
+      if (i < n && text[i] !== separator && text[i] !== '\r' && text[i] !== '\n') {
         throw new InputError(csvWhere(label, line, col(i)),
-          `expected a comma or the end of the line after a closing quote, got ${JSON.stringify(text[i])} (write a quote inside a quoted field as "")`);
+          `expected ${sepName} or the end of the line after a closing quote, got ${JSON.stringify(text[i])} (write a quote inside a quoted field as "")`);
       }
     } else {
       const s = i;
       while (i < n) {
         const c = text[i];
-        if (c === ',' || c === '\r' || c === '\n') break;
+        if (c === separator || c === '\r' || c === '\n') break;
         if (c === '"') {
           throw new InputError(csvWhere(label, line, col(i)),
             'a double quote inside an unquoted field; expected the whole field in quotes with the quote doubled ("")');
@@ -99,9 +114,9 @@ export function parseCsvRows(text: string, label: string): CsvRow[] {
       return rows;
     }
     const c = text[i];
-    if (c === ',') {
+    if (c === separator) {
       i++;
-      continue; // a comma at the very end makes a last, empty field
+      continue; // a separator at the very end makes a last, empty field
     }
     // line break ends the record
     if (c === '\r' && text[i + 1] === '\n') i++;
@@ -117,8 +132,8 @@ export function parseCsvRows(text: string, label: string): CsvRow[] {
 }
 
 /** Parse CSV text into records of fields (see the module comment for the rules). */
-export function parseCsv(text: string, label: string): string[][] {
-  return parseCsvRows(text, label).map((r) => r.fields);
+export function parseCsv(text: string, label: string, separator: ',' | ';' = ','): string[][] {
+  return parseCsvRows(text, label, separator).map((r) => r.fields);
 }
 
 export interface CsvRecords {
@@ -135,6 +150,8 @@ export interface CsvRecordOptions {
   required?: readonly string[];
   /** If given, the only header names accepted (required ones are always accepted). */
   allowed?: readonly string[];
+  /** Field separator (default a comma). */
+  separator?: ',' | ';';
 }
 
 /**
@@ -143,7 +160,7 @@ export interface CsvRecordOptions {
  * header is an InputError with its location. Blank lines (a record of one empty field) are skipped.
  */
 export function parseCsvRecords(text: string, label: string, options: CsvRecordOptions = {}): CsvRecords {
-  const rows = parseCsvRows(text, label).filter((r) => !(r.fields.length === 1 && r.fields[0] === ''));
+  const rows = parseCsvRows(text, label, options.separator).filter((r) => !(r.fields.length === 1 && r.fields[0] === ''));
   if (rows.length === 0) throw new InputError(label, 'expected a header line, got no data');
   const head = rows[0];
   const header = head.fields.map((h) => h.trim());
@@ -191,10 +208,41 @@ export function parseCsvRecords(text: string, label: string, options: CsvRecordO
   return { header, records, locations };
 }
 
-/** Text for a number that reads back to the same double: JS's shortest round-trip form, and -0 kept. */
-export function formatCsvNumber(x: number): string {
-  if (Object.is(x, -0)) return '-0';
-  return String(x);
+/**
+ * Text for a number that reads back to the same double: JS's shortest round-trip form, and -0 kept; with
+ * `decimalComma` the decimal point is written as a comma (1,5 and 1,5e-9), as decimal-comma locales read it.
+ */
+export function formatCsvNumber(x: number, decimalComma = false): string {
+  const s = Object.is(x, -0) ? '-0' : String(x);
+  return decimalComma ? s.replace('.', ',') : s;
+}
+
+/**
+ * Whether the header line is split by the other dialect's separator (a semicolon file read as RFC 4180, or
+ * the other way round), so that the reader can say so instead of reporting one puzzling column.
+ */
+export function otherSeparator(text: string, separator: ',' | ';'): boolean {
+  const first = text.replace(/^\ufeff/, '').split(/\r?\n/, 1)[0] ?? '';
+  return !first.includes(separator) && first.includes(separator === ',' ? ';' : ',');
+}
+
+/** The one line for a file in the other dialect; `switchHint` says how the caller switches (a flag). */
+export function otherSeparatorError(label: string, separator: ',' | ';', what: string, switchHint?: { toSemicolons: string; toCommas: string }): InputError {
+  return new InputError(`${label}:line 1`, separator === ','
+    ? `the columns are separated by semicolons; ${what} is CSV with commas (RFC 4180): save it with comma separators (in a spreadsheet: CSV with "," as the field separator)${switchHint ? `, or ${switchHint.toSemicolons} to read semicolons and decimal commas` : ''}`
+    : `the columns are separated by commas, but semicolons with decimal commas were asked for${switchHint ? `; ${switchHint.toCommas}` : ''}`);
+}
+
+/**
+ * A number cell written with a decimal comma, as plain text for the number readers ("1,5 mm" → "1.5 mm").
+ * A point between digits is refused: in a decimal-comma locale it separates thousands ("1.500" is 1500
+ * there), so reading it either way could be wrong by a factor of 1000.
+ */
+export function decimalCommaCell(text: string, where: string): string {
+  if (/\d\.\d/.test(text)) {
+    throw new InputError(where, `"${text.length > 40 ? text.slice(0, 40) + '…' : text}" has a decimal point; in semicolon CSV numbers take a decimal comma (1,5), and a point there could be a thousands separator; expected the number with a decimal comma`);
+  }
+  return text.replace(/(\d),(\d)/g, '$1.$2');
 }
 
 /**
@@ -212,10 +260,11 @@ export function neutraliseFormula(s: string): string {
  * With `neutralise`, text that could start a spreadsheet formula gets its leading quote (neutraliseFormula);
  * the codec itself (round trips) writes text exactly.
  */
-export function formatCsvField(f: string | number | null | undefined, neutralise = false): string {
+export function formatCsvField(f: string | number | null | undefined, neutralise = false, dialect: CsvDialect = RFC_4180): string {
   if (f === null || f === undefined) return '';
-  const s = typeof f === 'number' ? formatCsvNumber(f) : neutralise ? neutraliseFormula(f) : f;
-  if (/[",\r\n]/.test(s)) return `"${s.replace(/"/g, '""')}"`;
+  const s = typeof f === 'number' ? formatCsvNumber(f, dialect.decimalComma) : neutralise ? neutraliseFormula(f) : f;
+  // a text holding either separator is quoted, so that it reads back whole in both dialects
+  if (/[",;\r\n]/.test(s)) return `"${s.replace(/"/g, '""')}"`;
   return s;
 }
 
@@ -223,12 +272,13 @@ export function formatCsvField(f: string | number | null | undefined, neutralise
  * One CSV record without a line break. A record of a single empty field is written as `""` so that it
  * cannot be mistaken for a blank line or for no record at all.
  */
-export function formatCsvRow(fields: readonly (string | number | null | undefined)[], options: { neutralise?: boolean } = {}): string {
-  const s = fields.map((f) => formatCsvField(f, options.neutralise === true)).join(',');
+export function formatCsvRow(fields: readonly (string | number | null | undefined)[], options: { neutralise?: boolean; dialect?: CsvDialect } = {}): string {
+  const d = options.dialect ?? RFC_4180;
+  const s = fields.map((f) => formatCsvField(f, options.neutralise === true, d)).join(d.separator);
   return s === '' && fields.length === 1 ? '""' : s;
 }
 
 /** Whole CSV text: records joined and ended with CRLF, as RFC 4180 writes them. */
-export function formatCsv(rows: readonly (readonly (string | number | null | undefined)[])[], options: { neutralise?: boolean } = {}): string {
+export function formatCsv(rows: readonly (readonly (string | number | null | undefined)[])[], options: { neutralise?: boolean; dialect?: CsvDialect } = {}): string {
   return rows.map((r) => formatCsvRow(r, options) + '\r\n').join('');
 }

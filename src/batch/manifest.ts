@@ -11,7 +11,7 @@
  *   reference   optional  reference file (JSON or CSV, see src/qa/reference.ts), relative to the manifest
  *   format      optional  part-json, svg, geojson or wkt (default: by extension, then content)
  *   units       optional  length unit of drawing coordinates (SVG, GeoJSON, WKT)
- *   note        optional  free text, ignored
+ *   note        optional  free text, carried into the row's `note` column (quotes, order numbers, remarks)
  *   <quantity key> [unit]  optional, any number of them: a stated value for that quantity, such as
  *                         `area [mm²]`, `netMass [kg]`, `pierces`, `centroidX [in]`. A cell is a bare number
  *                         in the header's unit, or a number with its own unit ("4.65 in²") under a header
@@ -19,6 +19,10 @@
  *                         use a reference file.
  * An empty cell means "not given": the command-line setting applies (material, thickness, density), or no
  * stated value. A row's `material` replaces a command-line `--density`; a row's `density` replaces both.
+ *
+ * Spreadsheet-locale manifests (`dialect: SPREADSHEET_LOCALE`): semicolons between fields and decimal commas
+ * in thickness, density and stated-value cells ("1,5 mm"); a decimal point there is refused (it could be a
+ * thousands separator). Without the dialect a semicolon manifest is refused with a hint, and the other way round.
  *
  * Row numbers: data records are numbered from 1 (the header is not counted; blank lines are skipped and
  * not counted). Every problem in the manifest itself is an InputError naming line and column; problems
@@ -31,7 +35,7 @@
 import { readdirSync, statSync } from 'node:fs';
 import { dirname, isAbsolute, join, resolve } from 'node:path';
 import { InputError } from '../base/errors.js';
-import { csvWhere, parseCsvRecords, parseCsvRows } from '../base/csv.js';
+import { type CsvDialect, RFC_4180, csvWhere, decimalCommaCell, otherSeparator, otherSeparatorError, parseCsvRecords, parseCsvRows } from '../base/csv.js';
 import { type InputFormat, INPUT_FORMATS } from '../read/read.js';
 import type { MaterialTable } from '../model/index.js';
 import { type PlateSettings, checkSettings } from '../model/plate.js';
@@ -58,6 +62,8 @@ export interface Job {
   reference?: { path: string; label: string };
   /** Stated values from the row's own columns. */
   stated: StatedValue[];
+  /** The manifest's note cell, as written (absent when empty). */
+  note?: string;
 }
 
 export const PART_EXTENSIONS = ['.json', '.svg', '.dxf', '.geojson', '.wkt'];
@@ -74,17 +80,20 @@ function splitHeader(h: string): { name: string; unit: string | null } {
 
 export interface ManifestOptions {
   materials?: MaterialTable;
+  /** Separator and decimal mark of the manifest (default RFC 4180: commas, decimal points). */
+  dialect?: CsvDialect;
+  /** How the caller lets a user switch dialect (the command line names its flag), added to the separator hints. */
+  dialectSwitch?: { toSemicolons: string; toCommas: string };
 }
 
 /** Read a manifest's text; `label` is its path as given, `baseDir` the folder that relative paths start from. */
 export function parseManifest(text: string, label: string, baseDir: string, options: ManifestOptions = {}): Job[] {
+  const dialect = options.dialect ?? RFC_4180;
+  const sep = dialect.separator;
   // spreadsheets in many locales save CSV with semicolons: say so instead of a puzzling column error
-  const first = text.replace(/^\ufeff/, '').split(/\r?\n/, 1)[0] ?? '';
-  if (!first.includes(',') && first.includes(';') && /(^|;)\s*"?file"?\s*(;|$)/i.test(first)) {
-    throw new InputError(`${label}:line 1`, 'the columns are separated by semicolons; a manifest is CSV with commas (RFC 4180): save it with comma separators (in a spreadsheet: CSV with "," as the field separator)');
-  }
-  const t = parseCsvRecords(text, label, { required: ['file'] });
-  const head = parseCsvRows(text, label).find((r) => !(r.fields.length === 1 && r.fields[0] === ''))!;
+  if (otherSeparator(text, sep)) throw otherSeparatorError(label, sep, 'a manifest', options.dialectSwitch);
+  const t = parseCsvRecords(text, label, { required: ['file'], separator: sep });
+  const head = parseCsvRows(text, label, sep).find((r) => !(r.fields.length === 1 && r.fields[0] === ''))!;
   const columns = t.header.map((h) => ({ header: h, ...splitHeader(h) }));
   const colIndex = new Map<string, number>();
   const statedCols: { header: string; key: string; dimension: ReturnType<typeof checkQuantity>; unit: string | null }[] = [];
@@ -126,6 +135,8 @@ export function parseManifest(text: string, label: string, baseDir: string, opti
       return v === '' ? undefined : v;
     };
     const hdr = (name: string) => columns[colIndex.get(name)!].header;
+    // a number cell: decimal comma turned into a point for the one settings grammar, in that dialect only
+    const num = (v: string, name: string) => (dialect.decimalComma ? decimalCommaCell(v, at(name)) : v);
     const file = cell('file');
     if (file === undefined) throw new InputError(at(hdr('file')), 'expected a part file name, got an empty cell');
     const job: Job = {
@@ -141,12 +152,14 @@ export function parseManifest(text: string, label: string, baseDir: string, opti
     }
     const m = cell('material');
     if (m !== undefined) job.plate.material = { text: m, where: at(hdr('material')) };
-    const th = cell('thickness');
+    const thCell = cell('thickness');
+    const th = thCell === undefined ? undefined : num(thCell, hdr('thickness'));
     if (th !== undefined) {
       const text = thicknessUnit && /^[\d.+\-eE]+$/.test(th) ? `${th} ${thicknessUnit}` : th;
       job.plate.thickness = { text, where: at(hdr('thickness')) };
     }
-    const de = cell('density');
+    const deCell = cell('density');
+    const de = deCell === undefined ? undefined : num(deCell, hdr('density'));
     if (de !== undefined) {
       const text = densityUnit && /^[\d.+\-eE]+$/.test(de) ? `${de} ${densityUnit}` : de;
       job.plate.density = { text, where: at(hdr('density')) };
@@ -159,15 +172,18 @@ export function parseManifest(text: string, label: string, baseDir: string, opti
       if (!INPUT_FORMATS.includes(f as InputFormat)) throw new InputError(at(hdr('format')), `expected one of ${INPUT_FORMATS.join(', ')}, got "${f}"`);
       job.format = f as InputFormat;
     }
+    const note = cell('note');
+    if (note !== undefined) job.note = note;
     const u = cell('units');
     if (u !== undefined) {
       if (!isLengthUnit(u)) throw new InputError(at(hdr('units')), `expected mm, cm, m, in or ft, got "${u}"`);
       job.units = u;
     }
     for (const c of statedCols) {
-      const v = cell(c.key);
-      if (v === undefined) continue;
+      const vCell = cell(c.key);
+      if (vCell === undefined) continue;
       const w = at(c.header);
+      const v = num(vCell, c.header);
       const sv = splitValueText(v, w);
       if (sv.unit !== '' && c.unit) throw new InputError(w, `the column "${c.header}" already gives the unit; expected a bare number, got "${v}"`);
       const unit = unitFor(c.dimension, sv.unit !== '' ? sv.unit : c.unit ?? '', w);

@@ -5,7 +5,7 @@
  * estimate, difference (computed − stated, in the computed unit), tolerance (absolute, same unit, and where
  * it came from), verdict. CSV: one record per stated value, numbers written to round-trip (RFC 4180).
  */
-import { formatCsv } from '../base/csv.js';
+import { type CsvDialect, RFC_4180, formatCsv } from '../base/csv.js';
 import { formatError, formatNumber, formatValue } from './text.js';
 import type { Comparison, ComparisonRow } from '../qa/verdict.js';
 
@@ -140,17 +140,22 @@ export function comparisonJson(c: Comparison, meta: ComparisonMeta): Record<stri
   };
 }
 
+/**
+ * Units in the headings as in every CSV platewise writes (src/output/batchRows.ts): each row is another
+ * quantity, so a heading's brackets name the column that holds the row's unit: `computed [unit]` is in the
+ * unit of the `unit` column, `stated [statedUnit]` in that of `statedUnit`.
+ */
 export const COMPARISON_CSV_HEADER = [
-  'quantity', 'stated', 'statedUnit', 'statedConverted', 'unit', 'computed', 'error', 'difference',
-  'tolerance', 'toleranceSource', 'toleranceText', 'verdict', 'note', 'referenceNote', 'advice',
+  'quantity', 'stated [statedUnit]', 'statedUnit', 'statedConverted [unit]', 'unit', 'computed [unit]', 'error [unit]', 'difference [unit]',
+  'tolerance [unit]', 'toleranceSource', 'toleranceText', 'verdict', 'note', 'referenceNote', 'advice',
 ] as const;
 
-export function comparisonCsv(c: Comparison): string {
+export function comparisonCsv(c: Comparison, dialect: CsvDialect = RFC_4180): string {
   return formatCsv([
     [...COMPARISON_CSV_HEADER],
     ...c.rows.map((r) => [
       r.quantity, r.statedAsWritten, r.statedUnit, r.stated, r.unit, r.computed, r.error, r.difference,
       r.tolerance, r.toleranceSource, r.toleranceText, r.verdict, r.note ?? '', r.statedNote ?? '', rowAdvice(r, false).join('; '),
     ]),
-  ], { neutralise: true });
+  ], { neutralise: true, dialect });
 }

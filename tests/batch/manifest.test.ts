@@ -9,6 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { folderJobs, parseManifest } from '../../src/batch/manifest.js';
 import { runJob } from '../../src/batch/task.js';
 import { batchCsvRow, BATCH_CSV_HEADER } from '../../src/output/batchRows.js';
+import { batchLine } from '../../src/batch/lines.js';
 import { parseCsv } from '../../src/base/csv.js';
 
 const base = '/jobs';
@@ -87,9 +88,9 @@ describe('folderJobs and runJob', () => {
     expect(Math.abs(row.quantities.netMass.value - A * 6e-9 * 7850)).toBeLessThan(1e-12);
     expect(row.verdict).toBe('fail');
     expect(row.counts).toEqual({ pass: 1, fail: 1, inconclusive: 0 });
-    const rec = parseCsv(batchCsvRow(row), 'row')[0];
+    const rec = parseCsv(batchCsvRow(batchLine(row, undefined)), 'row')[0];
     expect(rec).toHaveLength(BATCH_CSV_HEADER.length);
     expect(rec[BATCH_CSV_HEADER.indexOf('notPassed')]).toMatch(/^pierces fail: stated 3, computed 2 ± 0/);
-    expect(Number(rec[BATCH_CSV_HEADER.indexOf('area')])).toBe(row.quantities.area.value); // round-trip
+    expect(Number(rec[BATCH_CSV_HEADER.indexOf('area [mm2]')])).toBe(row.quantities.area.value); // round-trip (a mm part: factor 1)
   });
 });

@@ -118,8 +118,22 @@ describe('compare: verdicts and exit statuses', () => {
     expect(r.status).toBe(1);
     const t = parseCsvRecords(r.stdout, 'out');
     expect(t.records.map((x) => [x.quantity, x.verdict])).toEqual([['area', 'pass'], ['Ix', 'fail']]);
-    expect(Number(t.records[0].stated)).toBe(A);
-    expect(Math.abs(Number(t.records[0].computed) - A) / A).toBeLessThan(1e-12);
+    expect(Number(t.records[0]['stated [statedUnit]'])).toBe(A);
+    expect(Math.abs(Number(t.records[0]['computed [unit]']) - A) / A).toBeLessThan(1e-12);
+    // units in the headings: a heading's brackets name the column that holds the row's unit
+    for (const h of t.header) {
+      const m = /\[(.*)\]$/.exec(h);
+      if (m) expect(t.header).toContain(m[1]);
+    }
+    expect(t.records.map((x) => x.unit)).toEqual(['mm²', 'mm⁴']);
+    // --decimal-comma: the same records with semicolons and decimal commas, the same numbers
+    const dc = platewise(['compare', plate, '--reference', ref, '--csv', '--decimal-comma']);
+    expect(dc.status).toBe(1);
+    const u = parseCsvRecords(dc.stdout, 'out', { separator: ';' });
+    expect(u.header).toEqual(t.header);
+    expect(u.records[1]['computed [unit]']).toContain(',');
+    expect(Number(u.records[1]['computed [unit]'].replace(',', '.'))).toBe(Number(t.records[1]['computed [unit]']));
+    expect(platewise(['compare', plate, '--reference', ref, '--decimal-comma']).status).toBe(2);
   });
 });
 

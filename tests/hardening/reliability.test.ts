@@ -275,7 +275,7 @@ describe('text: escaped for terminals, neutralised in CSV, exact in JSON', () =>
     expect(r.status, r.stderr).toBe(0);
     const lines = readFileSync(join(dir, 'out.csv'), 'utf8').trim().split(/\r?\n/);
     const header = lines[0].split(',');
-    const cx = header.indexOf('centroidX');
+    const cx = header.indexOf('centroidX [mm]');
     const e = lines.find((l) => l.startsWith('1,'))!;
     expect(e).toContain(`"'=HYPERLINK(""x"")`);
     expect(e.split(',')[cx]).toBe('40'); // -10 + 50: a number, no quote

@@ -80,7 +80,7 @@ describe('the interpretation in every output', () => {
     const [head, first] = c.stdout.trim().split(/\r?\n/);
     const cols = head.split(','), vals = first.split(',');
     expect(vals[cols.indexOf('unitsFrom')]).toBe('file');
-    expect(Number(vals[cols.indexOf('markingLength')])).toBeCloseTo(MARKING, 9);
+    expect(Number(vals[cols.indexOf('markingLength [mm]')])).toBeCloseTo(MARKING, 9);
   });
 
   it('a DXF outline with a gap over the join tolerance is refused with the place; --join-tolerance joins it and reports the gap', () => {
