@@ -187,6 +187,7 @@ function setButtons(c: Card, ok: boolean): void {
 async function measure(c: Card): Promise<void> {
   if (c.busy) { c.again = true; return; }
   c.busy = true;
+  const asked = JSON.stringify(c.settings);
   render(c);
   try {
     c.view = await call<FileView>({ op: 'measure', key: c.key });
@@ -194,6 +195,8 @@ async function measure(c: Card): Promise<void> {
     c.view = { ok: false, message: (e as Error).message, millis: 0 };
   }
   c.busy = false;
+  // the settings these figures were made with (tests wait for them)
+  c.root.dataset.settings = asked;
   render(c);
   if (c.again) { c.again = false; void measure(c); return; }
   scheduleBatch();
@@ -306,6 +309,7 @@ async function compareWith(c: Card, f: File): Promise<void> {
 let batchTimer = 0;
 let lastBatch: BatchView | undefined;
 function scheduleBatch(): void {
+  document.getElementById('all')!.dataset.state = 'stale';
   clearTimeout(batchTimer);
   batchTimer = window.setTimeout(() => void refreshBatch(), 150);
 }
@@ -317,15 +321,17 @@ async function refreshBatch(): Promise<void> {
   (document.getElementById('clear') as HTMLButtonElement).disabled = cards.length === 0;
   if (cards.length === 0 || cards.some((c) => c.busy)) { all.hidden = cards.length === 0; return; }
   const v = await call<BatchView>({ op: 'batch', keys: cards.map((c) => c.key) });
+  if (cards.some((c) => c.busy)) return; // a newer run will follow
   lastBatch = v;
   all.hidden = false;
   const s = v.summary;
   const total = (label: string, value: number, text: string, key: string) => el('li', { 'data-total': key, 'data-value': String(value) }, `${label}: `, el('strong', {}, text));
   document.getElementById('totals')!.replaceChildren(
     total('pieces', s.pieces, String(s.pieces), 'pieces'),
-    total('net mass', s.netMassKg, `${v.summaryLines.length ? '' : ''}${s.netMassKg.toPrecision(6)} kg`, 'netMassKg'),
-    total('blank mass', s.blankMassKg, `${s.blankMassKg.toPrecision(6)} kg`, 'blankMassKg'),
-    total('cut length', s.cutLengthM, `${s.cutLengthM.toPrecision(6)} m`, 'cutLengthM'),
+    ...(s.partsMeasured > s.partsWithoutMass ? [
+      total('net mass', s.netMassKg, `${fmt(s.netMassKg)} kg ± ${s.netMassErrorKg.toExponential(1)}`, 'netMassKg'),
+      total('blank mass', s.blankMassKg, `${fmt(s.blankMassKg)} kg`, 'blankMassKg')] : []),
+    total('cut length', s.cutLengthM, `${fmt(s.cutLengthM)} m`, 'cutLengthM'),
     total('pierces', s.pierces, String(s.pierces), 'pierces'),
     el('li', { class: 'state' }, ...v.summaryLines.slice(0, 3).flatMap((l, i) => (i ? [el('br'), l] : [l]))),
   );
@@ -336,6 +342,7 @@ async function refreshBatch(): Promise<void> {
     ...BATCH_COLUMNS.map(([k]) => el('td', { class: 'num', 'data-key': k, 'data-value': r.quantities[k] ? String(r.quantities[k].value) : '' }, r.quantities[k] ? fmt(r.quantities[k].value) : '—')),
     el('td', {}, r.units ?? ''), el('td', {}, r.verdict ?? '—'), el('td', {}, r.status === 'ok' ? 'measured' : `failed: ${r.error ?? ''}`))));
   document.getElementById('batch-caution')!.textContent = v.summaryLines.at(-1) ?? '';
+  all.dataset.state = 'current';
 }
 
 /** Short figures in the overview table only (the per-file tables carry the command line's own rounding). */

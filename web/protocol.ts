@@ -39,7 +39,7 @@ export interface BatchView {
   csv: string;
   rows: { row: number; file: string; part: string | null; status: string; quantity: number; units: string | null; error: string | null; verdict: string | null;
     quantities: Record<string, { value: number; error: number }> }[];
-  summary: { pieces: number; netMassKg: number; netMassErrorKg: number; blankMassKg: number; cutLengthM: number; pierces: number; partsMeasured: number; partsFailed: number };
+  summary: { pieces: number; netMassKg: number; netMassErrorKg: number; blankMassKg: number; cutLengthM: number; pierces: number; partsMeasured: number; partsFailed: number; partsWithoutMass: number };
   summaryLines: string[];
 }
 
