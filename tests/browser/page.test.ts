@@ -14,14 +14,14 @@ import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync,
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { type BrowserContext, type Page, chromium } from 'playwright-core';
+import type { BrowserContext, Page } from 'playwright-core';
+import { type Browser, launchChromium } from './chromium.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parseCsv } from '../../src/base/csv.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const CLI = join(ROOT, 'dist', 'cli', 'main.js');
 const PAGE = join(ROOT, 'dist', 'page', 'platewise.html');
-const CHROMIUM = '/usr/bin/chromium';
 const ARTIFACTS = join(ROOT, 'test-artifacts', 'page');
 
 /** Run the command line in `cwd` (so its labels are the bare file names the page shows). */
@@ -43,7 +43,7 @@ const FILES = [
   { name: 'lwpolyline-plate.dxf', from: 'tests/fixtures/dxf/lwpolyline-plate.dxf', thickness: '8 mm', material: '1.4301', quantity: 3 },
 ];
 
-let profile: string;
+let browser: Browser | undefined;
 let folder: string;
 let ctx: BrowserContext;
 let page: Page;
@@ -54,7 +54,6 @@ function flags(f: (typeof FILES)[number]): string[] {
 }
 
 beforeAll(async () => {
-  if (!existsSync(CHROMIUM)) throw new Error(`${CHROMIUM} is missing: install Debian's package (apt-get update && apt-get install -y chromium)`);
   if (!existsSync(PAGE)) throw new Error(`${PAGE} is missing: run npm run build`);
   mkdirSync(ARTIFACTS, { recursive: true });
   folder = mkdtempSync(join(tmpdir(), 'platewise-page-files-'));
@@ -63,14 +62,8 @@ beforeAll(async () => {
     else writeFileSync(join(folder, f.name), f.text!);
   }
   copyFileSync(join(ROOT, 'samples/job/endplate-e2.ref.csv'), join(folder, 'endplate-e2.ref.csv'));
-  profile = mkdtempSync(join(tmpdir(), 'platewise-chromium-'));
-  ctx = await chromium.launchPersistentContext(profile, {
-    executablePath: CHROMIUM,
-    headless: true,
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
-    viewport: { width: 1280, height: 900 },
-    acceptDownloads: true,
-  });
+  browser = await launchChromium({ width: 1280, height: 900 });
+  ctx = browser.ctx;
   // request interception: the page file itself, and the page's own blob: and data: URLs, may load; anything else
   // is refused and counted
   await ctx.route('**/*', (route) => {
@@ -106,8 +99,7 @@ beforeAll(async () => {
 }, 180_000);
 
 afterAll(async () => {
-  await ctx?.close();
-  if (profile) rmSync(profile, { recursive: true, force: true });
+  await browser?.close();
   if (folder) rmSync(folder, { recursive: true, force: true });
 });
 

@@ -6,16 +6,15 @@
  * in test-artifacts/browser/ (git-ignored). Needs the dist build (tsc) and Chromium (.ci/run installs it).
  */
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { mkdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { type BrowserContext, chromium } from 'playwright-core';
+import type { BrowserContext } from 'playwright-core';
+import { type Browser, launchChromium } from './chromium.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const CLI = join(ROOT, 'dist', 'cli', 'main.js');
-const CHROMIUM = '/usr/bin/chromium';
 const ARTIFACTS = join(ROOT, 'test-artifacts', 'browser');
 
 function platewise(args: string[]) {
@@ -30,24 +29,17 @@ const CASES = [
   { sample: 'samples/bracket.svg', cutouts: 5 },
 ];
 
-let profile: string;
+let browser: Browser | undefined;
 let ctx: BrowserContext;
 
 beforeAll(async () => {
-  if (!existsSync(CHROMIUM)) throw new Error(`${CHROMIUM} is missing: install Debian's package (apt-get update && apt-get install -y chromium)`);
   mkdirSync(ARTIFACTS, { recursive: true });
-  profile = mkdtempSync(join(tmpdir(), 'platewise-chromium-'));
-  ctx = await chromium.launchPersistentContext(profile, {
-    executablePath: CHROMIUM,
-    headless: true,
-    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
-    viewport: { width: 1000, height: 900 },
-  });
+  browser = await launchChromium({ width: 1000, height: 900 });
+  ctx = browser.ctx;
 });
 
 afterAll(async () => {
-  await ctx?.close();
-  if (profile) rmSync(profile, { recursive: true, force: true });
+  await browser?.close();
 });
 
 describe('HTML report in Chromium', () => {
