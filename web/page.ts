@@ -149,7 +149,7 @@ function quantityTable(g: PartView['groups'][number], idPrefix: string): HTMLEle
 function partBlock(c: Card, p: PartView, i: number): HTMLElement {
   const id = `f${c.key}-p${i}`;
   const words = (cls: string, label: string, lines: string[]) => lines.length === 0 ? '' : el('div', {}, el('h4', {}, label), el('ul', { class: `words ${cls}` }, ...lines.map((l) => el('li', {}, l))));
-  const left = el('div', {}, viewer(p.svg, `drawing of ${p.name}`), drawingKey(palette),
+  const left = el('div', {}, el('div', { 'data-role': 'drawing-slot', class: 'viewer-slot' }, el('p', { class: 'state' }, 'drawing…')), drawingKey(palette),
     words('', 'How the file was read', p.reading), words('warn', 'Warnings', p.warnings));
   const right = el('div', {}, ...p.groups.map((g) => quantityTable(g, id)));
   if (p.plate) right.prepend(el('p', { class: 'state' }, `plate: ${p.plate}`));
@@ -198,8 +198,25 @@ async function measure(c: Card): Promise<void> {
   // the settings these figures were made with (tests wait for them)
   c.root.dataset.settings = asked;
   render(c);
+  if (!c.again && c.view.ok) void drawInto(c, c.view);
   if (c.again) { c.again = false; void measure(c); return; }
   scheduleBatch();
+}
+
+/** Drawings follow the figures (they take longer on large parts); a newer result makes them stale. */
+async function drawInto(c: Card, view: FileView): Promise<void> {
+  delete c.root.dataset.drawn;
+  let svgs: string[];
+  try {
+    svgs = await call<string[]>({ op: 'draw', key: c.key });
+  } catch (e) {
+    for (const slot of c.root.querySelectorAll('[data-role="drawing-slot"]')) slot.replaceChildren(el('p', { class: 'message' }, (e as Error).message));
+    return;
+  }
+  if (c.view !== view || c.busy) return;
+  const slots = c.root.querySelectorAll('[data-role="drawing-slot"]');
+  svgs.forEach((svg, i) => slots[i]?.replaceChildren(viewer(svg, `drawing of ${view.ok ? view.parts[i].name : ''}`)));
+  c.root.dataset.drawn = 'true';
 }
 
 function input(label: string, name: keyof FileSettings, c: Card, attrs: Record<string, string>): HTMLElement {

@@ -8,6 +8,7 @@ export type ToWorker = { id: number } & (
   | { op: 'settings'; key: number; settings: FileSettings }
   | { op: 'drop'; key: number }
   | { op: 'measure'; key: number }
+  | { op: 'draw'; key: number }
   | { op: 'batch'; keys: number[] }
   | { op: 'report'; key: number }
   | { op: 'compare'; key: number; name: string; bytes: ArrayBuffer }
@@ -22,7 +23,7 @@ export interface QuantityView {
 export interface QuantityGroupView { title: string; group: string; rows: QuantityView[] }
 
 export interface PartView {
-  name: string; units: string; groups: QuantityGroupView[]; warnings: string[]; reading: string[]; svg: string;
+  name: string; units: string; groups: QuantityGroupView[]; warnings: string[]; reading: string[];
   cautions: string[]; plate?: string; missing: string[];
 }
 

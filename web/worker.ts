@@ -30,7 +30,7 @@ declare const PLATEWISE_VERSION: string;
 /** The CLI's measure defaults: kg and kg·m² (massJson converts to these). */
 const MASS_UNITS = { mass: 'kg', inertia: 'kg·m²' } as const;
 
-interface Held { name: string; bytes: Uint8Array; settings: FileSettings }
+interface Held { name: string; bytes: Uint8Array; settings: FileSettings; reports?: PartReport[] }
 const files = new Map<number, Held>();
 
 /** The file as the command line would read it: the same size limit and the same decoding with its messages. */
@@ -59,7 +59,7 @@ function groupView(title: string, group: string, q: Record<string, { value: numb
   };
 }
 
-async function partView(r: PartReport): Promise<PartView> {
+function partView(r: PartReport): PartView {
   // exactly the document `measure --json` prints for this part
   const doc = partReportJson(r, MASS_UNITS) as {
     quantities: Record<string, { value: number; error: number }>;
@@ -78,10 +78,9 @@ async function partView(r: PartReport): Promise<PartView> {
     groupView('Cutting', 'fabrication', doc.fabrication?.quantities, (k) => unit(k)),
   ].filter((g): g is QuantityGroupView => g !== undefined);
   const reading = r.interpretation ? interpretationText(r.interpretation, r.part) : [`length unit ${r.units}: ${unitSourceText(r.unitSource)}`];
-  const svg = await drawPart(r.section, { reading: { notCut: r.notCut, gapsClosed: r.interpretation?.gapsClosed, unitSource: r.unitSource } });
   const p = r.plate;
   return {
-    name: r.part, units: r.units, groups, warnings: r.warnings.map(warningText), reading, svg,
+    name: r.part, units: r.units, groups, warnings: r.warnings.map(warningText), reading,
     cautions: [GEOMETRY_CAUTION, ...(r.cautions.includes('mass') ? [MASS_CAUTION] : [])],
     plate: p ? `thickness ${formatNumber(p.thickness)} ${r.units}, density ${formatNumber(p.density)} kg/m³${p.material ? ` (${p.material})` : ''}` : undefined,
     missing: r.missing,
@@ -92,8 +91,20 @@ function modelsOf(h: Held): ReadModel[] {
   return readModels(textOf(h), h.name);
 }
 
+/**
+ * The drawings of the parts last measured (the library's SVG drawing, as `platewise draw` makes it, with what
+ * is marking and what was ignored), sent after the figures: on a panel with a thousand holes the drawing takes
+ * several times as long as the figures.
+ */
+async function drawings(key: number): Promise<string[]> {
+  const reports = files.get(key)?.reports ?? [];
+  const out: string[] = [];
+  for (const r of reports) out.push(await drawPart(r.section, { reading: { notCut: r.notCut, gapsClosed: r.interpretation?.gapsClosed, unitSource: r.unitSource } }));
+  return out;
+}
+
 /** `measure` with the page's settings: the same call and the same writer as `platewise measure --json`. */
-async function measure(key: number): Promise<FileView> {
+function measure(key: number): FileView {
   const h = files.get(key)!;
   const t0 = performance.now();
   try {
@@ -101,10 +112,10 @@ async function measure(key: number): Promise<FileView> {
     const g = given(h.settings);
     const reports = models.map((m) => analyzePart(m, { given: g, mass: 'required', fabrication: 'auto' }));
     const json = reportsJson(reports, MASS_UNITS);
-    const parts: PartView[] = [];
-    for (const r of reports) parts.push(await partView(r));
-    return { ok: true, parts, json, millis: performance.now() - t0 };
+    h.reports = reports;
+    return { ok: true, parts: reports.map(partView), json, millis: performance.now() - t0 };
   } catch (e) {
+    h.reports = undefined;
     return { ok: false, message: `platewise: ${failureText(e)}`, millis: performance.now() - t0 };
   }
 }
@@ -174,7 +185,8 @@ scope.onmessage = async (ev) => {
       case 'hold': files.set(m.key, { name: m.name, bytes: new Uint8Array(m.bytes), settings: m.settings }); reply = null; break;
       case 'settings': files.get(m.key)!.settings = m.settings; reply = null; break;
       case 'drop': files.delete(m.key); reply = null; break;
-      case 'measure': reply = await measure(m.key); break;
+      case 'measure': reply = measure(m.key); break;
+      case 'draw': reply = await drawings(m.key); break;
       case 'batch': reply = batch(m.keys); break;
       case 'report': reply = await report(m.key); break;
       case 'compare': reply = compare(m.key, m.name, new Uint8Array(m.bytes)); break;

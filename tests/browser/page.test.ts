@@ -88,10 +88,10 @@ beforeAll(async () => {
     if (f.material) await page.fill(`${card} input[name="material"]`, f.material);
     if (f.quantity !== 1) await page.fill(`${card} input[name="quantity"]`, String(f.quantity));
   }
-  // settled: every card measured with exactly its settings, and the table of all files made after them
+  // settled: every card measured (and drawn) with exactly its settings, and the table of all files made after them
   await page.waitForFunction((files) => files.every((f) => {
     const c = document.querySelector(`section.file[data-file="${f.name}"]`) as HTMLElement | null;
-    if (!c || !c.dataset.settings || !['done', 'failed'].includes(c.dataset.state ?? '')) return false;
+    if (!c || !c.dataset.settings || !(c.dataset.state === 'failed' || (c.dataset.state === 'done' && c.dataset.drawn === 'true'))) return false;
     const s = JSON.parse(c.dataset.settings);
     return s.thickness === f.thickness && s.material === f.material && s.quantity === f.quantity;
   }) && (document.getElementById('all') as HTMLElement).dataset.state === 'current', FILES, { timeout: 120_000 });
