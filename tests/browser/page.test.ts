@@ -41,6 +41,8 @@ const FILES = [
   { name: 'gusset-g2.json', from: 'samples/gusset-g2.json', thickness: '10', material: 'aluminium', quantity: 2 },
   { name: 'gusset.geojson', from: 'samples/gusset.geojson', thickness: '', material: '', quantity: 1 },
   { name: 'lwpolyline-plate.dxf', from: 'tests/fixtures/dxf/lwpolyline-plate.dxf', thickness: '8 mm', material: '1.4301', quantity: 3 },
+  // markup in a file name (the part is named after the file): it must stay text
+  { name: '<b>odd<b> <img src=x onerror=alert(1)> &amp; co.wkt', text: 'POLYGON ((0 0, 100 0, 100 60, 0 60, 0 0), (20 20, 40 20, 40 40, 20 40, 20 20))\n', thickness: '', material: '', quantity: 1 },
 ];
 
 let browser: Browser | undefined;
@@ -48,6 +50,9 @@ let folder: string;
 let ctx: BrowserContext;
 let page: Page;
 const leaving: string[] = [];
+/** The saved report, which the test itself opens from the artefacts folder. */
+const REPORT = join(ARTIFACTS, 'gusset-g2.report.html');
+const allowed = (url: string) => url === pathToFileURL(PAGE).href || url === pathToFileURL(REPORT).href || url.startsWith('blob:') || url.startsWith('data:');
 
 function flags(f: (typeof FILES)[number]): string[] {
   return [...(f.thickness ? ['--thickness', f.thickness] : []), ...(f.material ? ['--material', f.material] : [])];
@@ -68,13 +73,12 @@ beforeAll(async () => {
   // is refused and counted
   await ctx.route('**/*', (route) => {
     const url = route.request().url();
-    if (url === pathToFileURL(PAGE).href || url.startsWith('blob:') || url.startsWith('data:')) return route.continue();
+    if (allowed(url)) return route.continue();
     leaving.push(url);
     return route.abort();
   });
   ctx.on('request', (r) => {
-    const url = r.url();
-    if (!(url === pathToFileURL(PAGE).href || url.startsWith('blob:') || url.startsWith('data:'))) leaving.push(url);
+    if (!allowed(r.url())) leaving.push(r.url());
   });
   page = await ctx.newPage();
   await page.goto(pathToFileURL(PAGE).href, { waitUntil: 'load' });
@@ -82,7 +86,7 @@ beforeAll(async () => {
   await page.screenshot({ path: join(ARTIFACTS, '1-empty.png') });
   await page.setInputFiles('#pick', FILES.map((f) => join(folder, f.name)));
   for (const f of FILES) {
-    const card = `section.file[data-file="${f.name}"]`;
+    const card = `section.file[data-file="${cssText(f.name)}"]`;
     await page.waitForSelector(card);
     if (f.thickness) await page.fill(`${card} input[name="thickness"]`, f.thickness);
     if (f.material) await page.fill(`${card} input[name="material"]`, f.material);
@@ -90,7 +94,7 @@ beforeAll(async () => {
   }
   // settled: every card measured (and drawn) with exactly its settings, and the table of all files made after them
   await page.waitForFunction((files) => files.every((f) => {
-    const c = document.querySelector(`section.file[data-file="${f.name}"]`) as HTMLElement | null;
+    const c = [...document.querySelectorAll('section.file')].find((x) => x.getAttribute('data-file') === f.name) as HTMLElement | undefined;
     if (!c || !c.dataset.settings || !(c.dataset.state === 'failed' || (c.dataset.state === 'done' && c.dataset.drawn === 'true'))) return false;
     const s = JSON.parse(c.dataset.settings);
     return s.thickness === f.thickness && s.material === f.material && s.quantity === f.quantity;
@@ -103,17 +107,22 @@ afterAll(async () => {
   if (folder) rmSync(folder, { recursive: true, force: true });
 });
 
+/** A file name inside a CSS attribute selector's double quotes. */
+function cssText(s: string): string {
+  return s.replace(/["\\]/g, '\\$&');
+}
+
 /** Relative agreement to 1e-12 (exact zero must be exact). */
 function close(a: number, b: number): boolean {
   return a === b || Math.abs(a - b) <= 1e-12 * Math.abs(b);
 }
 
 describe('the offline page in Chromium', () => {
-  for (const f of FILES.filter((x) => x.from)) {
+  for (const f of FILES.filter((x) => x.name !== 'broken.json')) {
     it(`${f.name}: every figure shown equals measure --json ${flags(f).join(' ')}`, async () => {
       const out = JSON.parse(platewise(['measure', f.name, '--json', ...flags(f)], folder).stdout);
       const docs = out.parts ?? [out];
-      const parts = await page.$$eval(`section.file[data-file="${f.name}"] article[data-role="part"]`, (arts) => arts.map((a) => ({
+      const parts = await page.$$eval(`section.file[data-file="${cssText(f.name)}"] article[data-role="part"]`, (arts) => arts.map((a) => ({
         name: a.getAttribute('data-part'),
         rows: [...a.querySelectorAll('tr[data-key][data-value]')].map((tr) => ({
           group: tr.getAttribute('data-group')!, key: tr.getAttribute('data-key')!, value: tr.getAttribute('data-value')!, error: tr.getAttribute('data-error')!,
@@ -201,6 +210,44 @@ describe('the offline page in Chromium', () => {
       expect(close(v, summary[k]), `total ${k}: page ${v}, batch ${summary[k]}`).toBe(true);
     }
     await page.locator('#all').screenshot({ path: join(ARTIFACTS, '5-all-files.png') });
+  });
+
+  it('names and texts from files stay text: no element made from a file name', async () => {
+    const f = FILES.at(-1)!;
+    const card = `section.file[data-file="${cssText(f.name)}"]`;
+    expect(await page.textContent(`${card} h2`)).toBe(f.name);
+    expect(await page.$$(`${card} b`)).toHaveLength(0);
+    expect(await page.$$('main img:not([data-role="viewer"] img)')).toHaveLength(0);
+    expect(await page.getAttribute(`${card} article[data-role="part"]`, 'data-part')).toBe(f.name);
+  });
+
+  it('the saved HTML report of a part shows the figures of measure --json', async () => {
+    const f = FILES.find((x) => x.name === 'gusset-g2.json')!;
+    const out = JSON.parse(platewise(['measure', f.name, '--json', ...flags(f)], folder).stdout);
+    const [download] = await Promise.all([page.waitForEvent('download'), page.click(`section.file[data-file="${f.name}"] [data-role="save-report"]`)]);
+    writeFileSync(REPORT, readFileSync((await download.path())!));
+    const report = await ctx.newPage();
+    await report.goto(pathToFileURL(REPORT).href);
+    const rows = await report.$$eval('table[data-role="quantities"] tr[data-key]', (trs) => trs.map((tr) => ({
+      key: tr.getAttribute('data-key')!, value: Number(tr.querySelector('td[data-value]')!.getAttribute('data-value')),
+    })));
+    expect(rows.map((r) => r.key)).toEqual(Object.keys(out.quantities));
+    for (const r of rows) expect(close(r.value, out.quantities[r.key].value), r.key).toBe(true);
+    expect(await report.$$('figure[data-role="drawing"] svg path[data-loop="cutout"]')).toHaveLength(6);
+    await report.close();
+  });
+
+  it('the drawing zooms and pans from the keyboard', async () => {
+    const viewer = 'section.file[data-file="bracket.svg"] [data-role="viewer"]';
+    await page.focus(viewer);
+    const before = await page.$eval(`${viewer} img`, (i) => (i as HTMLElement).style.transform);
+    await page.keyboard.press('+');
+    await page.keyboard.press('ArrowLeft');
+    const after = await page.$eval(`${viewer} img`, (i) => (i as HTMLElement).style.transform);
+    const scale = (t: string) => Number(/scale\(([\d.e-]+)\)/.exec(t)![1]);
+    expect(scale(after) / scale(before)).toBeCloseTo(1.25, 5); // the style keeps 6 significant digits
+    await page.keyboard.press('0');
+    expect(scale(await page.$eval(`${viewer} img`, (i) => (i as HTMLElement).style.transform)) / scale(before)).toBeCloseTo(1, 5);
   });
 
   it('works in a narrow window: no sideways scrolling of the page, controls reachable by keyboard', async () => {
