@@ -173,8 +173,8 @@ function render(c: Card): void {
     setButtons(c, false);
     return;
   }
-  msg.textContent = '';
-  state.textContent = `${v.parts.length} part${v.parts.length === 1 ? '' : 's'}: ${v.parts.map((p) => p.name).join(', ')} — measured in ${Math.round(v.millis)} ms${c.busy ? ' (measuring again…)' : ''}`;
+  msg.textContent = v.refused ?? '';
+  state.textContent = `${v.parts.length} part${v.parts.length === 1 ? '' : 's'}: ${v.parts.map((p) => p.name).join(', ')} — measured in ${Math.round(v.millis)} ms${v.refused ? ' without the settings below (see the line above)' : ''}${c.busy ? ' (measuring again…)' : ''}`;
   v.parts.forEach((p, i) => body.append(partBlock(c, p, i)));
   setButtons(c, true);
 }

@@ -28,7 +28,8 @@ export interface PartView {
 }
 
 export type FileView =
-  | { ok: true; parts: PartView[]; json: string; millis: number }
+  /** `refused`: the plate settings were refused (the line says why); the figures are those without them. */
+  | { ok: true; parts: PartView[]; json: string; millis: number; refused?: string }
   | { ok: false; message: string; millis: number };
 
 export interface CompareView {

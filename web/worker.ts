@@ -109,11 +109,22 @@ function measure(key: number): FileView {
   const t0 = performance.now();
   try {
     const models = modelsOf(h);
+    const run = (g: PlateSettings) => models.map((m) => analyzePart(m, { given: g, mass: 'required', fabrication: 'auto' }));
     const g = given(h.settings);
-    const reports = models.map((m) => analyzePart(m, { given: g, mass: 'required', fabrication: 'auto' }));
+    let reports: PartReport[];
+    let refused: string | undefined;
+    try {
+      reports = run(g);
+    } catch (e) {
+      // settings refused (half typed, unknown material, a figure the file states): the figures without them,
+      // and the refusal in the command line's words
+      if (Object.keys(g).length === 0) throw e;
+      reports = run({});
+      refused = `platewise: ${failureText(e)}`;
+    }
     const json = reportsJson(reports, MASS_UNITS);
     h.reports = reports;
-    return { ok: true, parts: reports.map(partView), json, millis: performance.now() - t0 };
+    return { ok: true, parts: reports.map(partView), json, millis: performance.now() - t0, refused };
   } catch (e) {
     h.reports = undefined;
     return { ok: false, message: `platewise: ${failureText(e)}`, millis: performance.now() - t0 };
