@@ -379,7 +379,7 @@ pick.addEventListener('change', () => { if (pick.files) void take(pick.files); p
 const intake = document.getElementById('intake')!;
 for (const t of ['dragenter', 'dragover']) intake.addEventListener(t, (e) => { e.preventDefault(); intake.classList.add('over'); });
 for (const t of ['dragleave', 'drop']) intake.addEventListener(t, () => intake.classList.remove('over'));
-intake.addEventListener('drop', (e) => { e.preventDefault(); if (e.dataTransfer?.files) void take(e.dataTransfer.files); });
+intake.addEventListener('drop', (e) => { e.preventDefault(); e.stopPropagation(); intake.classList.remove('over'); if (e.dataTransfer?.files) void take(e.dataTransfer.files); });
 // a file dropped beside the drop area must not replace the page
 window.addEventListener('dragover', (e) => e.preventDefault());
 window.addEventListener('drop', (e) => { e.preventDefault(); if (e.dataTransfer?.files) void take(e.dataTransfer.files); });

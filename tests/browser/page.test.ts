@@ -250,6 +250,21 @@ describe('the offline page in Chromium', () => {
     expect(scale(await page.$eval(`${viewer} img`, (i) => (i as HTMLElement).style.transform)) / scale(before)).toBeCloseTo(1, 5);
   });
 
+  it('a file dropped on the page is taken once, measured, and can be removed again', async () => {
+    const before = await page.$$eval('section.file', (x) => x.length);
+    await page.evaluate(() => {
+      const dt = new DataTransfer();
+      dt.items.add(new File(['POLYGON ((0 0, 50 0, 50 20, 0 20, 0 0))'], 'dropped.wkt'));
+      document.getElementById('intake')!.dispatchEvent(new DragEvent('drop', { dataTransfer: dt, bubbles: true, cancelable: true }));
+    });
+    const card = 'section.file[data-file="dropped.wkt"][data-state="done"]';
+    await page.waitForSelector(card);
+    expect(await page.$$eval('section.file', (x) => x.length)).toBe(before + 1);
+    expect(Number(await page.getAttribute(`${card} tr[data-key="area"]`, 'data-value'))).toBe(1000); // 50 × 20
+    await page.click(`${card} button:text("Remove")`);
+    expect(await page.$$eval('section.file', (x) => x.length)).toBe(before);
+  });
+
   it('works in a narrow window: no sideways scrolling of the page, controls reachable by keyboard', async () => {
     await page.setViewportSize({ width: 420, height: 900 });
     await page.waitForTimeout(200);
