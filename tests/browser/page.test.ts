@@ -10,6 +10,7 @@
  * Screenshots of each state go to test-artifacts/page/ (git-ignored). Needs `npm run build` and Chromium.
  */
 import { spawnSync } from 'node:child_process';
+import { createHash } from 'node:crypto';
 import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -234,6 +235,9 @@ describe('the offline page in Chromium', () => {
     expect(rows.map((r) => r.key)).toEqual(Object.keys(out.quantities));
     for (const r of rows) expect(close(r.value, out.quantities[r.key].value), r.key).toBe(true);
     expect(await report.$$('figure[data-role="drawing"] svg path[data-loop="cutout"]')).toHaveLength(6);
+    // the trace block names the file and the SHA-256 of its bytes, computed in the browser
+    expect(await report.textContent('[data-role="file"]')).toBe(f.name);
+    expect(await report.textContent('[data-role="sha256"]')).toBe(createHash('sha256').update(readFileSync(join(folder, f.name))).digest('hex'));
     await report.close();
   });
 
