@@ -9,6 +9,7 @@ import { defineMaterials } from './materials.def.js';
 import { defineDraw } from './draw.def.js';
 import { defineReport } from './report.def.js';
 import { defineMember } from './member.def.js';
+import { definePage } from './page.def.js';
 
 export const COMMANDS: ((program: Command) => void)[] = [
   defineMeasure,
@@ -20,4 +21,5 @@ export const COMMANDS: ((program: Command) => void)[] = [
   defineDraw,
   defineReport,
   defineMember,
+  definePage,
 ];

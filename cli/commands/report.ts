@@ -1,11 +1,8 @@
 import { createHash } from 'node:crypto';
-import { analyzePart } from '../../src/analysis/analyze.js';
-import { measureSection } from '../../src/analysis/measure.js';
 import { checkSectionOptions } from '../../src/analysis/options.js';
 import { InputError } from '../../src/base/errors.js';
 import { checkOutputTarget, readInputText, writeFileAtomic } from '../../src/base/files.js';
 import { readModels } from '../../src/read/models.js';
-import { interpretationText, unitSourceText } from '../../src/output/words.js';
 import { VERSION } from '../version.js';
 import { marksOfModels } from '../../src/analysis/torsionMember.js';
 import { type DrawingFlags, type MarkFlags, markWants, plateSettings, readOptions } from './settings.js';
@@ -16,9 +13,6 @@ export interface ReportFlags extends DrawingFlags, MarkFlags {
   /** Fixed date (ISO) instead of now: for reproducible output in tests. */
   date?: string;
 }
-
-/** Levels of the run behind the convergence plot (at least three refinements). */
-export const CONVERGENCE_LEVELS = 3;
 
 export async function report(file: string, flags: ReportFlags): Promise<string> {
   const section = checkSectionOptions({ degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation });
@@ -31,32 +25,14 @@ export async function report(file: string, flags: ReportFlags): Promise<string> 
   const input = readInputText(file);
   const models = readModels(input.text, input.label, readOptions(flags));
   const given = plateSettings(flags);
-  // exactly the run `measure` makes with the same flags, so the table equals `measure --json`
-  const reports = models.map((m) => analyzePart(m, { section, given, mass: 'optional', fabrication: 'always' }));
-  const marks = wants ? marksOfModels(models, wants, flags.thickness) : undefined;
-  // the convergence plot needs at least three refinement levels: a separate run on the same shape, made only
-  // where the table's values come from a mesh (exact boundary results have no convergence to show)
-  const convergence = reports.map((r) => (r.section.method.path === 'boundary' || r.section.levels.length > CONVERGENCE_LEVELS
-    ? r.section.levels
-    : measureSection(r.section.geometry.part, { ...section, levels: CONVERGENCE_LEVELS }).levels));
-  const notes = reports.map((r) => (r.mass ? undefined : r.missing.length > 0
-    ? `Mass not shown: no ${r.missing.join(' and ')} — add "thickness" and "density" or "material" to the part file, or use --thickness with --density or --material.`
-    : 'Mass not shown: no thickness and density (or material) were given — add "thickness" and "density" or "material" to the part file, or use --thickness with --density or --material.'));
-
-  const { buildReport } = await import('../../src/output/html.js');
-  const html = await buildReport({
+  // the drawing stack is loaded only here, never by measure
+  const { reportHtml } = await import('../../src/output/reportPart.js');
+  const html = await reportHtml(models, {
+    section, given, marks: wants ? marksOfModels(models, wants, flags.thickness) : undefined,
     file: { name: input.label, sha256: createHash('sha256').update(input.bytes).digest('hex') },
     version: VERSION,
     date: flags.date ?? new Date().toISOString(),
     settings: { degree: flags.degree, levels: flags.levels, triangulation: flags.triangulation, format: flags.format, units: flags.units, thickness: flags.thickness, density: flags.density, material: flags.material },
-    parts: reports.map((r, i) => ({
-      result: r.section, convergence: convergence[i], mass: r.mass, massNote: notes[i], fabrication: r.fabrication, marks: marks?.[i],
-      markingLength: r.interpretation?.parts.find((p) => p.name === r.part)?.markingLength,
-      reading: {
-        lines: r.interpretation ? interpretationText(r.interpretation, r.part) : [`length unit ${r.units}: ${unitSourceText(r.unitSource)}`],
-        draw: { notCut: r.notCut, gapsClosed: r.interpretation?.gapsClosed, unitSource: r.unitSource },
-      },
-    })),
   });
   if (flags.output === undefined) return html;
   writeFileAtomic(flags.output, html, [file], write);

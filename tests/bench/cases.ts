@@ -4,6 +4,8 @@
  */
 import { partFromObject } from '../../src/read/partJson.js';
 import type { Part } from '../../src/geometry/part.js';
+import { writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 
 /** A W × H panel with an nx × ny grid of round holes of diameter d. */
 export function panel(W: number, H: number, nx: number, ny: number, d: number): Part {
@@ -25,4 +27,13 @@ export function squareHoles(n: number): Part {
     holes.push({ polygon: [[x, y], [x + s, y], [x + s, y + s], [x, y + s]] });
   }
   return partFromObject({ part: `square holes n=${4 + 4 * k * k}`, outline: { rectangle: { corner: [0, 0], size: [1000, 1000] } }, cutouts: holes });
+}
+
+/** The 2000 × 1000 mm panel with 1,250 round holes Ø20 as a part file in `dir` (invented for the benchmark). */
+export function writePanel1250(dir: string): string {
+  const file = join(dir, 'panel-1250.json');
+  const cutouts = [];
+  for (let i = 0; i < 50; i++) for (let j = 0; j < 25; j++) cutouts.push({ circle: { center: [(i + 0.5) * 40, (j + 0.5) * 40], diameter: 20 } });
+  writeFileSync(file, JSON.stringify({ part: 'panel 1250 holes', units: 'mm', note: 'generated for the benchmark', outline: { rectangle: { corner: [0, 0], size: [2000, 1000] } }, cutouts }));
+  return file;
 }

@@ -16,9 +16,10 @@ import { measureSection, preparePart } from '../../src/analysis/measure.js';
 import { compileExpression } from '../../src/expr/index.js';
 import { chordedBoundary } from '../../src/mesh/build.js';
 import { greenMoments } from './green.js';
-import { panel, squareHoles } from './cases.js';
+import { panel, squareHoles, writePanel1250 } from './cases.js';
 import { writeFormats, writeHolePlate, writeLoosePlate } from './drawings.js';
 import { readFileSync } from 'node:fs';
+import { pageBench } from './page.js';
 
 const Constrainautor = ConstrainautorModule as unknown as new (del: Delaunator<ArrayLike<number>>) => { constrainOne(a: number, b: number): void };
 const ROOT = join(dirname(fileURLToPath(import.meta.url)), '..', '..', '..');
@@ -224,10 +225,7 @@ if (want('processes')) {
   // issue 14: the 2000 × 1000 panel with 1,250 round holes Ø20, whole process against whole process
   const dir = join(tmpdir(), `platewise-bench-processes-${process.pid}`);
   mkdirSync(dir, { recursive: true });
-  const file = join(dir, 'panel-1250.json');
-  const cutouts = [];
-  for (let i = 0; i < 50; i++) for (let j = 0; j < 25; j++) cutouts.push({ circle: { center: [(i + 0.5) * 40, (j + 0.5) * 40], diameter: 20 } });
-  writeFileSync(file, JSON.stringify({ part: 'panel 1250 holes', units: 'mm', note: 'generated for the benchmark', outline: { rectangle: { corner: [0, 0], size: [2000, 1000] } }, cutouts }));
+  const file = writePanel1250(dir);
   const cli = join(ROOT, 'dist', 'cli', 'main.js'), peers = join(ROOT, 'dist', 'tests', 'bench', 'peers.js');
   // σ = 2 bump at (40, 40), a corner between four holes: ∫∫ exp(−r²/2σ²) over the plane = 2πσ² = 8π; the
   // rectangle's edges cut it at 40 = 20σ (the erf factors erf(40/(σ√2)) and erf(1960/(σ√2)) are 1 in
@@ -265,6 +263,17 @@ if (want('processes')) {
   rows.push({ case: 'panel-1250 whole process: measure --json vs the exact boundary-integral script', ours: f(ms[2]), peer: `exact ${f(exact)}`, ratio: (ms[2] / exact).toFixed(2), target: '≤ 2', met: ms[2] / exact <= 2 ? 'yes' : 'no' });
   rows.push({ case: `integrate of the Gaussian bump: true error against 2πσ² (erf factors 1)`, ours: `${trueRel.toExponential(2)} (estimate ${(I.error / I.value).toExponential(2)})`, peer: '', ratio: '', target: '≤ 1e-13', met: trueRel <= 1e-13 ? 'yes' : 'no' });
   rows.push({ case: `integrate of ${poly}: true error against the closed form`, ours: `${polyRel.toExponential(2)} (estimate ${(P.error / Math.abs(P.value)).toExponential(2)})`, peer: '', ratio: '', target: 'estimate ≥ true error', met: Math.abs(P.value - polyExact) <= P.error ? 'yes' : 'no' });
+  rmSync(dir, { recursive: true, force: true });
+}
+
+if (want('page')) {
+  // issue 18: the same panel measured in the page through Chromium, against the command line's whole process
+  const dir = join(tmpdir(), `platewise-bench-page-${process.pid}`);
+  mkdirSync(dir, { recursive: true });
+  const p = await pageBench(ROOT, writePanel1250(dir), quick ? 3 : 7);
+  results.page = p;
+  const ratio = p.pageMs / p.cliMs;
+  rows.push({ case: `panel-1250 in the page (Chromium; open the page → figures shown; worker alone ${f(p.workerMs)}; drawing shown too ${f(p.drawnMs)})${p.equal ? '' : ' — AREA DIFFERS'}`, ours: f(p.pageMs), peer: `measure --json ${f(p.cliMs)}`, ratio: ratio.toFixed(2), target: '≤ 2', met: ratio <= 2 && p.equal ? 'yes' : 'no' });
   rmSync(dir, { recursive: true, force: true });
 }
 

@@ -1,6 +1,7 @@
 /**
  * Debian's Chromium (/usr/bin/chromium; never downloaded) through playwright-core, headless, with a fresh
- * profile folder, for the browser tests. Artefacts (screenshots, PDFs) go to test-artifacts/browser/.
+ * profile folder that is removed again on close. Shared by the browser tests and the page's bench case.
+ * Artefacts (screenshots, PDFs) go to test-artifacts/browser/.
  */
 import { existsSync, mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -8,30 +9,40 @@ import { join } from 'node:path';
 import { type BrowserContext, chromium } from 'playwright-core';
 import { afterAll, beforeAll } from 'vitest';
 
+export const CHROMIUM = '/usr/bin/chromium';
 export const ARTIFACTS = join(import.meta.dirname, '..', '..', 'test-artifacts', 'browser');
-const CHROMIUM = '/usr/bin/chromium';
 
-/** Launch Chromium before the file's tests and close it after; call browser() inside a test. */
+export interface Browser { ctx: BrowserContext; close(): Promise<void> }
+
+export async function launchChromium(viewport: { width: number; height: number }): Promise<Browser> {
+  if (!existsSync(CHROMIUM)) throw new Error(`${CHROMIUM} is missing: install Debian's package (apt-get update && apt-get install -y chromium)`);
+  const profile = mkdtempSync(join(tmpdir(), 'platewise-chromium-'));
+  const ctx = await chromium.launchPersistentContext(profile, {
+    executablePath: CHROMIUM,
+    headless: true,
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
+    viewport,
+    acceptDownloads: true,
+  });
+  return {
+    ctx,
+    close: async () => {
+      await ctx.close();
+      rmSync(profile, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Launch Chromium before the file's tests and close it after; call the returned function inside a test. */
 export function useChromium(): () => BrowserContext {
-  let profile: string | undefined;
-  let ctx: BrowserContext | undefined;
+  let b: Browser | undefined;
   beforeAll(async () => {
-    if (!existsSync(CHROMIUM)) throw new Error(`${CHROMIUM} is missing: install Debian's package (apt-get update && apt-get install -y chromium)`);
     mkdirSync(ARTIFACTS, { recursive: true });
-    profile = mkdtempSync(join(tmpdir(), 'platewise-chromium-'));
-    ctx = await chromium.launchPersistentContext(profile, {
-      executablePath: CHROMIUM,
-      headless: true,
-      args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
-      viewport: { width: 1000, height: 900 },
-    });
+    b = await launchChromium({ width: 1000, height: 900 });
   });
-  afterAll(async () => {
-    await ctx?.close();
-    if (profile) rmSync(profile, { recursive: true, force: true });
-  });
+  afterAll(async () => { await b?.close(); });
   return () => {
-    if (!ctx) throw new Error('Chromium was not started');
-    return ctx;
+    if (!b) throw new Error('Chromium was not started');
+    return b.ctx;
   };
 }

@@ -1,0 +1,400 @@
+/**
+ * The page's main thread: files in (drop or picker), one card per file, the worker's results shown with
+ * textContent only (names and texts from drawings never become markup), downloads out. Every figure comes
+ * from the worker (web/worker.ts), which runs the library; nothing is computed here.
+ */
+import type { BatchView, CompareView, FileSettings, FileView, MaterialView, PartView, ToWorker } from './protocol.js';
+
+declare const PLATEWISE_VERSION: string;
+declare const WORKER_SOURCE: string;
+
+// ------------------------------------------------------------------ worker calls
+
+type Distribute<T> = T extends unknown ? Omit<T, 'id'> : never;
+const worker = new Worker(URL.createObjectURL(new Blob([WORKER_SOURCE], { type: 'text/javascript' })));
+let nextId = 1;
+const waiting = new Map<number, { resolve: (v: unknown) => void; reject: (e: Error) => void }>();
+worker.onmessage = (ev: MessageEvent<{ id: number; ok: boolean; value?: unknown; message?: string }>) => {
+  const w = waiting.get(ev.data.id);
+  if (!w) return;
+  waiting.delete(ev.data.id);
+  if (ev.data.ok) w.resolve(ev.data.value); else w.reject(new Error(ev.data.message));
+};
+function call<T>(m: Distribute<ToWorker>, transfer: Transferable[] = []): Promise<T> {
+  const id = nextId++;
+  return new Promise<T>((resolve, reject) => {
+    waiting.set(id, { resolve: resolve as (v: unknown) => void, reject });
+    worker.postMessage({ ...m, id }, transfer);
+  });
+}
+
+// ------------------------------------------------------------------ small DOM helpers (text only)
+
+function el<K extends keyof HTMLElementTagNameMap>(tag: K, attrs: Record<string, string> = {}, ...children: (Node | string)[]): HTMLElementTagNameMap[K] {
+  const e = document.createElement(tag);
+  for (const [k, v] of Object.entries(attrs)) e.setAttribute(k, v);
+  for (const c of children) e.append(typeof c === 'string' ? document.createTextNode(c) : c);
+  return e;
+}
+
+function save(name: string, text: string, type: string): void {
+  const url = URL.createObjectURL(new Blob([text], { type }));
+  const a = el('a', { href: url, download: name });
+  document.body.append(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 10_000);
+}
+
+const stem = (name: string) => name.replace(/\.[^.]*$/, '') || 'part';
+
+// ------------------------------------------------------------------ drawing viewer: zoom and pan
+
+function viewer(svg: string, label: string): HTMLElement {
+  const box = el('div', { class: 'viewer', tabindex: '0', role: 'img', 'aria-label': `${label}. Plus and minus zoom, arrow keys pan, 0 fits.`, 'data-role': 'viewer' });
+  const url = URL.createObjectURL(new Blob([svg], { type: 'image/svg+xml' }));
+  // an <img> shows the drawing as a picture: nothing in it can run or reach the page
+  const img = el('img', { src: url, alt: '', draggable: 'false' });
+  box.append(img);
+  const size = /<svg[^>]*\bwidth="([\d.]+)"[^>]*\bheight="([\d.]+)"/.exec(svg) ?? /<svg[^>]*\bheight="([\d.]+)"[^>]*\bwidth="([\d.]+)"/.exec(svg);
+  const natural = { w: size ? Number(size[1]) : 800, h: size ? Number(size[2]) : 600 };
+  let scale = 1, x = 0, y = 0;
+  const apply = () => { img.style.transform = `translate(${x}px, ${y}px) scale(${scale})`; };
+  const fit = () => {
+    const r = box.getBoundingClientRect();
+    const w = r.width || 600, h = r.height || 380;
+    scale = Math.min(w / natural.w, h / natural.h);
+    x = (w - natural.w * scale) / 2; y = (h - natural.h * scale) / 2;
+    apply();
+  };
+  img.width = natural.w; img.height = natural.h;
+  const zoomAt = (f: number, cx: number, cy: number) => {
+    const s = Math.min(200, Math.max(0.05, scale * f));
+    x = cx - (cx - x) * (s / scale); y = cy - (cy - y) * (s / scale); scale = s;
+    apply();
+  };
+  const centre = () => { const r = box.getBoundingClientRect(); return [r.width / 2, r.height / 2] as const; };
+  box.addEventListener('wheel', (e) => {
+    e.preventDefault();
+    const r = box.getBoundingClientRect();
+    zoomAt(e.deltaY < 0 ? 1.2 : 1 / 1.2, e.clientX - r.left, e.clientY - r.top);
+  }, { passive: false });
+  let drag: { px: number; py: number; x: number; y: number } | null = null;
+  box.addEventListener('pointerdown', (e) => { drag = { px: e.clientX, py: e.clientY, x, y }; box.setPointerCapture(e.pointerId); box.classList.add('dragging'); });
+  box.addEventListener('pointermove', (e) => { if (drag) { x = drag.x + e.clientX - drag.px; y = drag.y + e.clientY - drag.py; apply(); } });
+  const end = () => { drag = null; box.classList.remove('dragging'); };
+  box.addEventListener('pointerup', end);
+  box.addEventListener('pointercancel', end);
+  box.addEventListener('keydown', (e) => {
+    const step = 40;
+    const keys: Record<string, () => void> = {
+      '+': () => zoomAt(1.25, ...centre()), '=': () => zoomAt(1.25, ...centre()), '-': () => zoomAt(0.8, ...centre()), '0': fit,
+      ArrowLeft: () => { x += step; apply(); }, ArrowRight: () => { x -= step; apply(); }, ArrowUp: () => { y += step; apply(); }, ArrowDown: () => { y -= step; apply(); },
+    };
+    const k = keys[e.key];
+    if (k) { e.preventDefault(); k(); }
+  });
+  const tools = el('div', { class: 'viewer-tools' });
+  const b = (text: string, aria: string, f: () => void) => { const x = el('button', { type: 'button', class: 'quiet', 'aria-label': aria }, text); x.addEventListener('click', f); return x; };
+  tools.append(b('+', 'zoom in', () => zoomAt(1.25, ...centre())), b('−', 'zoom out', () => zoomAt(0.8, ...centre())), b('Fit', 'fit the drawing in view', fit),
+    el('span', {}, 'drag or use the arrow keys to move; wheel or + − to zoom'));
+  const wrap = el('div', {}, box, tools);
+  img.addEventListener('load', fit);
+  new ResizeObserver(() => fit()).observe(box);
+  return wrap;
+}
+
+/** What the drawing's line styles mean (the library's drawing palette, src/output/draw.ts). */
+function drawingKey(palette: Record<string, string>): HTMLElement {
+  const item = (text: string, stroke: string, dash: string, fill = 'none') => {
+    const ns = 'http://www.w3.org/2000/svg';
+    const s = document.createElementNS(ns, 'svg');
+    s.setAttribute('width', '28'); s.setAttribute('height', '12'); s.setAttribute('aria-hidden', 'true');
+    const r = document.createElementNS(ns, 'rect');
+    for (const [k, v] of Object.entries({ x: '1', y: '1', width: '26', height: '10', fill, stroke, 'stroke-width': '2', 'stroke-dasharray': dash })) r.setAttribute(k, v);
+    s.append(r);
+    return el('li', {}, s, text);
+  };
+  return el('ul', { class: 'key', 'aria-label': 'what the lines in the drawing mean' },
+    item('cut (material filled)', palette.ink, '', palette.material),
+    item('marking, not cut', palette.marking, '5 3'),
+    item('ignored', palette.ignored, '2 2'),
+    item('principal axes, centroid', palette.axis, ''));
+}
+
+// ------------------------------------------------------------------ one card per file
+
+interface Card { key: number; name: string; root: HTMLElement; settings: FileSettings; view?: FileView; busy: boolean; again: boolean }
+const cards: Card[] = [];
+let palette: Record<string, string> = {};
+let nextKey = 1;
+const filesBox = document.getElementById('files')!;
+
+function quantityTable(g: PartView['groups'][number], idPrefix: string): HTMLElement {
+  const t = el('table', { 'data-role': 'quantities', 'data-group': g.group, id: `${idPrefix}-${g.group}` });
+  t.append(el('caption', {}, g.title));
+  t.append(el('thead', {}, el('tr', {}, el('th', { scope: 'col' }, 'quantity'), el('th', { scope: 'col' }, 'value'), el('th', { scope: 'col' }, '± estimate'), el('th', { scope: 'col' }, 'unit'))));
+  const body = el('tbody');
+  for (const r of g.rows) {
+    body.append(el('tr', { 'data-key': r.key, 'data-value': String(r.value), 'data-error': String(r.error), 'data-group': g.group },
+      el('th', { scope: 'row' }, r.key, el('small', {}, r.description)),
+      el('td', { class: 'num' }, r.text),
+      el('td', { class: 'num' }, `± ${r.errorText}${r.bound ? '' : ' (not a bound)'}`),
+      el('td', {}, r.unit)));
+  }
+  t.append(body);
+  return el('div', { class: 'scroll' }, t);
+}
+
+function partBlock(c: Card, p: PartView, i: number): HTMLElement {
+  const id = `f${c.key}-p${i}`;
+  const words = (cls: string, label: string, lines: string[]) => lines.length === 0 ? '' : el('div', {}, el('h4', {}, label), el('ul', { class: `words ${cls}` }, ...lines.map((l) => el('li', {}, l))));
+  const left = el('div', {}, el('div', { 'data-role': 'drawing-slot', class: 'viewer-slot' }, el('p', { class: 'state' }, 'drawing…')), drawingKey(palette),
+    words('', 'How the file was read', p.reading), words('warn', 'Warnings', p.warnings));
+  const right = el('div', {}, ...p.groups.map((g) => quantityTable(g, id)));
+  if (p.plate) right.prepend(el('p', { class: 'state' }, `plate: ${p.plate}`));
+  else right.append(el('p', { class: 'state' }, 'No mass or cutting masses: enter a thickness and a material or density above.'));
+  for (const x of p.cautions) right.append(el('p', { class: 'caution' }, x));
+  return el('article', { class: 'part', 'data-role': 'part', 'data-part': p.name, 'aria-labelledby': `${id}-h` },
+    el('h3', { id: `${id}-h`, class: 'visually-hidden' }, p.name), left, right);
+}
+
+function render(c: Card): void {
+  const body = c.root.querySelector('[data-role="result"]')!;
+  const msg = c.root.querySelector('[data-role="message"]')!;
+  const state = c.root.querySelector('[data-role="state"]')!;
+  body.replaceChildren();
+  if (c.busy && !c.view) { state.textContent = 'measuring…'; return; }
+  const v = c.view!;
+  c.root.dataset.state = c.busy ? 'busy' : v.ok ? 'done' : 'failed';
+  if (!v.ok) {
+    msg.textContent = v.message;
+    state.textContent = 'not measured';
+    setButtons(c, false);
+    return;
+  }
+  msg.textContent = v.refused ?? '';
+  state.textContent = `${v.parts.length} part${v.parts.length === 1 ? '' : 's'}: ${v.parts.map((p) => p.name).join(', ')} — measured in ${Math.round(v.millis)} ms${v.refused ? ' without the settings below (see the line above)' : ''}${c.busy ? ' (measuring again…)' : ''}`;
+  v.parts.forEach((p, i) => body.append(partBlock(c, p, i)));
+  setButtons(c, true);
+}
+
+function setButtons(c: Card, ok: boolean): void {
+  for (const b of c.root.querySelectorAll<HTMLButtonElement>('button[data-needs="figures"]')) b.disabled = !ok;
+  for (const b of c.root.querySelectorAll<HTMLInputElement>('input[data-needs="figures"]')) b.disabled = !ok;
+}
+
+async function measure(c: Card): Promise<void> {
+  if (c.busy) { c.again = true; return; }
+  c.busy = true;
+  const asked = JSON.stringify(c.settings);
+  render(c);
+  try {
+    c.view = await call<FileView>({ op: 'measure', key: c.key });
+  } catch (e) {
+    c.view = { ok: false, message: (e as Error).message, millis: 0 };
+  }
+  c.busy = false;
+  // the settings these figures were made with (tests wait for them)
+  c.root.dataset.settings = asked;
+  render(c);
+  if (!c.again && c.view.ok) void drawInto(c, c.view);
+  if (c.again) { c.again = false; void measure(c); return; }
+  scheduleBatch();
+}
+
+/** Drawings follow the figures (they take longer on large parts); a newer result makes them stale. */
+async function drawInto(c: Card, view: FileView): Promise<void> {
+  delete c.root.dataset.drawn;
+  let svgs: string[];
+  try {
+    svgs = await call<string[]>({ op: 'draw', key: c.key });
+  } catch (e) {
+    for (const slot of c.root.querySelectorAll('[data-role="drawing-slot"]')) slot.replaceChildren(el('p', { class: 'message' }, (e as Error).message));
+    return;
+  }
+  if (c.view !== view || c.busy) return;
+  const slots = c.root.querySelectorAll('[data-role="drawing-slot"]');
+  svgs.forEach((svg, i) => slots[i]?.replaceChildren(viewer(svg, `drawing of ${view.ok ? view.parts[i].name : ''}`)));
+  c.root.dataset.drawn = 'true';
+}
+
+function input(label: string, name: keyof FileSettings, c: Card, attrs: Record<string, string>): HTMLElement {
+  const id = `f${c.key}-${name}`;
+  const field = el('input', { id, name, ...attrs, value: String(c.settings[name]) });
+  let timer = 0;
+  field.addEventListener('input', () => {
+    clearTimeout(timer);
+    timer = window.setTimeout(() => {
+      if (name === 'quantity') {
+        const n = Number(field.value);
+        c.settings.quantity = Number.isSafeInteger(n) && n >= 1 ? n : 1;
+      } else c.settings[name] = field.value;
+      void call({ op: 'settings', key: c.key, settings: c.settings }).then(() => measure(c));
+    }, 350);
+  });
+  return el('label', { for: id }, label, field);
+}
+
+function addCard(file: File, bytes: ArrayBuffer): Card {
+  const key = nextKey++;
+  const c: Card = { key, name: file.name, root: el('section', { class: 'file', 'data-file': file.name, 'aria-labelledby': `f${key}-title` }), settings: { thickness: '', material: '', density: '', quantity: 1 }, busy: false, again: false };
+  const form = el('form', { class: 'inputs', 'aria-label': `settings for ${file.name}` });
+  form.addEventListener('submit', (e) => e.preventDefault());
+  form.append(
+    input('thickness (e.g. 10 mm)', 'thickness', c, { type: 'text', inputmode: 'decimal', autocomplete: 'off', 'data-role': 'thickness' }),
+    input('material (name or alias)', 'material', c, { type: 'text', list: 'materials', autocomplete: 'off', 'data-role': 'material' }),
+    input('density instead (kg/m³)', 'density', c, { type: 'text', inputmode: 'decimal', autocomplete: 'off', 'data-role': 'density' }),
+    input('how many pieces', 'quantity', c, { type: 'number', min: '1', step: '1', 'data-role': 'quantity' }),
+  );
+  const toAll = el('button', { type: 'button', class: 'quiet' }, 'Use these settings for every file');
+  toAll.addEventListener('click', () => {
+    for (const o of cards) {
+      if (o === c) continue;
+      o.settings = { ...c.settings };
+      for (const k of ['thickness', 'material', 'density', 'quantity'] as const) (o.root.querySelector(`input[name="${k}"]`) as HTMLInputElement).value = String(o.settings[k]);
+      void call({ op: 'settings', key: o.key, settings: o.settings }).then(() => measure(o));
+    }
+  });
+  const json = el('button', { type: 'button', 'data-needs': 'figures', 'data-role': 'save-json' }, 'Save figures (JSON)');
+  json.addEventListener('click', () => { if (c.view?.ok) save(`${stem(c.name)}.figures.json`, c.view.json, 'application/json'); });
+  const report = el('button', { type: 'button', 'data-needs': 'figures', 'data-role': 'save-report' }, 'Save report (HTML)');
+  report.addEventListener('click', async () => {
+    report.disabled = true;
+    try { save(`${stem(c.name)}.report.html`, await call<string>({ op: 'report', key: c.key }), 'text/html'); } catch (e) { c.root.querySelector('[data-role="message"]')!.textContent = (e as Error).message; }
+    report.disabled = false;
+  });
+  const refId = `f${key}-ref`;
+  const ref = el('input', { id: refId, type: 'file', accept: '.json,.csv', class: 'visually-hidden', 'data-needs': 'figures', 'data-role': 'reference' });
+  const refLabel = el('label', { for: refId, class: 'button' }, 'Check against stated values…');
+  ref.addEventListener('change', () => { const f = ref.files?.[0]; if (f) void compareWith(c, f); ref.value = ''; });
+  const remove = el('button', { type: 'button', class: 'quiet' }, 'Remove');
+  remove.addEventListener('click', () => {
+    cards.splice(cards.indexOf(c), 1);
+    c.root.remove();
+    void call({ op: 'drop', key: c.key });
+    scheduleBatch();
+  });
+  c.root.append(
+    el('h2', { id: `f${key}-title` }, file.name),
+    el('p', { class: 'message', 'data-role': 'message', role: 'status' }),
+    el('p', { class: 'state', 'data-role': 'state' }),
+    form,
+    el('div', { class: 'toolbar' }, json, report, refLabel, ref, toAll, remove),
+    el('div', { 'data-role': 'comparison' }),
+    el('div', { 'data-role': 'result' }),
+  );
+  filesBox.append(c.root);
+  cards.push(c);
+  void call({ op: 'hold', key, name: file.name, bytes, settings: c.settings }, [bytes]).then(() => measure(c));
+  return c;
+}
+
+async function compareWith(c: Card, f: File): Promise<void> {
+  const box = c.root.querySelector('[data-role="comparison"]')!;
+  box.replaceChildren(el('p', { class: 'state' }, `checking against ${f.name}…`));
+  let v: CompareView;
+  try {
+    v = await call<CompareView>({ op: 'compare', key: c.key, name: f.name, bytes: await f.arrayBuffer() });
+  } catch (e) {
+    box.replaceChildren(el('p', { class: 'message', 'data-role': 'compare-message' }, (e as Error).message));
+    return;
+  }
+  const t = el('table', { 'data-role': 'verdicts' });
+  t.append(el('caption', {}, `Against ${f.name}: `, el('span', { class: `verdict ${v.verdict}`, 'data-verdict': v.verdict }, v.verdict),
+    ` — ${v.counts.pass} pass, ${v.counts.fail} fail, ${v.counts.inconclusive} inconclusive`));
+  t.append(el('thead', {}, el('tr', {}, ...['quantity', 'stated', 'computed ± estimate', 'difference', 'tolerance', 'verdict', 'what it may mean'].map((h) => el('th', { scope: 'col' }, h)))));
+  const tb = el('tbody');
+  for (const r of v.rows) {
+    tb.append(el('tr', { 'data-key': r.quantity, 'data-verdict': r.verdict },
+      el('th', { scope: 'row' }, r.quantity), el('td', { class: 'num' }, r.stated), el('td', { class: 'num' }, r.computed),
+      el('td', { class: 'num' }, r.difference), el('td', { class: 'num' }, r.tolerance),
+      el('td', {}, el('span', { class: `verdict ${r.verdict}` }, r.verdict)), el('td', {}, r.advice.join(' '))));
+  }
+  t.append(tb);
+  const rule = el('p', { class: 'state' }, 'rule: pass when |difference| + estimate ≤ tolerance; fail when |difference| − estimate > tolerance; otherwise inconclusive.');
+  const sj = el('button', { type: 'button', class: 'quiet' }, 'Save check (JSON)');
+  sj.addEventListener('click', () => save(`${stem(c.name)}.check.json`, v.json, 'application/json'));
+  const sc = el('button', { type: 'button', class: 'quiet' }, 'Save check (CSV)');
+  sc.addEventListener('click', () => save(`${stem(c.name)}.check.csv`, v.csv, 'text/csv'));
+  const full = el('details', {}, el('summary', {}, 'As the command line prints it'), el('pre', { class: 'scroll' }, v.text));
+  box.replaceChildren(el('div', { class: 'scroll' }, t), rule, el('div', { class: 'toolbar' }, sj, sc), full);
+}
+
+// ------------------------------------------------------------------ all files: the batch table and totals
+
+let batchTimer = 0;
+let lastBatch: BatchView | undefined;
+function scheduleBatch(): void {
+  document.getElementById('all')!.dataset.state = 'stale';
+  clearTimeout(batchTimer);
+  batchTimer = window.setTimeout(() => void refreshBatch(), 150);
+}
+
+const BATCH_COLUMNS: [string, string][] = [['area', 'area'], ['netMass', 'net mass (kg)'], ['cutLength', 'cut length'], ['pierces', 'pierces']];
+
+async function refreshBatch(): Promise<void> {
+  const all = document.getElementById('all')!;
+  (document.getElementById('clear') as HTMLButtonElement).disabled = cards.length === 0;
+  if (cards.length === 0 || cards.some((c) => c.busy)) { all.hidden = cards.length === 0; return; }
+  const v = await call<BatchView>({ op: 'batch', keys: cards.map((c) => c.key) });
+  if (cards.some((c) => c.busy)) return; // a newer run will follow
+  lastBatch = v;
+  all.hidden = false;
+  const s = v.summary;
+  const total = (label: string, value: number, text: string, key: string) => el('li', { 'data-total': key, 'data-value': String(value) }, `${label}: `, el('strong', {}, text));
+  document.getElementById('totals')!.replaceChildren(
+    total('pieces', s.pieces, String(s.pieces), 'pieces'),
+    ...(s.partsMeasured > s.partsWithoutMass ? [
+      total('net mass', s.netMassKg, `${fmt(s.netMassKg)} kg ± ${s.netMassErrorKg.toExponential(1)}`, 'netMassKg'),
+      total('blank mass', s.blankMassKg, `${fmt(s.blankMassKg)} kg`, 'blankMassKg')] : []),
+    total('cut length', s.cutLengthM, `${fmt(s.cutLengthM)} m`, 'cutLengthM'),
+    total('pierces', s.pierces, String(s.pierces), 'pierces'),
+    el('li', { class: 'state' }, ...v.summaryLines.slice(0, 3).flatMap((l, i) => (i ? [el('br'), l] : [l]))),
+  );
+  const table = document.getElementById('batch-table')!;
+  table.querySelector('thead')!.replaceChildren(el('tr', {}, ...['row', 'file', 'part', 'pieces', ...BATCH_COLUMNS.map((c) => c[1]), 'units', 'verdict', 'status'].map((h) => el('th', { scope: 'col' }, h))));
+  table.querySelector('tbody')!.replaceChildren(...v.rows.map((r) => el('tr', { 'data-row': String(r.row), 'data-status': r.status },
+    el('td', { class: 'num' }, String(r.row)), el('td', {}, r.file), el('td', {}, r.part ?? ''), el('td', { class: 'num' }, String(r.quantity)),
+    ...BATCH_COLUMNS.map(([k]) => el('td', { class: 'num', 'data-key': k, 'data-value': r.quantities[k] ? String(r.quantities[k].value) : '' }, r.quantities[k] ? fmt(r.quantities[k].value) : '—')),
+    el('td', {}, r.units ?? ''), el('td', {}, r.verdict ?? '—'), el('td', {}, r.status === 'ok' ? 'measured' : `failed: ${r.error ?? ''}`))));
+  document.getElementById('batch-caution')!.textContent = v.summaryLines.at(-1) ?? '';
+  all.dataset.state = 'current';
+}
+
+/** Short figures in the overview table only (the per-file tables carry the command line's own rounding). */
+const fmt = (v: number) => (Number.isInteger(v) ? String(v) : v.toPrecision(6));
+
+document.getElementById('batch-csv')!.addEventListener('click', () => { if (lastBatch) save('batch.csv', lastBatch.csv, 'text/csv'); });
+
+// ------------------------------------------------------------------ intake
+
+async function take(list: FileList | File[]): Promise<void> {
+  for (const f of Array.from(list)) addCard(f, await f.arrayBuffer());
+  (document.getElementById('clear') as HTMLButtonElement).disabled = cards.length === 0;
+}
+
+const pick = document.getElementById('pick') as HTMLInputElement;
+pick.addEventListener('change', () => { if (pick.files) void take(pick.files); pick.value = ''; });
+const intake = document.getElementById('intake')!;
+for (const t of ['dragenter', 'dragover']) intake.addEventListener(t, (e) => { e.preventDefault(); intake.classList.add('over'); });
+for (const t of ['dragleave', 'drop']) intake.addEventListener(t, () => intake.classList.remove('over'));
+intake.addEventListener('drop', (e) => { e.preventDefault(); e.stopPropagation(); intake.classList.remove('over'); if (e.dataTransfer?.files) void take(e.dataTransfer.files); });
+// a file dropped beside the drop area must not replace the page
+window.addEventListener('dragover', (e) => e.preventDefault());
+window.addEventListener('drop', (e) => { e.preventDefault(); if (e.dataTransfer?.files) void take(e.dataTransfer.files); });
+document.getElementById('clear')!.addEventListener('click', () => {
+  for (const c of cards.splice(0)) { c.root.remove(); void call({ op: 'drop', key: c.key }); }
+  scheduleBatch();
+});
+
+for (const v of document.querySelectorAll('[data-role="version"]')) v.textContent = PLATEWISE_VERSION;
+void call<{ materials: MaterialView[]; palette: Record<string, string> }>({ op: 'materials' }).then(({ materials, palette: p }) => {
+  palette = p;
+  const list = document.getElementById('materials')!;
+  for (const m of materials) {
+    list.append(el('option', { value: m.id }, `${m.name}, ${m.density} kg/m³`));
+    for (const a of m.aliases) list.append(el('option', { value: a }, `${m.name} (${m.id})`));
+  }
+  document.body.dataset.ready = 'true';
+});

@@ -1,0 +1,48 @@
+/** Messages between the page (web/page.ts) and its worker (web/worker.ts): plain data only. */
+
+/** The inputs beside each file, as typed (the worker parses them with the library's one settings grammar). */
+export interface FileSettings { thickness: string; material: string; density: string; quantity: number }
+
+export type ToWorker = { id: number } & (
+  | { op: 'hold'; key: number; name: string; bytes: ArrayBuffer; settings: FileSettings }
+  | { op: 'settings'; key: number; settings: FileSettings }
+  | { op: 'drop'; key: number }
+  | { op: 'measure'; key: number }
+  | { op: 'draw'; key: number }
+  | { op: 'batch'; keys: number[] }
+  | { op: 'report'; key: number }
+  | { op: 'compare'; key: number; name: string; bytes: ArrayBuffer }
+  | { op: 'materials' }
+);
+
+export interface QuantityView {
+  key: string; value: number; error: number; text: string; errorText: string; unit: string; description: string;
+  /** false when the estimate is not a bound (the library's errorIsBound: false). */
+  bound: boolean;
+}
+export interface QuantityGroupView { title: string; group: string; rows: QuantityView[] }
+
+export interface PartView {
+  name: string; units: string; groups: QuantityGroupView[]; warnings: string[]; reading: string[];
+  cautions: string[]; plate?: string; missing: string[];
+}
+
+export type FileView =
+  /** `refused`: the plate settings were refused (the line says why); the figures are those without them. */
+  | { ok: true; parts: PartView[]; json: string; millis: number; refused?: string }
+  | { ok: false; message: string; millis: number };
+
+export interface CompareView {
+  verdict: 'pass' | 'fail' | 'inconclusive'; counts: Record<string, number>; text: string; json: string; csv: string;
+  rows: { quantity: string; verdict: string; stated: string; computed: string; difference: string; tolerance: string; advice: string[] }[];
+}
+
+export interface BatchView {
+  csv: string;
+  rows: { row: number; file: string; part: string | null; status: string; quantity: number; units: string | null; error: string | null; verdict: string | null;
+    quantities: Record<string, { value: number; error: number }> }[];
+  summary: { pieces: number; netMassKg: number; netMassErrorKg: number; blankMassKg: number; cutLengthM: number; pierces: number; partsMeasured: number; partsFailed: number; partsWithoutMass: number };
+  summaryLines: string[];
+}
+
+export interface MaterialView { id: string; name: string; density: number; aliases: string[] }

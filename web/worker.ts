@@ -1,0 +1,211 @@
+/**
+ * The page's worker: every computation of the page runs here, on the library's own code (bundled by
+ * web/build.mjs), so the page stays responsive while a large part is measured. It is a front end like cli/:
+ * texts in, one call into src/, a writer out. Messages are plain data (structured clone); the page never
+ * receives the library's objects, only texts, numbers and the writers' output.
+ */
+import { analyzePart, type PartReport } from '../src/analysis/analyze.js';
+import { InputError } from '../src/base/errors.js';
+import { decodeUtf8, MAX_INPUT_BYTES } from '../src/base/utf8.js';
+import { type BatchRow, failureText, jobRows } from '../src/batch/jobRows.js';
+import type { Job } from '../src/batch/manifest.js';
+import { batchLine } from '../src/batch/lines.js';
+import { listMaterials } from '../src/model/materials.js';
+import type { PlateModel, PlateSettings } from '../src/model/plate.js';
+import { SummaryBuilder, batchCsvHeader, batchCsvRow, summaryText } from '../src/output/batchRows.js';
+import { GEOMETRY_CAUTION, MASS_CAUTION } from '../src/output/cautions.js';
+import { comparePart, pickPart } from '../src/output/comparePart.js';
+import { comparisonCsv, comparisonJson, comparisonText, rowAdvice } from '../src/output/compareText.js';
+import { PALETTE, drawPart } from '../src/output/draw.js';
+import { formatError, formatNumber } from '../src/output/numbers.js';
+import { partReportJson, reportsJson } from '../src/output/partReport.js';
+import { reportHtml } from '../src/output/reportPart.js';
+import { interpretationText, unitSourceText, warningText } from '../src/output/words.js';
+import { quantityInfo, unitText } from '../src/properties/quantities.js';
+import { readReference } from '../src/qa/reference.js';
+import { type ReadModel, readModels } from '../src/read/models.js';
+import type { FileSettings, FileView, PartView, QuantityGroupView, ToWorker } from './protocol.js';
+
+declare const PLATEWISE_VERSION: string;
+
+/** The CLI's measure defaults: kg and kg·m² (massJson converts to these). */
+const MASS_UNITS = { mass: 'kg', inertia: 'kg·m²' } as const;
+
+interface Held { name: string; bytes: Uint8Array; settings: FileSettings; reports?: PartReport[] }
+const files = new Map<number, Held>();
+
+/** The file as the command line would read it: the same size limit and the same decoding with its messages. */
+function textOf(h: Held): string {
+  if (h.bytes.length > MAX_INPUT_BYTES) throw new InputError(h.name, `is ${h.bytes.length} bytes; the limit is ${MAX_INPUT_BYTES} bytes`);
+  return decodeUtf8(h.bytes, h.name);
+}
+
+/** The page's inputs as settings given on the command line (--thickness, --material, --density). */
+function given(s: FileSettings): PlateSettings {
+  const g: PlateSettings = {};
+  if (s.thickness.trim() !== '') g.thickness = { text: s.thickness.trim(), where: 'thickness' };
+  if (s.material.trim() !== '') g.material = { text: s.material.trim(), where: 'material' };
+  if (s.density.trim() !== '') g.density = { text: s.density.trim(), where: 'density' };
+  return g;
+}
+
+function groupView(title: string, group: string, q: Record<string, { value: number; error: number; errorIsBound?: false }> | undefined, unitOf: (key: string) => string): QuantityGroupView | undefined {
+  if (!q) return undefined;
+  return {
+    title, group,
+    rows: Object.entries(q).map(([key, v]) => ({
+      key, value: v.value, error: v.error, text: formatNumber(v.value), errorText: formatError(v.error), unit: unitOf(key),
+      description: quantityInfo(key)?.description ?? '', bound: v.errorIsBound !== false,
+    })),
+  };
+}
+
+function partView(r: PartReport): PartView {
+  // exactly the document `measure --json` prints for this part
+  const doc = partReportJson(r, MASS_UNITS) as {
+    quantities: Record<string, { value: number; error: number }>;
+    massProperties?: { quantities: Record<string, { value: number; error: number }>; units: { mass: string } };
+    fabrication?: { quantities: Record<string, { value: number; error: number }>; units: { mass: string } };
+  };
+  const length = r.units;
+  const unit = (key: string, mass = 'kg') => {
+    const info = quantityInfo(key);
+    if (!info) return '';
+    return info.dimension === 'massMoment' ? MASS_UNITS.inertia : unitText(info.dimension, length, mass);
+  };
+  const groups = [
+    groupView('Section', 'section', doc.quantities, (k) => unit(k)),
+    groupView('Mass', 'mass', doc.massProperties?.quantities, (k) => unit(k)),
+    groupView('Cutting', 'fabrication', doc.fabrication?.quantities, (k) => unit(k)),
+  ].filter((g): g is QuantityGroupView => g !== undefined);
+  const reading = r.interpretation ? interpretationText(r.interpretation, r.part) : [`length unit ${r.units}: ${unitSourceText(r.unitSource)}`];
+  const p = r.plate;
+  return {
+    name: r.part, units: r.units, groups, warnings: r.warnings.map(warningText), reading,
+    cautions: [GEOMETRY_CAUTION, ...(r.cautions.includes('mass') ? [MASS_CAUTION] : [])],
+    plate: p ? `thickness ${formatNumber(p.thickness)} ${r.units}, density ${formatNumber(p.density)} kg/m³${p.material ? ` (${p.material})` : ''}` : undefined,
+    missing: r.missing,
+  };
+}
+
+function modelsOf(h: Held): ReadModel[] {
+  return readModels(textOf(h), h.name);
+}
+
+/**
+ * The drawings of the parts last measured (the library's SVG drawing, as `platewise draw` makes it, with what
+ * is marking and what was ignored), sent after the figures: on a panel with a thousand holes the drawing takes
+ * several times as long as the figures.
+ */
+async function drawings(key: number): Promise<string[]> {
+  const reports = files.get(key)?.reports ?? [];
+  const out: string[] = [];
+  for (const r of reports) out.push(await drawPart(r.section, { reading: { notCut: r.notCut, gapsClosed: r.interpretation?.gapsClosed, unitSource: r.unitSource } }));
+  return out;
+}
+
+/** `measure` with the page's settings: the same call and the same writer as `platewise measure --json`. */
+function measure(key: number): FileView {
+  const h = files.get(key)!;
+  const t0 = performance.now();
+  try {
+    const models = modelsOf(h);
+    const run = (g: PlateSettings) => models.map((m) => analyzePart(m, { given: g, mass: 'required', fabrication: 'auto' }));
+    const g = given(h.settings);
+    let reports: PartReport[];
+    let refused: string | undefined;
+    try {
+      reports = run(g);
+    } catch (e) {
+      // settings refused (half typed, unknown material, a figure the file states): the figures without them,
+      // and the refusal in the command line's words
+      if (Object.keys(g).length === 0) throw e;
+      reports = run({});
+      refused = `platewise: ${failureText(e)}`;
+    }
+    const json = reportsJson(reports, MASS_UNITS);
+    h.reports = reports;
+    return { ok: true, parts: reports.map(partView), json, millis: performance.now() - t0, refused };
+  } catch (e) {
+    h.reports = undefined;
+    return { ok: false, message: `platewise: ${failureText(e)}`, millis: performance.now() - t0 };
+  }
+}
+
+/** The job `batch` would run for this file, its settings as a manifest row's cells. */
+function jobOf(key: number, row: number): Job {
+  const h = files.get(key)!;
+  return { row, file: h.name, path: h.name, quantity: h.settings.quantity, plate: given(h.settings), stated: [] };
+}
+
+function batch(keys: number[]): { csv: string; rows: BatchRow[]; summary: ReturnType<SummaryBuilder['finish']>; summaryLines: string[] } {
+  const summary = new SummaryBuilder(1);
+  let csv = batchCsvHeader();
+  const all: BatchRow[] = [];
+  keys.forEach((key, i) => {
+    const h = files.get(key)!;
+    const rows = jobRows(jobOf(key, i + 1), { defaults: {} }, {
+      part: () => ({ text: textOf(h) }),
+      reference: () => { throw new Error('no reference file in the page'); },
+    });
+    for (const r of rows) { const l = batchLine(r, undefined); csv += batchCsvRow(l); summary.add(l); all.push(r); }
+  });
+  const s = summary.finish(0);
+  // the summary in the command line's words, without the line about workers and seconds (nothing to time here)
+  const lines = summaryText(s).trimEnd().split('\n').filter((l) => !/ worker(s)?, .* s, .* parts\/s$/.test(l));
+  return { csv, rows: all, summary: s, summaryLines: lines };
+}
+
+async function report(key: number): Promise<string> {
+  const h = files.get(key)!;
+  const digest = new Uint8Array(await crypto.subtle.digest('SHA-256', h.bytes as Uint8Array<ArrayBuffer>));
+  const sha256 = [...digest].map((b) => b.toString(16).padStart(2, '0')).join('');
+  const s = h.settings;
+  return reportHtml(modelsOf(h), {
+    section: {}, given: given(s),
+    file: { name: h.name, sha256 }, version: PLATEWISE_VERSION, date: new Date().toISOString(),
+    settings: { thickness: s.thickness || undefined, density: s.density || undefined, material: s.material || undefined },
+  });
+}
+
+function compare(key: number, refName: string, refBytes: Uint8Array) {
+  const h = files.get(key)!;
+  const reference = readReference(decodeUtf8(refBytes, refName), refName);
+  const models = modelsOf(h);
+  const model: PlateModel = pickPart(models, h.name, reference.part, `${refName}:part`);
+  const { comparison, meta } = comparePart(model, reference, { file: h.name, reference: refName }, { given: given(h.settings) });
+  return {
+    verdict: comparison.verdict, counts: comparison.counts, text: comparisonText(comparison, meta),
+    json: JSON.stringify(comparisonJson(comparison, meta), null, 2) + '\n', csv: comparisonCsv(comparison),
+    rows: comparison.rows.map((r) => ({
+      quantity: r.quantity, verdict: r.verdict,
+      stated: `${formatNumber(r.statedAsWritten)}${r.statedUnit ? ' ' + r.statedUnit : ''}`,
+      computed: r.computed === null ? '—' : `${formatNumber(r.computed)}${r.unit ? ' ' + r.unit : ''} ± ${formatError(r.error ?? NaN)}`,
+      difference: r.difference === null ? '—' : formatNumber(r.difference, 4),
+      tolerance: formatNumber(r.tolerance, 4), advice: rowAdvice(r),
+    })),
+  };
+}
+
+const scope = self as unknown as { onmessage: ((ev: MessageEvent<ToWorker>) => void) | null; postMessage(m: unknown): void };
+
+scope.onmessage = async (ev) => {
+  const m = ev.data;
+  let reply: unknown;
+  try {
+    switch (m.op) {
+      case 'hold': files.set(m.key, { name: m.name, bytes: new Uint8Array(m.bytes), settings: m.settings }); reply = null; break;
+      case 'settings': files.get(m.key)!.settings = m.settings; reply = null; break;
+      case 'drop': files.delete(m.key); reply = null; break;
+      case 'measure': reply = measure(m.key); break;
+      case 'draw': reply = await drawings(m.key); break;
+      case 'batch': reply = batch(m.keys); break;
+      case 'report': reply = await report(m.key); break;
+      case 'compare': reply = compare(m.key, m.name, new Uint8Array(m.bytes)); break;
+      case 'materials': reply = { materials: listMaterials().map((x) => ({ id: x.id, name: x.name, density: x.density, aliases: [...x.aliases] })), palette: { ...PALETTE } }; break;
+    }
+    scope.postMessage({ id: m.id, ok: true, value: reply });
+  } catch (e) {
+    scope.postMessage({ id: m.id, ok: false, message: `platewise: ${failureText(e)}` });
+  }
+};
