@@ -9,7 +9,7 @@ import { densityText } from '../../src/output/words.js';
 import { explainMissing, partSize } from '../../src/qa/compute.js';
 import { readReference } from '../../src/qa/reference.js';
 import { compareAll } from '../../src/qa/verdict.js';
-import { readModels } from '../../src/read/models.js';
+import { loadModels } from '../../src/read/load.js';
 import { type DrawingFlags, plateSettings, readOptions } from './settings.js';
 
 export interface CompareFlags extends DrawingFlags {
@@ -32,7 +32,7 @@ export function pickPart<P extends { name: string }>(parts: P[], label: string, 
   throw new InputError(label, `holds ${parts.length} parts (${parts.map((p) => `"${p.name}"`).join(', ')}); expected one, or --part naming one`);
 }
 
-export function compare(file: string, flags: CompareFlags): string {
+export async function compare(file: string, flags: CompareFlags): Promise<string> {
   if (flags.json && flags.csv) throw new InputError('--csv', 'choose one of --json and --csv');
   const section = checkSectionOptions({ degree: flags.degree, levels: flags.levels });
   if (file === '-' && flags.reference === '-') throw new InputError('--reference', 'the part already comes from standard input; expected a reference file');
@@ -41,7 +41,7 @@ export function compare(file: string, flags: CompareFlags): string {
   const refText = readInputText(flags.reference);
   const reference = readReference(refText.text, refText.label);
   const input = readInputText(file);
-  const models = readModels(input.text, input.label, readOpts);
+  const models = await loadModels(input.text, input.label, readOpts);
   const model: PlateModel = flags.part !== undefined
     ? pickPart(models, input.label, flags.part, '--part')
     : pickPart(models, input.label, reference.part, `${refText.label}:part`);

@@ -3,6 +3,7 @@ import { checkSectionOptions } from '../../src/analysis/options.js';
 import { InputError } from '../../src/base/errors.js';
 import { checkOutputTarget, readInputText, writeFileAtomic, writeFilesAtomic } from '../../src/base/files.js';
 import { detectFormat } from '../../src/read/detect.js';
+import { loadModels } from '../../src/read/load.js';
 import { readModels } from '../../src/read/models.js';
 import { type DrawingFlags, readOptions } from './settings.js';
 
@@ -41,7 +42,7 @@ export async function draw(file: string, flags: DrawFlags): Promise<string> {
   if (flags.output !== undefined) checkOutputTarget(flags.output, [file], write);
   const readOpts = readOptions(flags);
   const input = readInputText(file);
-  const models = readModels(input.text, input.label, readOpts);
+  const models = await loadModels(input.text, input.label, readOpts);
   const reports = models.map((m) => analyzePart(m, { section, mass: 'never', fabrication: 'never' }));
   const results = reports.map((r) => r.section);
   // the drawing stack is loaded only here, never by measure

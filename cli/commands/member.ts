@@ -4,14 +4,14 @@ import { InputError } from '../../src/base/errors.js';
 import { readInputText } from '../../src/base/files.js';
 import { isLengthUnit } from '../../src/base/units.js';
 import { memberJson, memberText } from '../../src/output/memberText.js';
-import { readModels } from '../../src/read/models.js';
+import { loadModels } from '../../src/read/load.js';
 import { type DrawingFlags, readOptions } from './settings.js';
 
 export interface MemberFlags extends DrawingFlags {
   json?: boolean; printUnit?: string; order?: number; triangles?: number; torsion?: boolean; bolts?: string | boolean;
 }
 
-export function member(file: string, flags: MemberFlags): string {
+export async function member(file: string, flags: MemberFlags): Promise<string> {
   if (flags.printUnit !== undefined && (!isLengthUnit(flags.printUnit) || flags.printUnit === 'ft')) {
     throw new InputError('--print-unit', `expected mm, cm, m or in, got "${flags.printUnit}"`);
   }
@@ -25,7 +25,7 @@ export function member(file: string, flags: MemberFlags): string {
     });
   }
   const input = readInputText(file);
-  const models = readModels(input.text, input.label, readOptions(flags));
+  const models = await loadModels(input.text, input.label, readOptions(flags));
   const results = models.map((m) => {
     if (m.layers.length !== 1) throw new InputError(m.name, `member properties need one shape; this plate has ${m.layers.length} layers`);
     return analyzeMember(m.layers[0].part, {

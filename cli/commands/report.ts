@@ -4,7 +4,7 @@ import { measureSection } from '../../src/analysis/measure.js';
 import { checkSectionOptions } from '../../src/analysis/options.js';
 import { InputError } from '../../src/base/errors.js';
 import { checkOutputTarget, readInputText, writeFileAtomic } from '../../src/base/files.js';
-import { readModels } from '../../src/read/models.js';
+import { loadModels } from '../../src/read/load.js';
 import { interpretationText, unitSourceText } from '../../src/output/words.js';
 import { VERSION } from '../version.js';
 import { type DrawingFlags, plateSettings, readOptions } from './settings.js';
@@ -27,7 +27,7 @@ export async function report(file: string, flags: ReportFlags): Promise<string> 
   if (flags.output !== undefined) checkOutputTarget(flags.output, [file], write);
   if (flags.output !== undefined && !/\.html?$/i.test(flags.output)) throw new InputError('--output', `the report is an HTML page; name the file .html (got "${flags.output}"); for a PDF, open the page in a browser and print it`);
   const input = readInputText(file);
-  const models = readModels(input.text, input.label, readOptions(flags));
+  const models = await loadModels(input.text, input.label, readOptions(flags));
   const given = plateSettings(flags);
   // exactly the run `measure` makes with the same flags, so the table equals `measure --json`
   const reports = models.map((m) => analyzePart(m, { section, given, mass: 'optional', fabrication: 'never' }));

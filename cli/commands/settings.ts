@@ -3,7 +3,8 @@ import { InputError } from '../../src/base/errors.js';
 import type { PlateSettings } from '../../src/model/plate.js';
 import { type MassUnits } from '../../src/output/massText.js';
 import { parseMassMomentUnit, parseMassUnit } from '../../src/model/massUnits.js';
-import { checkReadOptions, type ReadOptions } from '../../src/read/read.js';
+import { checkReadOptions } from '../../src/read/detect.js';
+import type { ReadOptions } from '../../src/read/read.js';
 
 export interface PlateFlags { thickness?: string; density?: string; material?: string }
 
