@@ -13,10 +13,10 @@ import { guardStandardStreams } from './run.js';
 import { VERSION } from './version.js';
 
 // A one-shot run spent more CPU in V8's optimising compiler (TurboFan, on background threads) than in running
-// the code it optimised: on the 1,250-hole panel 457 of the 1,108 million instructions above bare Node
+// the code it optimised: on the 1,250-hole panel 457 of the 1,105 million instructions above bare Node
 // (callgrind). A larger interrupt budget lets functions run longer in the interpreter and baseline code
-// before they are optimised: `measure --json` on the panel took 507 -> 379 ms CPU, the mesh path 1384 ->
-// about 1200, a 10^5-vertex part unchanged within noise (1257 -> 1224 ms; 1,000,000 cost it 6 %, hence this
+// before they are optimised: `measure --json` on the panel took 507 -> 379 ms CPU, the mesh path 1535 ->
+// 1304, a 10^5-vertex part unchanged within noise (1257 -> 1224 ms; 1,000,000 cost it 6 %, hence this
 // value). It must be set before the command's modules load; it applies to this process and its workers only.
 setFlagsFromString('--interrupt-budget=300000');
 guardStandardStreams();

@@ -139,7 +139,7 @@ if (want('batch')) {
     const out = join(dir, `out-${jobs}.csv`);
     rmSync(out, { force: true });
     const t = performance.now();
-    const r = spawnSync(process.execPath, [join(ROOT, 'dist', 'cli', 'main.js'), 'batch', dir, '--jobs', String(jobs), '-o', out], { encoding: 'utf8' });
+    const r = spawnSync(process.execPath, [join(ROOT, 'dist', 'cli', 'main.js'), 'batch', dir, '--jobs', String(jobs), '-o', out, '--force'], { encoding: 'utf8' });
     const ms = performance.now() - t;
     if (r.status === null || r.status > 1) throw new Error(`batch failed: ${r.stderr}`);
     return ms;
