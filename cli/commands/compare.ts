@@ -6,7 +6,7 @@ import type { PlateModel } from '../../src/model/plate.js';
 import { comparePart, pickPart } from '../../src/output/comparePart.js';
 import { comparisonCsv, comparisonJson, comparisonText } from '../../src/output/compareText.js';
 import { readReference } from '../../src/qa/reference.js';
-import { readModels } from '../../src/read/models.js';
+import { loadModels } from '../../src/read/load.js';
 import { type DrawingFlags, plateSettings, readOptions } from './settings.js';
 
 export interface CompareFlags extends DrawingFlags {
@@ -15,7 +15,7 @@ export interface CompareFlags extends DrawingFlags {
   degree?: number; levels?: number; format?: string; units?: string;
 }
 
-export function compare(file: string, flags: CompareFlags): string {
+export async function compare(file: string, flags: CompareFlags): Promise<string> {
   if (flags.json && flags.csv) throw new InputError('--csv', 'choose one of --json and --csv');
   if (flags.decimalComma && !flags.csv) throw new InputError('--decimal-comma', 'applies to CSV; add --csv');
   const section = checkSectionOptions({ degree: flags.degree, levels: flags.levels });
@@ -25,7 +25,7 @@ export function compare(file: string, flags: CompareFlags): string {
   const refText = readInputText(flags.reference);
   const reference = readReference(refText.text, refText.label);
   const input = readInputText(file);
-  const models = readModels(input.text, input.label, readOpts);
+  const models = await loadModels(input.text, input.label, readOpts);
   const model: PlateModel = flags.part !== undefined
     ? pickPart(models, input.label, flags.part, '--part')
     : pickPart(models, input.label, reference.part, `${refText.label}:part`);

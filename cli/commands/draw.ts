@@ -3,6 +3,7 @@ import { checkSectionOptions } from '../../src/analysis/options.js';
 import { InputError } from '../../src/base/errors.js';
 import { checkOutputTarget, readInputText, writeFileAtomic, writeFilesAtomic } from '../../src/base/files.js';
 import { detectFormat } from '../../src/read/detect.js';
+import { loadModels } from '../../src/read/load.js';
 import { readModels } from '../../src/read/models.js';
 import { marksOfModels } from '../../src/analysis/torsionMember.js';
 import { type DrawingFlags, type MarkFlags, markWants, readOptions } from './settings.js';
@@ -43,7 +44,7 @@ export async function draw(file: string, flags: DrawFlags): Promise<string> {
   const readOpts = readOptions(flags);
   const wants = markWants(flags);
   const input = readInputText(file);
-  const models = readModels(input.text, input.label, readOpts);
+  const models = await loadModels(input.text, input.label, readOpts);
   const reports = models.map((m) => analyzePart(m, { section, mass: 'never', fabrication: 'never' }));
   const results = reports.map((r) => r.section);
   const marks = wants ? marksOfModels(models, wants) : undefined;

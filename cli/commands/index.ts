@@ -11,15 +11,16 @@ import { defineReport } from './report.def.js';
 import { defineMember } from './member.def.js';
 import { definePage } from './page.def.js';
 
-export const COMMANDS: ((program: Command) => void)[] = [
-  defineMeasure,
-  defineRules,
-  defineCompare,
-  defineBatch,
-  defineIntegrate,
-  defineMaterials,
-  defineDraw,
-  defineReport,
-  defineMember,
-  definePage,
-];
+/** Each command's definition under its name (the order is the order of the help listing). */
+export const COMMANDS: Readonly<Record<string, (program: Command) => void>> = {
+  measure: defineMeasure,
+  rules: defineRules,
+  compare: defineCompare,
+  batch: defineBatch,
+  integrate: defineIntegrate,
+  materials: defineMaterials,
+  draw: defineDraw,
+  report: defineReport,
+  member: defineMember,
+  page: definePage,
+};

@@ -5,7 +5,7 @@ import { InputError, jsonTerminalText, terminalText } from '../../src/base/error
 import { readInputText } from '../../src/base/files.js';
 import type { Part } from '../../src/geometry/part.js';
 import { integralJson, integralText } from '../../src/output/massText.js';
-import { readModels } from '../../src/read/models.js';
+import { loadModels } from '../../src/read/load.js';
 import { type DrawingFlags, readOptions } from './settings.js';
 
 export interface IntegrateFlags extends DrawingFlags {
@@ -13,11 +13,11 @@ export interface IntegrateFlags extends DrawingFlags {
   degree?: number; method?: string; json?: boolean; format?: string; units?: string;
 }
 
-export function integrate(file: string, flags: IntegrateFlags): string {
+export async function integrate(file: string, flags: IntegrateFlags): Promise<string> {
   const opts = checkIntegrationOptions(flags);
   if (flags.exprUnit !== undefined && !/^[^\s\u0000-\u001f]{1,20}$/u.test(flags.exprUnit)) throw new InputError('--expr-unit', `expected a short unit name without spaces, got "${flags.exprUnit}"`);
   const input = readInputText(file);
-  const models = readModels(input.text, input.label, readOptions(flags));
+  const models = await loadModels(input.text, input.label, readOptions(flags));
   let parts: Part[];
   if (models.length === 1 && models[0].layered) {
     const model = models[0];

@@ -4,7 +4,7 @@ import { checkIntegrationOptions, checkSectionOptions } from '../../src/analysis
 import { InputError, jsonTerminalText, terminalText } from '../../src/base/errors.js';
 import { readInputText } from '../../src/base/files.js';
 import { reportsJson, reportsText } from '../../src/output/partReport.js';
-import { readModels } from '../../src/read/models.js';
+import { loadModels } from '../../src/read/load.js';
 import { userMaterials } from './materials.js';
 import { type DrawingFlags, massUnits, plateSettings, readOptions } from './settings.js';
 
@@ -14,14 +14,14 @@ export interface MeasureFlags extends DrawingFlags {
   massUnit?: string; inertiaUnit?: string; tolerance?: number; maxTriangles?: number; timeLimit?: number;
 }
 
-export function measure(file: string, flags: MeasureFlags): string {
+export async function measure(file: string, flags: MeasureFlags): Promise<string> {
   const section = checkSectionOptions(flags);
   const integration = checkIntegrationOptions({ tolerance: flags.tolerance, maxTriangles: flags.maxTriangles, timeLimit: flags.timeLimit });
   const units = massUnits(flags);
   const given = plateSettings(flags);
   const materials = userMaterials(flags.materialsFile);
   const input = readInputText(file);
-  const models = readModels(input.text, input.label, readOptions(flags));
+  const models = await loadModels(input.text, input.label, readOptions(flags));
   const reports = models.map((model) => analyzePart(model, {
     section, given, materials, integration, mass: 'required', fabrication: flags.fabrication ? 'always' : 'auto',
   }));

@@ -5,7 +5,7 @@ import { readInputText } from '../../src/base/files.js';
 import { isLengthUnit } from '../../src/base/units.js';
 import { memberJson, memberText } from '../../src/output/memberText.js';
 import { parseNetLine } from '../../src/geometry/netSection.js';
-import { readModels } from '../../src/read/models.js';
+import { loadModels } from '../../src/read/load.js';
 import { type DrawingFlags, readOptions } from './settings.js';
 
 export interface MemberFlags extends DrawingFlags {
@@ -13,7 +13,7 @@ export interface MemberFlags extends DrawingFlags {
   netLine?: string[]; thickness?: string;
 }
 
-export function member(file: string, flags: MemberFlags): string {
+export async function member(file: string, flags: MemberFlags): Promise<string> {
   if (flags.printUnit !== undefined && (!isLengthUnit(flags.printUnit) || flags.printUnit === 'ft')) {
     throw new InputError('--print-unit', `expected mm, cm, m or in, got "${flags.printUnit}"`);
   }
@@ -29,7 +29,7 @@ export function member(file: string, flags: MemberFlags): string {
   const netLines = flags.netLine?.map((t) => parseNetLine(t, '--net-line'));
   if (flags.thickness !== undefined && !netLines) throw new InputError('--thickness', 'is used for the net area; give a --net-line');
   const input = readInputText(file);
-  const models = readModels(input.text, input.label, readOptions(flags));
+  const models = await loadModels(input.text, input.label, readOptions(flags));
   const results = analyzeMemberModels(models, {
     torsion: flags.torsion === false ? false : { order: flags.order, minTriangles: flags.triangles },
     bolts, netLines,

@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import { checkSectionOptions } from '../../src/analysis/options.js';
 import { InputError } from '../../src/base/errors.js';
 import { checkOutputTarget, readInputText, writeFileAtomic } from '../../src/base/files.js';
-import { readModels } from '../../src/read/models.js';
+import { loadModels } from '../../src/read/load.js';
 import { VERSION } from '../version.js';
 import { marksOfModels } from '../../src/analysis/torsionMember.js';
 import { type DrawingFlags, type MarkFlags, markWants, plateSettings, readOptions } from './settings.js';
@@ -23,7 +23,7 @@ export async function report(file: string, flags: ReportFlags): Promise<string> 
   if (flags.output !== undefined && !/\.html?$/i.test(flags.output)) throw new InputError('--output', `the report is an HTML page; name the file .html (got "${flags.output}"); for a PDF, open the page in a browser and print it`);
   const wants = markWants(flags);
   const input = readInputText(file);
-  const models = readModels(input.text, input.label, readOptions(flags));
+  const models = await loadModels(input.text, input.label, readOptions(flags));
   const given = plateSettings(flags);
   // the drawing stack is loaded only here, never by measure
   const { reportHtml } = await import('../../src/output/reportPart.js');

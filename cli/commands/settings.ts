@@ -5,7 +5,8 @@ import { parseNetLine } from '../../src/geometry/netSection.js';
 import type { PlateSettings } from '../../src/model/plate.js';
 import { type MassUnits } from '../../src/output/massText.js';
 import { parseMassMomentUnit, parseMassUnit } from '../../src/model/massUnits.js';
-import { checkReadOptions, type ReadOptions } from '../../src/read/read.js';
+import { checkReadOptions } from '../../src/read/detect.js';
+import type { ReadOptions } from '../../src/read/read.js';
 
 export interface PlateFlags { thickness?: string; density?: string; material?: string }
 

@@ -1,6 +1,6 @@
 /**
  * Worker-thread entry for `batch`: receives jobs one at a time, answers each with its rows.
- * Messages in: { id, job, settings }; out: { id, rows }. Loaded from the compiled dist/src/batch/worker.js.
+ * Messages in: { id, job, settings }; out: { id, rows }. Loaded from dist/cli/worker.js (bundled) or dist/src/batch/worker.js (tsc output), beside the pool.
  */
 import { parentPort } from 'node:worker_threads';
 import type { Job } from './manifest.js';

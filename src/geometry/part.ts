@@ -128,9 +128,12 @@ export function loopLength(loop: Loop): number {
 }
 
 export function loopBox(loop: Loop): Box {
-  let b: Box = [Infinity, Infinity, -Infinity, -Infinity];
-  for (const s of loop.segments) b = unionBox(b, ops(s).bbox(s));
-  return b;
+  let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
+  for (const s of loop.segments) {
+    const b = ops(s).bbox(s);
+    x0 = Math.min(x0, b[0]); y0 = Math.min(y0, b[1]); x1 = Math.max(x1, b[2]); y1 = Math.max(y1, b[3]);
+  }
+  return [x0, y0, x1, y1];
 }
 
 export function unionBox(a: Box, b: Box): Box {

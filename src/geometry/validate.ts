@@ -10,15 +10,9 @@
 import { InputError } from '../base/errors.js';
 import { overlappingPairs } from './boxgrid.js';
 import { pointInLoop } from './nesting.js';
-import { type Loop, type Part, type Region, loopSignedArea, partBox } from './part.js';
+import { type Loop, type Part, type Region, loopSignedArea } from './part.js';
 import { lineLineCrossings } from './kinds/line.js';
-import { type Box, type Crossing, type LineSegment, type Segment, exactCrossings, ops, segmentEnd, segmentPoint, segmentStart } from './segments.js';
-
-interface SegRef {
-  seg: Segment;
-  loop: number;
-  index: number;
-}
+import { type Box, type Crossing, type LineSegment, type Out2, type Segment, exactCrossings, ops, segmentEnd, segmentPoint, segmentStart } from './segments.js';
 
 type Hit = Crossing;
 
@@ -28,51 +22,70 @@ const at = (x: number, y: number) => `(${fmt(x)}, ${fmt(y)})`;
 /** Throws InputError on the first problem found; returns the touching tolerance used. */
 export function validatePart(part: Part): number {
   if (part.regions.length === 0) throw new InputError('outline', 'the part has no material (no outline)');
-  checkRange(part);
-  checkScale(part);
-  const box = partBox(part);
+  const loops: Loop[] = [];
+  const outer: boolean[] = [];
+  for (const r of part.regions) {
+    loops.push(r.outer); outer.push(true);
+    for (const h of r.holes) { loops.push(h); outer.push(false); }
+  }
+  // every segment's box once, into flat arrays (parts reach 10^6 edges): the range and scale checks, the
+  // part's box, the loops' boxes and the pair search all read these (a one-shot run paid for four passes
+  // of box computations and their small arrays before)
+  let nSeg = 0;
+  for (const l of loops) nSeg += l.segments.length;
+  const boxes = new Float64Array(4 * nSeg);
+  const loopBoxes = new Float64Array(4 * loops.length);
+  const segLoop = new Int32Array(nSeg), segIndex = new Int32Array(nSeg);
+  const segs: Segment[] = new Array(nSeg);
+  let k = 0;
+  for (let li = 0; li < loops.length; li++) {
+    const l = loops[li];
+    let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
+    for (let index = 0; index < l.segments.length; index++, k++) {
+      const seg = l.segments[index];
+      const b = ops(seg).bbox(seg);
+      checkRange(l, b);
+      boxes[4 * k] = b[0]; boxes[4 * k + 1] = b[1]; boxes[4 * k + 2] = b[2]; boxes[4 * k + 3] = b[3];
+      x0 = Math.min(x0, b[0]); y0 = Math.min(y0, b[1]); x1 = Math.max(x1, b[2]); y1 = Math.max(y1, b[3]);
+      segs[k] = seg; segLoop[k] = li; segIndex[k] = index;
+    }
+    loopBoxes[4 * li] = x0; loopBoxes[4 * li + 1] = y0; loopBoxes[4 * li + 2] = x1; loopBoxes[4 * li + 3] = y1;
+  }
+  // the part's box: the outlines bound everything
+  const box: Box = [Infinity, Infinity, -Infinity, -Infinity];
+  for (let li = 0; li < loops.length; li++) {
+    if (!outer[li]) continue;
+    box[0] = Math.min(box[0], loopBoxes[4 * li]); box[1] = Math.min(box[1], loopBoxes[4 * li + 1]);
+    box[2] = Math.max(box[2], loopBoxes[4 * li + 2]); box[3] = Math.max(box[3], loopBoxes[4 * li + 3]);
+  }
+  checkScale(part, box);
   const size = Math.max(box[2] - box[0], box[3] - box[1]);
   if (!Number.isFinite(size) || !(size > 0)) throw new InputError('outline', 'expected an outline with finite, non-zero extent');
   const scale = Math.max(size, Math.abs(box[0]), Math.abs(box[1]), Math.abs(box[2]), Math.abs(box[3]));
   const tol = 1e-9 * scale;
 
-  const loops: Loop[] = [];
-  const loopRegion: number[] = [];
-  part.regions.forEach((r, ri) => {
-    loops.push(r.outer); loopRegion.push(ri);
-    for (const h of r.holes) { loops.push(h); loopRegion.push(ri); }
-  });
+  for (const l of loops) checkLoop(l, tol);
 
-  loops.forEach((l, li) => checkLoop(l, li, tol));
-
-  // all segments; candidate pairs from a uniform grid over their boxes (flat arrays: parts reach 10^6 edges)
-  let nSeg = 0;
-  for (const l of loops) nSeg += l.segments.length;
-  const boxes = new Float64Array(4 * nSeg);
-  const segLoop = new Int32Array(nSeg), segIndex = new Int32Array(nSeg);
-  const segs: Segment[] = new Array(nSeg);
-  let k = 0;
-  loops.forEach((l, li) => l.segments.forEach((seg, index) => {
-    const b = ops(seg).bbox(seg);
-    boxes[4 * k] = b[0] - tol; boxes[4 * k + 1] = b[1] - tol; boxes[4 * k + 2] = b[2] + tol; boxes[4 * k + 3] = b[3] + tol;
-    segs[k] = seg; segLoop[k] = li; segIndex[k] = index;
-    k++;
-  }));
-  overlappingPairs(boxes, (i, j) => checkPair({ seg: segs[i], loop: segLoop[i], index: segIndex[i] }, { seg: segs[j], loop: segLoop[j], index: segIndex[j] }, loops, tol));
+  // all segments; candidate pairs from a uniform grid over their boxes grown by the tolerance
+  for (let i = 0; i < 4 * nSeg; i += 4) { boxes[i] -= tol; boxes[i + 1] -= tol; boxes[i + 2] += tol; boxes[i + 3] += tol; }
+  overlappingPairs(boxes, (i, j) => checkPair(segs[i], segLoop[i], segIndex[i], segs[j], segLoop[j], segIndex[j], loops, tol));
 
   for (const l of loops) checkArea(l, tol);
 
   // nesting: every hole inside its outline, holes not inside each other, regions apart
-  part.regions.forEach((reg) => {
+  let li = 0;
+  for (const reg of part.regions) {
+    const first = ++li; // the region's holes follow its outline in `loops`
     for (const h of reg.holes) {
       const p = loopProbe(h);
       if (!pointInLoop(p[0], p[1], reg.outer)) {
         throw new InputError(h.where ?? 'cutout', `lies outside ${reg.outer.where ?? 'the outline'}; a cut-out must be inside the outline`);
       }
+      li++;
     }
-    checkHoleNesting(reg.holes);
-  });
-  checkRegionNesting(part.regions);
+    checkHoleNesting(reg.holes, loopBoxes.subarray(4 * first, 4 * li));
+  }
+  checkRegionNesting(part.regions, loopBoxes);
   return tol;
 }
 
@@ -82,21 +95,15 @@ function loopName(l: Loop): string { return l.where ?? 'loop'; }
 export const MAX_COORDINATE_MAGNITUDE = 1e12;
 
 /**
- * Every loop's box must be finite and within ±MAX_COORDINATE_MAGNITUDE: beyond that the touching tolerance
+ * Every segment's box must be finite and within ±MAX_COORDINATE_MAGNITUDE: beyond that the touching tolerance
  * (relative to the part's size) swallows whole segments and squares of coordinates lose all digits, so the
  * later checks would give misleading messages ("zero-length segment").
  */
-function checkRange(part: Part): void {
-  for (const r of part.regions) {
-    for (const l of [r.outer, ...r.holes]) {
-      for (const seg of l.segments) {
-        const b = ops(seg).bbox(seg);
-        for (const v of b) {
-          if (!Number.isFinite(v) || Math.abs(v) > MAX_COORDINATE_MAGNITUDE) {
-            throw new InputError(loopName(l), `reaches coordinate ${fmt(v)}; expected finite coordinates of magnitude at most ${MAX_COORDINATE_MAGNITUDE} (in the part's length unit)`);
-          }
-        }
-      }
+function checkRange(l: Loop, b: Box): void {
+  for (let i = 0; i < 4; i++) {
+    const v = b[i];
+    if (!Number.isFinite(v) || Math.abs(v) > MAX_COORDINATE_MAGNITUDE) {
+      throw new InputError(loopName(l), `reaches coordinate ${fmt(v)}; expected finite coordinates of magnitude at most ${MAX_COORDINATE_MAGNITUDE} (in the part's length unit)`);
     }
   }
 }
@@ -112,12 +119,8 @@ export const MIN_EXTENT_TO_OFFSET = 1e-9;
  * (NaN, NaN) or of the mesher; a 0.0001-wide part at 9e11 has edges that doubles cannot tell apart, which
  * the later checks would call a zero-length segment. Issue 16: name the real cause instead.
  */
-function checkScale(part: Part): void {
-  let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
-  for (const r of part.regions) for (const seg of r.outer.segments) {
-    const b = ops(seg).bbox(seg);
-    x0 = Math.min(x0, b[0]); y0 = Math.min(y0, b[1]); x1 = Math.max(x1, b[2]); y1 = Math.max(y1, b[3]);
-  }
+function checkScale(part: Part, outlines: Box): void {
+  const [x0, y0, x1, y1] = outlines;
   if (!(x1 >= x0 && y1 >= y0)) return; // empty parts are refused elsewhere
   const extent = Math.max(x1 - x0, y1 - y0);
   const offset = Math.max(Math.abs(x0), Math.abs(x1), Math.abs(y0), Math.abs(y1));
@@ -130,22 +133,25 @@ function checkScale(part: Part): void {
   }
 }
 
-function checkLoop(loop: Loop, li: number, tol: number): void {
+const endPt: Out2 = [0, 0], nextPt: Out2 = [0, 0];
+
+function checkLoop(loop: Loop, tol: number): void {
   const n = loop.segments.length;
   if (n === 0) throw new InputError(loopName(loop), 'expected a closed loop with at least one segment');
   for (let i = 0; i < n; i++) {
-    const s = loop.segments[i];
-    if (!(ops(s).length(s) > tol)) {
+    const s = loop.segments[i], o = ops(s);
+    if (!(o.length(s) > tol)) {
       const p = segmentStart(s);
       throw new InputError(loopName(loop), `has a zero-length segment at ${at(p[0], p[1])}`);
     }
-    const e = segmentEnd(s), b = segmentStart(loop.segments[(i + 1) % n]);
-    if (Math.hypot(e[0] - b[0], e[1] - b[1]) > tol * 10) {
-      throw new InputError(loopName(loop), `is not closed: a segment ends at ${at(e[0], e[1])} but the next starts at ${at(b[0], b[1])}`);
+    const next = loop.segments[i + 1 < n ? i + 1 : 0];
+    o.end(s, endPt); ops(next).start(next, nextPt);
+    const ex = endPt[0], ey = endPt[1];
+    if (Math.hypot(ex - nextPt[0], ey - nextPt[1]) > tol * 10) {
+      throw new InputError(loopName(loop), `is not closed: a segment ends at ${at(ex, ey)} but the next starts at ${at(nextPt[0], nextPt[1])}`);
     }
-    for (const v of [e[0], e[1]]) if (!Number.isFinite(v)) throw new InputError(loopName(loop), 'has a coordinate that is not a finite number');
+    if (!Number.isFinite(ex) || !Number.isFinite(ey)) throw new InputError(loopName(loop), 'has a coordinate that is not a finite number');
   }
-  void li;
 }
 
 function checkArea(loop: Loop, tol: number): void {
@@ -153,32 +159,30 @@ function checkArea(loop: Loop, tol: number): void {
   if (!(Math.abs(a) > tol * tol)) throw new InputError(loopName(loop), 'encloses no area');
 }
 
-function checkPair(a: SegRef, b: SegRef, loops: Loop[], tol: number): void {
+function checkPair(sa: Segment, la: number, ia: number, sb: Segment, lb: number, ib: number, loops: Loop[], tol: number): void {
   // joints shared by neighbouring segments of a loop are not crossings; the subdivision search must skip
   // them and go on looking (it stops at its first hit, which for neighbours was the joint: a line crossing
   // the elliptical arc that follows it was missed)
   const joints: [number, number][] = [];
-  if (a.loop === b.loop) {
-    const n = loops[a.loop].segments.length;
-    if ((a.index + 1) % n === b.index) joints.push(segmentEnd(a.seg));
-    if ((b.index + 1) % n === a.index) joints.push(segmentEnd(b.seg));
+  if (la === lb) {
+    const n = loops[la].segments.length;
+    if ((ia + 1) % n === ib) joints.push(segmentEnd(sa));
+    if ((ib + 1) % n === ia) joints.push(segmentEnd(sb));
   }
   const atJoint = (x: number, y: number) => joints.some((p) => Math.hypot(x - p[0], y - p[1]) <= 100 * tol);
-  const hits = intersect(a.seg, b.seg, tol, joints.length > 0 ? atJoint : undefined);
+  const hits = intersect(sa, sb, tol, joints.length > 0 ? atJoint : undefined);
   if (hits.length === 0) return;
-  if (a.loop === b.loop) {
-    const loop = loops[a.loop];
-    const i = a.index, j = b.index;
+  if (la === lb) {
     const real = hits.filter((h) => !atJoint(h.x, h.y));
     if (real.length === 0) return;
-    if (i === j) return;
+    if (ia === ib) return;
     const h = real[0];
-    throw new InputError(loopName(loop), `crosses or touches itself near ${at(h.x, h.y)}; a loop must be simple`);
+    throw new InputError(loopName(loops[la]), `crosses or touches itself near ${at(h.x, h.y)}; a loop must be simple`);
   }
   const h = hits[0];
   // name the later loop (a cut-out rather than the outline) as the subject
-  const [la, lb] = a.loop < b.loop ? [loops[a.loop], loops[b.loop]] : [loops[b.loop], loops[a.loop]];
-  throw new InputError(loopName(lb), `crosses or touches ${loopName(la)} near ${at(h.x, h.y)}; cut-outs must lie strictly inside the outline and apart from each other`);
+  const [first, later] = la < lb ? [loops[la], loops[lb]] : [loops[lb], loops[la]];
+  throw new InputError(loopName(later), `crosses or touches ${loopName(first)} near ${at(h.x, h.y)}; cut-outs must lie strictly inside the outline and apart from each other`);
 }
 
 /**
@@ -227,25 +231,16 @@ function loopProbe(l: Loop): [number, number] {
   return segmentPoint(l.segments[0], 0.5);
 }
 
-function looseBox(l: Loop): Box {
-  let b: Box = [Infinity, Infinity, -Infinity, -Infinity];
-  for (const s of l.segments) {
-    const c = ops(s).bbox(s);
-    b = [Math.min(b[0], c[0]), Math.min(b[1], c[1]), Math.max(b[2], c[2]), Math.max(b[3], c[3])];
-  }
-  return b;
-}
+/** Is box i of `a` inside box j of `b` (flat xMin, yMin, xMax, yMax)? */
+const insideBox = (a: Float64Array, i: number, b: Float64Array, j: number) =>
+  a[4 * i] >= b[4 * j] && a[4 * i + 1] >= b[4 * j + 1] && a[4 * i + 2] <= b[4 * j + 2] && a[4 * i + 3] <= b[4 * j + 3];
 
-const inside = (a: Box, b: Box) => a[0] >= b[0] && a[1] >= b[1] && a[2] <= b[2] && a[3] <= b[3];
-
-function checkHoleNesting(holes: Loop[]): void {
+/** `boxes`: the holes' boxes (flat, in order). */
+function checkHoleNesting(holes: Loop[], boxes: Float64Array): void {
   if (holes.length < 2) return;
-  const boxes = holes.map(looseBox);
-  const flat = new Float64Array(4 * holes.length);
-  boxes.forEach((b, i) => flat.set(b, 4 * i));
-  overlappingPairs(flat, (i, j) => {
+  overlappingPairs(boxes, (i, j) => {
     for (const [inner, outer] of [[i, j], [j, i]]) {
-      if (!inside(boxes[inner], boxes[outer])) continue;
+      if (!insideBox(boxes, inner, boxes, outer)) continue;
       const p = loopProbe(holes[inner]);
       if (pointInLoop(p[0], p[1], holes[outer])) {
         throw new InputError(holes[inner].where ?? 'cutout', `lies inside ${holes[outer].where ?? 'another cut-out'}; cut-outs must not overlap`);
@@ -258,9 +253,10 @@ function checkHoleNesting(holes: Loop[]): void {
  * No region's outline lies on another region's material. Each outline's probe point is tested only against
  * the loops (outlines and holes of the other regions) whose boxes hold it, found through the box grid:
  * near O(n + candidates), where testing every region against every other (and all its holes) was
- * quadratic on drawings of many separate parts.
+ * quadratic on drawings of many separate parts. `loopBoxes`: every loop's box, outlines and holes in region
+ * order (as validatePart lists them).
  */
-function checkRegionNesting(regions: Region[]): void {
+function checkRegionNesting(regions: Region[], loopBoxes: Float64Array): void {
   const R = regions.length;
   if (R < 2) return;
   const loops: Loop[] = [], owner: number[] = [], isOuter: boolean[] = [];
@@ -272,7 +268,7 @@ function checkRegionNesting(regions: Region[]): void {
   // boxes: the R probe points first, then every loop
   const flat = new Float64Array(4 * (R + loops.length));
   probes.forEach(([x, y], i) => flat.set([x, y, x, y], 4 * i));
-  loops.forEach((l, k) => flat.set(looseBox(l), 4 * (R + k)));
+  flat.set(loopBoxes, 4 * R);
   // per probe: the regions whose outline holds it, and those with a hole that holds it
   const inOuter = new Map<number, number[]>(), inHole = new Set<string>();
   overlappingPairs(flat, (a, b) => {

@@ -18,6 +18,7 @@ import type { Loop, Part } from '../geometry/part.js';
 import type { Segment } from '../geometry/segments.js';
 import type { LengthUnit } from '../base/units.js';
 import type { Drawing, DrawingUnits, DrawnContour } from './drawing.js';
+import { GEOMETRY_TYPES } from './detect.js';
 import { type InterpretOptions, interpretDrawing } from './interpret.js';
 
 export interface GeoJsonOptions extends InterpretOptions {
@@ -47,8 +48,6 @@ export function crsKind(name: string): { code: string; geographic: boolean } {
   return { code: t, geographic: false };
 }
 
-const GEOMETRY_TYPES = new Set(['Point', 'MultiPoint', 'LineString', 'MultiLineString', 'Polygon', 'MultiPolygon', 'GeometryCollection']);
-export const GEOJSON_TYPES: ReadonlySet<string> = new Set([...GEOMETRY_TYPES, 'Feature', 'FeatureCollection']);
 
 const join = (path: string, key: string | number) =>
   typeof key === 'number' ? `${path}[${key}]` : path === '' ? key : `${path}.${key}`;

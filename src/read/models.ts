@@ -4,11 +4,10 @@
  * the one interpretation step, with the unit's source and the interpretation's facts attached. This is the
  * one place that knows which formats carry plate data: nothing else sniffs the input text.
  */
-import { OptionError } from '../base/errors.js';
 import { type PlateModel, singleLayerModel } from '../model/plate.js';
 import { detectFormat } from './detect.js';
 import type { InterpretationSummary, NotCut } from './interpret.js';
-import { readPlateModel } from './partJson.js';
+import { partFileModels } from './partJson.js';
 import { type ReadOptions, readDrawing } from './read.js';
 
 /** A plate model with what reading its file established (for drawings: the interpretation summary). */
@@ -16,10 +15,7 @@ export type ReadModel = PlateModel & { interpretation?: InterpretationSummary; n
 
 export function readModels(text: string, label: string, options: ReadOptions = {}): ReadModel[] {
   const format = options.format ?? detectFormat(label === 'stdin' ? undefined : label, text);
-  if (format === 'part-json') {
-    if (options.units !== undefined) throw new OptionError('units', 'applies to drawings (SVG, DXF, GeoJSON, WKT); a part file states its own "units"');
-    return [readPlateModel(text, label)];
-  }
+  if (format === 'part-json') return partFileModels(text, label, options.units);
   const r = readDrawing(text, label, { ...options, format });
   return r.parts.map((p) => ({ ...singleLayerModel(p, r.units.source), interpretation: r.summary, notCut: r.notCut }));
 }

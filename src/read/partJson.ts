@@ -2,7 +2,7 @@
  * Reader for the project's own part description (JSON). See README "Part description format" and
  * schema/part.schema.json. Every problem is an InputError naming the JSON path.
  */
-import { InputError, MethodError, describeValue } from '../base/errors.js';
+import { InputError, MethodError, OptionError, describeValue } from '../base/errors.js';
 import { checkJsonText } from '../base/jsonCheck.js';
 import { type Loop, type Part, type Region, partBox, siteOrigin, withLocalFrame } from '../geometry/part.js';
 import { type PathStep, type Pt, circleLoop, pathLoop, polygonLoop, rectangleLoop, slotLoop } from '../geometry/shapes.js';
@@ -374,6 +374,12 @@ function withPrefix<T>(prefix: string, body: () => T): T {
     if (e instanceof InputError) throw new InputError(e.where ? `${prefix}.${e.where}` : prefix, e.detail);
     throw e;
   }
+}
+
+/** A part file as plate models; a drawing's unit option is refused (a part file states its own "units"). */
+export function partFileModels(text: string, label: string, units: unknown): PlateModel[] {
+  if (units !== undefined) throw new OptionError('units', 'applies to drawings (SVG, DXF, GeoJSON, WKT); a part file states its own "units"');
+  return [readPlateModel(text, label)];
 }
 
 /** Read a part file with its thickness, density, material and layers. */

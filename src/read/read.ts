@@ -6,7 +6,7 @@
 import { InputError, OptionError } from '../base/errors.js';
 import { readDxf } from './dxf.js';
 import type { Part } from '../geometry/part.js';
-import { type LengthUnit, isLengthUnit, LENGTH_UNITS } from '../base/units.js';
+import type { LengthUnit } from '../base/units.js';
 import { type InputFormat, detectFormat } from './detect.js';
 import type { Drawing, DrawingUnits } from './drawing.js';
 import { readGeoJsonDrawing } from './geojson.js';
@@ -16,8 +16,7 @@ import { readSvgDrawing } from './svg.js';
 import { readWktDrawing } from './wkt.js';
 
 export type { InputFormat };
-export const INPUT_FORMATS: readonly InputFormat[] = ['part-json', 'svg', 'dxf', 'geojson', 'wkt'];
-
+export { INPUT_FORMATS, checkReadOptions } from './detect.js';
 export interface ReadOptions extends InterpretOptions {
   format?: InputFormat;
   /** Length unit of drawing coordinates (SVG user units, GeoJSON/WKT coordinates). */
@@ -39,17 +38,6 @@ export interface ReadResult {
   summary: InterpretationSummary;
   /** Marking and ignored geometry, for drawings (empty for part files). */
   notCut: NotCut;
-}
-
-/** Check option values given as text (from the command line). */
-export function checkReadOptions(format: unknown, units: unknown): ReadOptions {
-  if (format !== undefined && !INPUT_FORMATS.includes(format as InputFormat)) {
-    throw new OptionError('format', `expected one of ${INPUT_FORMATS.join(', ')}, got "${String(format)}"`);
-  }
-  if (units !== undefined && !isLengthUnit(units)) {
-    throw new OptionError('units', `expected one of ${Object.keys(LENGTH_UNITS).join(', ')}, got "${String(units)}"`);
-  }
-  return { format: format as InputFormat | undefined, units: units as LengthUnit | undefined };
 }
 
 function formatOf(text: string, label: string, options: ReadOptions): InputFormat {

@@ -1,6 +1,6 @@
 /**
- * `platewise batch` through the built command line (workers load dist/src/batch/worker.js; build with
- * `npx tsc -p .` first): generated parts with closed-form figures, one malformed part, exit statuses,
+ * `platewise batch` through the built command line (workers load the bundled dist/cli/worker.js; build
+ * with `npm run build` first): generated parts with closed-form figures, one malformed part, exit statuses,
  * identical results with 1 and 2 workers, output-file rules.
  */
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
