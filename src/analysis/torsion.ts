@@ -21,14 +21,14 @@
  */
 import { type Part, allLoops } from '../geometry/part.js';
 import { ops } from '../geometry/segments.js';
-import { buildMesh, type MeshOptions } from '../mesh/build.js';
+import { buildMesh, integrandChordLength, type MeshOptions } from '../mesh/build.js';
 import { type Mesh, countCurved } from '../mesh/mesh.js';
 import { refineUniform } from '../mesh/refine.js';
 import type { Quantity } from '../properties/quantities.js';
 import { DEFAULT_DEGREE } from '../quadrature/rules.js';
 import type { StopReason } from '../quadrature/stop.js';
 import { exactFigures, preparePart } from './measure.js';
-import { type TorsionLevelValues, solveTorsionOnMesh } from './torsionSolve.js';
+import { type TorsionLevelValues, solveTorsionLevels } from './torsionSolve.js';
 import { OptionError } from '../base/errors.js';
 
 export const TORSION_SAFETY = 2;
@@ -39,7 +39,7 @@ export const DEFAULT_TORSION_TRIANGLES = 400;
  * inexact solve is quadratic in the solve error; the shear centre's is linear and was measured at about
  * 1e-11 relative between targets 1e-10 and 1e-13. Tighter targets stall on round-off for large systems.
  */
-export const TORSION_SOLVE_TOL = 1e-10;
+export const TORSION_SOLVE_TOL = 1e-12;
 
 export interface TorsionOptions extends MeshOptions {
   /** Element order 2–4 (default 3). */
@@ -115,13 +115,14 @@ export function measureTorsion(input: Part, options: TorsionOptions = {}): Torsi
   }
   const degree = options.degree ?? DEFAULT_DEGREE;
   const part = preparePart(input);
-  const { mesh: base } = buildMesh(part, options);
-  let coarse: Mesh = base;
-  while (coarse.count < minTriangles) coarse = refineUniform(coarse);
-  const fine = refineUniform(coarse);
-  const solveOpts = { order, curvedDegree: degree, tol: TORSION_SOLVE_TOL };
-  const c = solveTorsionOnMesh(coarse, solveOpts);
-  const f = solveTorsionOnMesh(fine, solveOpts);
+  // long straight edges are chopped (as for non-polynomial integrands): a straight edge left whole becomes
+  // the base of a fan of slivers, which slows the solver's smoothing and the convergence of the values
+  const { mesh: base } = buildMesh(part, { ...options, maxStraight: options.maxStraight ?? integrandChordLength(part, options) });
+  const meshes: Mesh[] = [base];
+  while (meshes[meshes.length - 1].count < minTriangles) meshes.push(refineUniform(meshes[meshes.length - 1]));
+  meshes.push(refineUniform(meshes[meshes.length - 1]));
+  const coarse = meshes[meshes.length - 2], fine = meshes[meshes.length - 1];
+  const [c, f] = solveTorsionLevels(meshes, { order, curvedDegree: degree, tol: TORSION_SOLVE_TOL });
   const o = base.origin;
   const eps = Number.EPSILON;
   // representation allowance (src/properties/section.ts): every segment may lie δ from the described one;
