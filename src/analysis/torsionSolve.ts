@@ -69,6 +69,12 @@ export interface TorsionLevelValues {
   jMagnitude: number;
   /** largest |ω_S| met at a quadrature point plus its linear part's size (round-off of Iw) */
   warpingMagnitude: number;
+  /**
+   * largest shear-stress magnitude per unit twist, |τ|/(Gθ) = |∇ω + (−y, x)|, over the evaluation lattice
+   * (edges and vertices included), and where it occurs (local coordinates)
+   */
+  stressPerTwist: number;
+  stressAt: [number, number];
   /** D / (Ix·Iy): near 0 when the second-moment matrix is ill-conditioned */
   shearCentreConditioning: number;
   iterations: number;
@@ -346,8 +352,10 @@ function torsionValues(S: TorsionSystem, omega: Float64Array, rec: SolveRecord):
     if (mag > big) big = mag;
     addCompensated(iw, iwC, 0, w * v * v);
   });
+  const peak = largestStress(S, omega, map);
   return {
     triangles: mesh.count, curvedTriangles: S.curvedCount, unknowns: total,
+    stressPerTwist: peak.value, stressAt: peak.at,
     J, shearCentre: [xs, ys], Iw: iw[0] + iwC[0],
     centroid: [cx, cy], area, polarAtOrigin,
     jMagnitude: Math.abs(polarAtOrigin) + Math.abs(2 * fw) + Math.abs(wKw),
@@ -355,6 +363,39 @@ function torsionValues(S: TorsionSystem, omega: Float64Array, rec: SolveRecord):
     shearCentreConditioning: D / (Ix * Iy),
     iterations: rec.iterations, residual: rec.residual, converged: rec.converged, preconditionerShift: rec.preconditionerShift,
   };
+}
+
+/**
+ * Largest |∇ω + (−y, x)| over a lattice of order k + 2 in every triangle: its vertices, edges and interior,
+ * pulled 1e-9 toward the centre (the curved map divides by zero exactly at a vertex of a curved edge).
+ * The magnitude squared is subharmonic (the Prandtl stress function φ has ∇²φ = −2, so ∇²|∇φ|² = 2Σφ_ij²
+ * ≥ 0), so the largest value lies on the boundary, which the lattice covers in every boundary triangle.
+ */
+function largestStress(S: TorsionSystem, omega: Float64Array, map: TriangleMap): { value: number; at: [number, number] } {
+  const { mesh, dofs, nodes, order: k } = S;
+  const m = k + 2, pts: number[][] = [];
+  for (let i = 0; i <= m; i++) for (let j = 0; i + j <= m; j++) pts.push([i / m, j / m]);
+  const shrink = 1e-9, l1 = new Float64Array(pts.length), l2 = new Float64Array(pts.length);
+  for (let q = 0; q < pts.length; q++) { l1[q] = shrink / 3 + (1 - shrink) * pts[q][0]; l2[q] = shrink / 3 + (1 - shrink) * pts[q][1]; }
+  const tab = lagrangeTable(k, l1, l2);
+  let best = -1;
+  const at: [number, number] = [0, 0];
+  for (let t = 0; t < mesh.count; t++) {
+    map.load(mesh, t);
+    const base = t * nodes;
+    for (let q = 0; q < pts.length; q++) {
+      map.at(l1[q], l2[q]);
+      let wu = 0, wv = 0;
+      const off = q * nodes;
+      for (let i = 0; i < nodes; i++) { const o = omega[dofs[base + i]]; wu += tab.du[off + i] * o; wv += tab.dv[off + i] * o; }
+      const det = map.jac;
+      const wx = (map.yv * wu - map.yu * wv) / det, wy = (map.xu * wv - map.xv * wu) / det;
+      const tx = wx - map.y, ty = wy + map.x;
+      const v = tx * tx + ty * ty;
+      if (v > best) { best = v; at[0] = map.x; at[1] = map.y; }
+    }
+  }
+  return { value: Math.sqrt(best), at };
 }
 
 /** Visit every quadrature point with its weight (area element), local point and ω value. */
