@@ -281,6 +281,30 @@ export function torsionProlongation(coarse: TorsionSystem, fine: TorsionSystem):
   return { n: nF, rowPtr, col: col.slice(0, e), val: val.slice(0, e) };
 }
 
+/**
+ * Prolongation from the linear space to the order-k space on the same mesh: each order-k unknown takes the
+ * linear function's value at its node, Σ λ_j v_j with λ the node's barycentric coordinates.
+ */
+export function orderProlongation(linear: TorsionSystem, high: TorsionSystem): CsrMatrix {
+  if (linear.order !== 1 || linear.mesh !== high.mesh) throw new Error('orderProlongation: needs the linear and the order-k system of one mesh');
+  const k = high.order, nodes = high.nodes, alpha = lagrangeNodes(k);
+  const nH = high.total;
+  const source = new Int32Array(nH).fill(-1);
+  for (let e = 0; e < high.dofs.length; e++) if (source[high.dofs[e]] < 0) source[high.dofs[e]] = e;
+  const rowPtr = new Int32Array(nH + 1), col = new Int32Array(3 * nH), val = new Float64Array(3 * nH);
+  let n = 0;
+  for (let g = 0; g < nH; g++) {
+    const t = (source[g] / nodes) | 0, i = source[g] - t * nodes;
+    for (let j = 0; j < 3; j++) {
+      const w = alpha[3 * i + j] / k;
+      if (w === 0) continue;
+      col[n] = linear.dofs[3 * t + j]; val[n] = w; n++;
+    }
+    rowPtr[g + 1] = n;
+  }
+  return { n: nH, rowPtr, col: col.slice(0, n), val: val.slice(0, n) };
+}
+
 /** How the algebraic solve of one level went. */
 export interface SolveRecord { iterations: number; residual: number; converged: boolean; preconditionerShift: number }
 
@@ -292,9 +316,12 @@ export interface SolveRecord { iterations: number; residual: number; converged: 
  */
 export function solveTorsionLevels(meshes: readonly MeshView[], opts: TorsionSolveOptions): [TorsionLevelValues, TorsionLevelValues] {
   if (meshes.length < 2) throw new Error('solveTorsionLevels: needs at least two levels');
-  const systems = meshes.map((m) => assembleTorsion(m, opts));
-  const P: CsrMatrix[] = [];
-  for (let l = 1; l < systems.length; l++) P.push(torsionProlongation(systems[l - 1], systems[l]));
+  // below the order-k levels: the linear (order-1) space on the base mesh, so that the level factorised
+  // directly stays small even when the base mesh is large (a plate with many holes)
+  const linear = assembleTorsion(meshes[0], { order: 1, curvedDegree: opts.curvedDegree });
+  const systems = [linear, ...meshes.map((m) => assembleTorsion(m, opts))];
+  const P: CsrMatrix[] = [orderProlongation(linear, systems[1])];
+  for (let l = 2; l < systems.length; l++) P.push(torsionProlongation(systems[l - 1], systems[l]));
   const mg = new MultigridCycle(systems.map((s) => s.K), P);
   const top = systems.length - 1;
   const out: TorsionLevelValues[] = [];

@@ -68,19 +68,8 @@ export class MultigridCycle implements Preconditioner {
     this.coarse = envelopeCholesky(matrices[0]);
   }
 
-  /** Unknowns of level `l`. */
-  size(l: number): number { return this.levels[l].A.n; }
-
-  /** Null directions grounded on the coarsest level (one per connected part for a Neumann problem). */
-  get coarseNulls(): number { return this.coarse.nulls; }
-
   apply(r: Float64Array, z: Float64Array): void {
     this.cycle(this.levels.length - 1, r, z);
-  }
-
-  /** The cycle on level `l` with a preconditioner for a lower level: the hierarchy below it. */
-  applyAt(l: number, r: Float64Array, z: Float64Array): void {
-    this.cycle(l, r, z);
   }
 
   /** Preconditioner of level l as an object (for conjugate gradients on that level). */
