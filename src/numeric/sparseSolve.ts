@@ -12,6 +12,7 @@
  */
 import type { CsrMatrix } from './sparse.js';
 import { csrMultiply } from './sparse.js';
+import type { Preconditioner } from './multigrid.js';
 import { permuteSymmetric, reverseCuthillMcKee } from './sparseOrder.js';
 
 export interface IncompleteCholesky {
@@ -130,14 +131,24 @@ export function solveSpd(A: CsrMatrix, b: Float64Array, options: SolveOptions = 
 }
 
 function solvePcg(A: CsrMatrix, b: Float64Array, options: SolveOptions): SolveResult {
+  const F = incompleteCholesky(A);
+  const r = conjugateGradients(A, b, { apply: (res, z) => applyIncompleteCholesky(F, res, z) }, options);
+  return { ...r, shift: F.shift };
+}
+
+/**
+ * Conjugate gradients on A x = b with any symmetric positive definite preconditioner (IC(0) above, or a
+ * multigrid cycle: src/numeric/multigrid.ts). A may be singular (a Neumann problem) if b is orthogonal to
+ * its null space. `shift` of the result is 0 (the preconditioner's business).
+ */
+export function conjugateGradients(A: CsrMatrix, b: Float64Array, M: Preconditioner, options: SolveOptions = {}): SolveResult {
   const n = A.n;
   const tol = options.tol ?? 1e-13;
   const maxIt = options.maxIterations ?? 10 * n + 100;
-  const F = incompleteCholesky(A);
   const x = options.x0 ? Float64Array.from(options.x0) : new Float64Array(n);
   const r = new Float64Array(n), z = new Float64Array(n), p = new Float64Array(n), q = new Float64Array(n);
   const bn = Math.sqrt(dot(b, b));
-  if (bn === 0) return { x: new Float64Array(n), iterations: 0, residual: 0, converged: true, shift: F.shift };
+  if (bn === 0) return { x: new Float64Array(n), iterations: 0, residual: 0, converged: true, shift: 0 };
   const trueResidual = (): number => {
     csrMultiply(A, x, q);
     for (let i = 0; i < n; i++) r[i] = b[i] - q[i];
@@ -148,7 +159,7 @@ function solvePcg(A: CsrMatrix, b: Float64Array, options: SolveOptions): SolveRe
   // restarts from the true residual: stop when one no longer halves it (round-off floor reached)
   for (let restart = 0, before = Infinity; restart < 3 && res > tol && it < maxIt && res < before / 2; restart++) {
     before = res;
-    applyIncompleteCholesky(F, r, z);
+    M.apply(r, z);
     p.set(z);
     let rz = dot(r, z);
     while (it < maxIt) {
@@ -159,7 +170,7 @@ function solvePcg(A: CsrMatrix, b: Float64Array, options: SolveOptions): SolveRe
       for (let i = 0; i < n; i++) { x[i] += alpha * p[i]; r[i] -= alpha * q[i]; }
       it++;
       if (Math.sqrt(dot(r, r)) <= tol * bn) break;
-      applyIncompleteCholesky(F, r, z);
+      M.apply(r, z);
       const rz1 = dot(r, z);
       const beta = rz1 / rz;
       rz = rz1;
@@ -167,7 +178,7 @@ function solvePcg(A: CsrMatrix, b: Float64Array, options: SolveOptions): SolveRe
     }
     res = trueResidual();
   }
-  return { x, iterations: it, residual: res, converged: res <= tol, shift: F.shift };
+  return { x, iterations: it, residual: res, converged: res <= tol, shift: 0 };
 }
 
 function dot(a: Float64Array, b: Float64Array): number {

@@ -52,19 +52,19 @@ function netSectionText(n: NetSectionResult, from: LengthUnit, to: LengthUnit, o
 
 const SECTION_KEYS = ['area', 'centroidX', 'centroidY', 'Ix', 'Iy', 'Ixy', 'I1', 'I2', 'principalAngle', 'SxTop', 'SxBottom', 'SyRight', 'SyLeft'] as const;
 const PLASTIC_KEYS = ['Zx', 'Zy', 'Z1', 'Z2', 'plasticAxisY', 'plasticAxisX', 'plasticAxis1', 'plasticAxis2', 'S1', 'S2', 'fibre1', 'fibre2', 'shapeFactorX', 'shapeFactorY', 'shapeFactor1', 'shapeFactor2'] as const;
-const TORSION_KEYS = ['J', 'shearCentreX', 'shearCentreY', 'Iw'] as const;
+const TORSION_KEYS = ['J', 'shearCentreX', 'shearCentreY', 'Iw', 'tauPerTorque', 'tauAtX', 'tauAtY'] as const;
 
-function convert(key: string, q: Quantity, from: LengthUnit, to: LengthUnit): { value: number; error: number; unit: string } {
+function convert(key: string, q: Quantity, from: LengthUnit, to: LengthUnit): { value: number; error: number; unit: string; errorIsBound?: false } {
   const info = quantityInfo(key)!;
   const p = LENGTH_POWER[info.dimension] ?? 0;
   const f = lengthFactor(from, to) ** p;
-  return { value: q.value * f, error: q.error * f, unit: unitText(info.dimension, to) };
+  return { value: q.value * f, error: q.error * f, unit: unitText(info.dimension, to), ...(q.errorIsBound === false ? { errorIsBound: false as const } : {}) };
 }
 
 export function torsionFactText(f: TorsionFact): string {
   switch (f.code) {
     case 'reentrant-corners':
-      return `The section has ${f.count} re-entrant corner${f.count === 1 ? '' : 's'} (largest interior angle ${formatNumber(f.largestAngle, 4)}°): the torsion estimates rest on the asymptotic convergence rate there and may understate the error (the mesh is not graded toward corners).`;
+      return `The section has ${f.count} re-entrant corner${f.count === 1 ? '' : 's'} (largest interior angle ${formatNumber(f.largestAngle, 4)}°): the mesh is graded toward ${f.count === 1 ? 'it' : 'them'} and the estimates of J, the shear centre and Iw rest on the convergence rate there (checked against much finer solves, not proven); the shear stress is infinite at a sharp re-entrant corner, so tauPerTorque is only the value on this mesh, not a bound (a fillet of radius r makes it finite).`;
     case 'solve-not-converged':
       return `The linear solve stopped at relative residual ${formatError(f.residual)} above its target; the torsion values may be less accurate than their estimates say.`;
     case 'upper-bound-violated':
@@ -77,7 +77,7 @@ export function torsionFactText(f: TorsionFact): string {
 function rows(r: MemberResult, keys: readonly string[], src: Record<string, Quantity>, to: LengthUnit, out: string[]): void {
   for (const k of keys) {
     const c = convert(k, src[k], r.units, to);
-    out.push(`  ${k.padEnd(14)} ${formatValue(c.value, c.error).padStart(18)} ± ${formatError(c.error).padEnd(8)} ${c.unit}`);
+    out.push(`  ${k.padEnd(14)} ${formatValue(c.value, c.error).padStart(18)} ± ${formatError(c.error).padEnd(8)} ${c.unit}${c.errorIsBound === false ? ' (± an estimate, not a bound)' : ''}`.trimEnd());
   }
 }
 

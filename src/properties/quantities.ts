@@ -21,13 +21,13 @@ export interface Quantity {
  * 'angle' is in degrees, 'count' is a plain number.
  */
 export type Dimension =
-  | 'length' | 'area' | 'length3' | 'length4' | 'length6'
+  | 'length' | 'area' | 'length3' | 'length4' | 'length6' | 'perLength3'
   | 'angle' | 'count' | 'ratio'
   | 'mass' | 'massMoment' | 'force';
 
 /** Powers of length in each length-based dimension (for unit conversion). */
 export const LENGTH_POWER: Partial<Record<Dimension, number>> = {
-  length: 1, area: 2, length3: 3, length4: 4, length6: 6,
+  length: 1, area: 2, length3: 3, length4: 4, length6: 6, perLength3: -3,
 };
 
 export type QuantityGroup = 'section' | 'mass' | 'fabrication' | 'torsion' | 'plastic';
@@ -97,6 +97,9 @@ export const QUANTITIES = [
   { key: 'shearCentreX', group: 'torsion', dimension: 'length', description: 'shear centre, x (Trefftz: warping orthogonal to x and y)' },
   { key: 'shearCentreY', group: 'torsion', dimension: 'length', description: 'shear centre, y' },
   { key: 'Iw', group: 'torsion', dimension: 'length6', description: 'warping constant ∫ω² dA, ω about the shear centre with ∫ω dA = 0' },
+  { key: 'tauPerTorque', group: 'torsion', dimension: 'perLength3', description: 'largest Saint-Venant shear stress per unit torque, τmax/T = |∇ω + (−y, x)|max / J (infinite at a re-entrant corner)' },
+  { key: 'tauAtX', group: 'torsion', dimension: 'length', description: 'where the largest shear stress occurs, x (finest mesh; an estimate, not a bound)' },
+  { key: 'tauAtY', group: 'torsion', dimension: 'length', description: 'where the largest shear stress occurs, y' },
   { key: 'Zx', group: 'plastic', dimension: 'length3', description: 'plastic section modulus for bending about an axis parallel to x, ∫|y − y_p| dA' },
   { key: 'Zy', group: 'plastic', dimension: 'length3', description: 'plastic section modulus for bending about an axis parallel to y, ∫|x − x_p| dA' },
   { key: 'Z1', group: 'plastic', dimension: 'length3', description: 'plastic section modulus for bending about the major principal axis' },
@@ -153,6 +156,7 @@ export function unitText(dim: Dimension, length: string, mass = 'kg'): string {
     case 'length3': return `${length}³`;
     case 'length4': return `${length}⁴`;
     case 'length6': return `${length}⁶`;
+    case 'perLength3': return `${length}⁻³`;
     case 'angle': return '°';
     case 'count': return '';
     case 'ratio': return '';

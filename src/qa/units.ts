@@ -54,6 +54,7 @@ export const UNIT_EXAMPLES: Record<Dimension, string> = {
   length3: 'mm³, cm³, in³ (or mm3, mm^3)',
   length4: 'mm⁴, cm⁴, in⁴ (or mm4, mm^4)',
   length6: 'mm⁶, cm⁶, in⁶ (or mm6, mm^6)',
+  perLength3: 'not accepted in a stated-values file',
   angle: 'deg (or °), rad',
   count: 'no unit',
   ratio: 'no unit, or %',
@@ -107,6 +108,7 @@ export function reportScale(dim: Dimension, lengthUnit: LengthUnit): number {
     case 'length3': return PART_TICKS[lengthUnit] ** 3;
     case 'length4': return PART_TICKS[lengthUnit] ** 4;
     case 'length6': return PART_TICKS[lengthUnit] ** 6;
+    case 'perLength3': return PART_TICKS[lengthUnit] ** -3;
     case 'angle': return 1;
     case 'count': return 1;
     case 'ratio': return 100; // a plain fraction is 100 ticks of %

@@ -116,7 +116,7 @@ export function defaultTolerance(
       const t = 0.01 / MM[context.lengthUnit] + 1e-4 * context.partSize;
       return { tolerance: { kind: 'absolute', value: t }, text: 'default: 0.01 mm + 0.01% of part size' };
     }
-    case 'area': case 'length3': case 'length4': case 'length6': {
+    case 'area': case 'length3': case 'length4': case 'length6': case 'perLength3': {
       const pair = PRODUCT_SCALE[key];
       if (pair) {
         const a = quantities[pair[0]], b = quantities[pair[1]];

@@ -169,6 +169,28 @@ function wallPair(a: string[], b: string[], reps: number): [number, number] {
   return [ta[ta.length >> 1], tb[tb.length >> 1]];
 }
 
+if (want('torsion')) {
+  // whole processes of tests/bench/torsion.js (order 3, the bench plate): wall time, and the child's own
+  // line (triangles, iterations, peak RSS); growth exponents of time and memory per 4× triangles
+  const run = (minTriangles: number) => {
+    const t = performance.now();
+    const r = spawnSync(process.execPath, [join(ROOT, 'dist', 'tests', 'bench', 'torsion.js'), String(minTriangles), '3'], { cwd: ROOT, encoding: 'utf8' });
+    const ms = performance.now() - t;
+    if (r.status !== 0) throw new Error(`torsion bench failed: ${r.stderr}`);
+    const tri = Number(/(\d+) triangles/.exec(r.stdout)![1]), rss = Number(/rss (\d+) MiB/.exec(r.stdout)![1]);
+    return { minTriangles, ms, tri, rss, line: r.stdout.trim() };
+  };
+  const pts = (quick ? [1300, 5200] : [1300, 5200, 20800]).map(run);
+  results.torsion = pts;
+  const p0 = pts[0];
+  rows.push({ case: `torsion and shear centre, ${p0.tri} curved-mesh triangles, order 3 (whole process)`, ours: f(p0.ms), peer: '', ratio: '', target: '≤ 2000 ms at 10^4', met: p0.ms <= 2000 * (p0.tri / 1e4) ** 1.2 ? 'yes' : 'no' });
+  for (let i = 1; i < pts.length; i++) {
+    const a = pts[i - 1], b = pts[i], k = Math.log(b.tri / a.tri);
+    const et = Math.log(b.ms / a.ms) / k, em = Math.log(b.rss / a.rss) / k;
+    rows.push({ case: `torsion growth ${a.tri}→${b.tri} triangles: time, memory exponents`, ours: `${et.toFixed(2)}, ${em.toFixed(2)}`, peer: `${f(b.ms)} ms, ${b.rss} MiB`, ratio: '', target: '≤ 1.2', met: et <= 1.2 && em <= 1.2 ? 'yes' : 'no' });
+  }
+}
+
 if (want('drawings')) {
   // reading drawings: the same plate in two formats, whole process against whole process
   const dir = join(tmpdir(), `platewise-bench-drawings-${process.pid}`);
