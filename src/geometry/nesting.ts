@@ -13,7 +13,7 @@
 import { overlappingPairs } from './boxgrid.js';
 import type { Loop, Region } from './part.js';
 import { loopBox, loopSignedArea } from './part.js';
-import { type Box, type Segment, ops, segmentEnd, segmentPoint, segmentStart } from './segments.js';
+import { type Box, type Segment, ops, segmentPoint, segmentStart } from './segments.js';
 
 interface Piece { s: Segment; ta: number; tb: number; ya: number; yb: number; xMax: number }
 
@@ -41,14 +41,20 @@ function prepared(loop: Loop): Prepared {
 
 function prepare(loop: Loop): Prepared {
   const pieces: Prepared['pieces'] = [];
-  for (const s of loop.segments) {
+  const segs = loop.segments;
+  for (let i = 0; i < segs.length; i++) {
+    const s = segs[i];
     const o = ops(s);
     const cuts = [0, ...o.yTurns(s), 1];
     const xMax = o.bbox(s)[2];
+    // one height per vertex: a segment ends at the height the next one starts at. An arc's end computed from
+    // its angle can differ from the next line's exact start in the last bit, and the half-open rule below
+    // then counts that vertex twice or never (a ray through it gave the wrong side)
+    const yEnd = segmentStart(segs[(i + 1) % segs.length])[1];
     for (let k = 0; k + 1 < cuts.length; k++) {
       const ta = cuts[k], tb = cuts[k + 1];
       const ya = ta === 0 ? segmentStart(s)[1] : segmentPoint(s, ta)[1];
-      const yb = tb === 1 ? segmentEnd(s)[1] : segmentPoint(s, tb)[1];
+      const yb = tb === 1 ? yEnd : segmentPoint(s, tb)[1];
       pieces.push({ s, ta, tb, ya, yb, xMax });
     }
   }

@@ -86,3 +86,27 @@ describe('nestLoops', () => {
     expect(g[0][0].holes[0].where).toBe('e');
   });
 });
+
+describe('pointInLoop with a ray through vertices', () => {
+  it('counts a vertex where an arc meets a line once, though the arc end computed from its angle is off in the last bit', () => {
+    // the gusset sample's outline (invented demo data): a semicircular lobe from (420, 120) to (300, 120) about
+    // (360, 120), bulging up; 120 + 60·sin(π) is not exactly 120, while the next line starts exactly at y = 120. The
+    // expected sides are by construction (common practice, no source): every point below is inside the plate.
+    const loop: Loop = {
+      where: 'gusset',
+      segments: [
+        { kind: 'line', x0: 0, y0: 0, x1: 420, y1: 0 },
+        { kind: 'line', x0: 420, y0: 0, x1: 420, y1: 120 },
+        { kind: 'arc', cx: 360, cy: 120, r: 60, a0: 0, a1: Math.PI },
+        { kind: 'line', x0: 300, y0: 120, x1: 120, y1: 300 },
+        { kind: 'line', x0: 120, y0: 300, x1: 0, y1: 300 },
+        { kind: 'line', x0: 0, y0: 300, x1: 0, y1: 0 },
+      ],
+    };
+    expect(segmentPoint(loop.segments[2], 1)[1]).not.toBe(120); // the premise: the arc's end is not exact
+    for (const x of [5, 65, 200, 299]) expect(pointInLoop(x, 120, loop)).toBe(true);
+    expect(pointInLoop(350, 150, loop)).toBe(true); // inside the lobe
+    expect(pointInLoop(360, 190, loop)).toBe(false); // above it
+    expect(pointInLoop(430, 120, loop)).toBe(false);
+  });
+});
