@@ -2,6 +2,26 @@ import type { Command } from 'commander';
 import { intArg, addDrawingOptions } from '../options.js';
 import { run } from '../run.js';
 
+const COMPARE_HELP = `
+Stated values (--reference), CSV with a header or JSON:
+  quantity,value,unit,tolerance,note
+  area,34913,mm2,,from the customer sheet
+  cutLength,1258.7,mm,0.5 mm,all contours
+  JSON: {"part": "<name, optional>", "values": [{"quantity", "value", "unit", "tolerance", "note"}]}
+  quantity   any key of measure --json (area, centroidX, Ix, cutLength, pierces, netMass, ...)
+  unit       always converted, never assumed (in2 -> mm2 is exactly 645.16); empty for counts
+  tolerance  optional: "0.5%", "0.002 rel", "0.05 mm", or a bare number for counts and ratios
+  note       optional free text, shown under the table and in JSON and CSV
+
+Default tolerances (common practice, no source), where a row gives none:
+  lengths 0.01 mm + 0.01 % of the part size; areas, moments, moduli 0.1 %; products of inertia
+  0.1 % of Ix + Iy; angles 0.05 degrees; counts exact; ratios 0.001; masses and forces 0.5 %.
+  --digits-tolerance: half a unit in the last written digit instead (0.588 m: +/- 0.0005 m).
+Verdict: pass when |difference| + our estimate <= tolerance; fail when |difference| - estimate
+  > tolerance; inconclusive otherwise, or when the quantity was not computed.
+
+Exit status: 0 every stated value passes; 1 any fails or is inconclusive; 2 bad input.`;
+
 export function defineCompare(program: Command): void {
   addDrawingOptions(program
     .command('compare')
@@ -18,6 +38,6 @@ export function defineCompare(program: Command): void {
     .option('--part <name>', 'which part, when the file holds several')
     .option('--degree <n>', 'Dunavant rule degree on curved triangles (1-20)', intArg('--degree'))
     .option('--levels <n>', 'uniform refinements after the base mesh (the last two give the estimate)', intArg('--levels'))
-    .addHelpText('after', '\nExit status: 0 every stated value passes; 1 any fails or is inconclusive; 2 bad input.'))
+    .addHelpText('after', COMPARE_HELP))
     .action((file: string, opts) => run(async () => (await import('./compare.js')).compare(file, opts)));
 }

@@ -183,3 +183,15 @@ describe('compare: bad input exits 2 with one line', () => {
     expect(r.stderr).toMatch(/nope\.json: no such file/);
   });
 });
+
+describe('compare --help', () => {
+  it('describes the stated-values file, the default tolerances and the verdict rule', () => {
+    const r = platewise(['compare', '--help']);
+    expect(r.status).toBe(0);
+    for (const s of ['quantity,value,unit,tolerance,note', '"values"', 'Default tolerances', 'lengths 0.01 mm + 0.01 % of the part size', 'masses and forces 0.5 %', '--digits-tolerance', 'inconclusive', 'Exit status']) {
+      expect(r.stdout).toContain(s);
+    }
+    // every line fits 100 columns
+    for (const line of r.stdout.split('\n')) expect(line.length).toBeLessThanOrEqual(100);
+  });
+});
