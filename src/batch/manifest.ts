@@ -39,7 +39,10 @@ import { type CsvDialect, RFC_4180, csvWhere, decimalCommaCell, otherSeparator, 
 import { type InputFormat, INPUT_FORMATS } from '../read/read.js';
 import type { MaterialTable } from '../model/index.js';
 import { type PlateSettings, checkSettings } from '../model/plate.js';
-import { type StatedValue, checkQuantity, splitValueText, suggestKey, unitFor } from '../qa/reference.js';
+import { type StatedValue, checkQuantity, splitValueText, suggestQuantities, unitFor } from '../qa/reference.js';
+
+/** Words for the number of pieces, which is the "quantity" column. */
+const PIECE_WORDS = ['qty', 'pcs', 'pieces', 'count', 'number', 'no'];
 import { QUANTITIES } from '../properties/quantities.js';
 import { type LengthUnit, isLengthUnit } from '../base/units.js';
 
@@ -112,8 +115,10 @@ export function parseManifest(text: string, label: string, baseDir: string, opti
       dim = checkQuantity(c.name, at, {});
     } catch {
       const keys = [...FIXED, ...QUANTITIES.map((q) => q.key)];
-      const s = suggestKey(c.name, keys);
-      throw new InputError(at, `unknown column "${c.header}"${s ? `; did you mean "${s}"?` : ''}; expected file, quantity, material, thickness, density, reference, format, units, note, or a quantity key with its unit such as "area [mm²]"`);
+      const plain = c.name.toLowerCase().replace(/[^a-z]/g, '');
+      const r = PIECE_WORDS.includes(plain) ? { keys: ['quantity'] } : suggestQuantities(c.name, keys);
+      const s = 'keys' in r && r.keys.length > 0 ? r.keys.map((k) => `"${k}"`).join(' or ') : undefined;
+      throw new InputError(at, `unknown column "${c.header}"${s ? `; did you mean ${s}?` : ''}; expected file, quantity, material, thickness, density, reference, format, units, note, or a quantity key with its unit such as "area [mm²]"`);
     }
     if (c.unit !== null) unitFor(dim, c.unit, `${at} (column "${c.header}")`);
     statedCols.push({ header: c.header, key: c.name, dimension: dim, unit: c.unit });

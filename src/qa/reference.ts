@@ -89,11 +89,64 @@ function knownKeys(_options: ReferenceOptions): string[] {
   return QUANTITIES.map((q) => q.key);
 }
 
+/**
+ * Words people write for a quantity, by meaning (our own list; lower case, spaces and punctuation dropped).
+ * Checked before spelling, so that "Sx" leads to the section moduli and "qty" is not taken for "Iy".
+ */
+const MEANINGS: Readonly<Record<string, readonly string[]>> = {
+  a: ['area'], netarea: ['area'], grossarea: ['area'],
+  sx: ['SxTop', 'SxBottom'], sy: ['SyRight', 'SyLeft'], wx: ['SxTop', 'SxBottom'], wy: ['SyRight', 'SyLeft'],
+  zx: ['Zx'], zy: ['Zy'], zpl: ['Zx', 'Zy'], wpl: ['Zx', 'Zy'], wply: ['Zx'], wplz: ['Zy'],
+  xbar: ['centroidX'], ybar: ['centroidY'], xc: ['centroidX'], yc: ['centroidY'], cx: ['centroidX'], cy: ['centroidY'],
+  cgx: ['massCentreX'], cgy: ['massCentreY'], cogx: ['massCentreX'], cogy: ['massCentreY'],
+  ixx: ['Ix'], iyy: ['Iy'], izz: ['Ip'], ix0: ['IxOrigin'], iy0: ['IyOrigin'], imax: ['I1'], imin: ['I2'], j0: ['Ip'], polar: ['Ip'],
+  it: ['J'], torsionconstant: ['J'], k: ['J'], cw: ['Iw'], warping: ['Iw'],
+  kg: ['netMass', 'mass'], weight: ['weight'], netweight: ['netMass'], grossmass: ['blankMass'],
+  holes: ['pierces'], piercings: ['pierces'], starts: ['pierces'],
+  cut: ['cutLength'], cutting: ['cutLength'], cutlen: ['cutLength'], perim: ['perimeter'],
+  angle: ['principalAngle'], alpha: ['principalAngle'], theta: ['principalAngle'],
+  scrap: ['scrapFraction'], waste: ['scrapFraction'],
+};
+
+/** Names that are columns or settings, not stated quantities: what to write instead. */
+const NOT_QUANTITIES: Readonly<Record<string, string>> = {
+  qty: 'the number of pieces is not a stated value; in a batch manifest it is the "quantity" column',
+  pcs: 'the number of pieces is not a stated value; in a batch manifest it is the "quantity" column',
+  pieces: 'the number of pieces is not a stated value; in a batch manifest it is the "quantity" column',
+  thickness: 'thickness is a setting, not a stated value: give it in the part file, the manifest or --thickness',
+  density: 'density is a setting, not a stated value: give it with --density, --material or the part file',
+  material: 'material is a setting, not a stated value: give it with --material or the part file',
+};
+
+/** Suggestions for an unknown quantity name: by meaning first, then keys it begins, then spelling. */
+export function suggestQuantities(name: string, keys: readonly string[]): { keys: string[] } | { instead: string } {
+  const plain = name.toLowerCase().replace(/[^a-z0-9]/g, '');
+  if (NOT_QUANTITIES[plain]) return { instead: NOT_QUANTITIES[plain] };
+  const meant = MEANINGS[plain]?.filter((k) => keys.includes(k));
+  if (meant && meant.length > 0) return { keys: [...meant] };
+  if (plain.length >= 2) {
+    const begun = keys.filter((k) => k.toLowerCase().startsWith(plain));
+    if (begun.length > 0 && begun.length <= 4) return { keys: begun };
+  }
+  // spelling: short names only by one edit (a two-letter change turns "qty" into "Iy")
+  const lower = name.toLowerCase();
+  let best: string | undefined, bestD = Infinity;
+  for (const k of keys) {
+    const dd = k.toLowerCase() === lower ? 0 : editDistance(lower, k.toLowerCase());
+    if (dd < bestD) { bestD = dd; best = k; }
+  }
+  const limit = name.length <= 3 ? 1 : Math.max(2, Math.floor(name.length / 3));
+  return best !== undefined && bestD <= limit ? { keys: [best] } : { keys: [] };
+}
+
 export function checkQuantity(name: string, where: string, options: ReferenceOptions): Dimension {
   const info = quantityInfo(name);
   if (info) return info.dimension;
-  const s = suggestKey(name, knownKeys(options));
-  throw new InputError(where, `unknown quantity "${name}"${s ? `; did you mean "${s}"?` : '; expected a key such as area, centroidX, Ix, principalAngle, cutLength'}`);
+  const s = suggestQuantities(name, knownKeys(options));
+  if ('instead' in s) throw new InputError(where, `unknown quantity "${name}": ${s.instead}`);
+  const guess = s.keys.length === 0 ? '; expected a key such as area, centroidX, Ix, SxTop, principalAngle, cutLength, netMass'
+    : `; did you mean ${s.keys.map((k) => `"${k}"`).join(' or ')}?`;
+  throw new InputError(where, `unknown quantity "${name}"${guess}`);
 }
 
 export function unitFor(dim: Dimension, text: string, where: string): ParsedUnit {

@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { parseReferenceJson, parseReferenceCsv, readReference, suggestKey } from '../../src/qa/reference.js';
+import { parseReferenceJson, parseReferenceCsv, readReference, suggestKey, suggestQuantities } from '../../src/qa/reference.js';
 import { parseUnit, factorToReport } from '../../src/qa/units.js';
 import { InputError } from '../../src/base/errors.js';
 
@@ -129,5 +129,26 @@ describe('reading references', () => {
     expect(suggestKey('IX', ['Ix', 'Iy'])).toBe('Ix');
     expect(suggestKey('perimiter', ['perimeter', 'area'])).toBe('perimeter');
     expect(suggestKey('zzzzzz', ['area'])).toBeUndefined();
+  });
+});
+
+describe('suggestions for an unknown quantity: meaning first, then keys it begins, then spelling', () => {
+  // the pairs are trade usage (common practice, no source): Sx is the elastic section modulus about x,
+  // which this tool gives per extreme fibre (SxTop, SxBottom); "qty" is a count of pieces, not a property
+  const keys = ['area', 'Ix', 'Iy', 'SxTop', 'SxBottom', 'SyRight', 'SyLeft', 'centroidX', 'Zx', 'cutLength', 'pierces', 'perimeter'];
+  it('Sx leads to the section moduli, not to Ix', () => {
+    expect(suggestQuantities('Sx', keys)).toEqual({ keys: ['SxTop', 'SxBottom'] });
+    expect(suggestQuantities('xbar', keys)).toEqual({ keys: ['centroidX'] });
+    expect(suggestQuantities('holes', keys)).toEqual({ keys: ['pierces'] });
+  });
+  it('qty is explained, not turned into Iy; a short name takes one edit at most', () => {
+    expect(suggestQuantities('qty', keys)).toHaveProperty('instead');
+    expect(suggestQuantities('Ixx', keys)).toEqual({ keys: ['Ix'] });
+    expect(suggestQuantities('Iz', keys)).toEqual({ keys: ['Ix'] }); // one edit: still offered
+    expect(suggestQuantities('abc', keys)).toEqual({ keys: [] });
+  });
+  it('keys a name begins', () => {
+    expect(suggestQuantities('cut', keys)).toEqual({ keys: ['cutLength'] });
+    expect(suggestQuantities('perimiter', keys)).toEqual({ keys: ['perimeter'] });
   });
 });
