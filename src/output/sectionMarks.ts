@@ -43,7 +43,7 @@ export function markKeyRows(marks: SectionMarks, unit: string): KeyRow[] {
   });
   if (marks.shearCentre) {
     const sc = marks.shearCentre;
-    rows.push({ colour: COLOUR.shear, symbol: true, text: `shear centre (${formatNumber(sc.x, 7)}, ${formatNumber(sc.y, 7)}) ± ${formatError(sc.error)} ${unit}${sc.errorIsBound ? '' : ' (estimate, not a bound: may understate at re-entrant corners)'}` });
+    rows.push({ colour: COLOUR.shear, symbol: true, text: `shear centre (${formatNumber(sc.x, 7)}, ${formatNumber(sc.y, 7)}) ± ${formatError(sc.error)} ${unit}${sc.errorIsBound ? '' : ' (at a re-entrant corner the estimate rests on the graded mesh: checked against finer solves, not proven)'}` });
   }
   return rows;
 }
