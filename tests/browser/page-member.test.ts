@@ -190,6 +190,11 @@ describe('member figures in the page', () => {
     sameDocument(JSON.parse(saved), doc);
     expect(saved.split('\n').length).toBe(json.split('\n').length);
     await page.locator(card(name)).screenshot({ path: join(ARTIFACTS, 'member-bracket.png') });
+    // a narrow window: the member tables scroll sideways inside the panel, the page itself does not
+    await page.setViewportSize({ width: 420, height: 900 });
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(420);
+    await page.locator(`${card(name)} [data-role="member-result"]`).screenshot({ path: join(ARTIFACTS, 'member-bracket-420.png') });
+    await page.setViewportSize({ width: 1280, height: 900 });
   }, 180_000);
 
   it('sent no request out of the page', () => {
