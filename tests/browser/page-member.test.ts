@@ -4,7 +4,8 @@
  * input, the member figures asked for from the keyboard, and every figure shown (read from data-key /
  * data-value / data-error) checked against `platewise member --json` run on the same file to 1e-12 relative;
  * the rounding against the command line's member table; the saved JSON against the command's output byte for
- * byte. Screenshots go to test-artifacts/page/ (git-ignored). Needs `npm run build` and Chromium.
+ * byte; a plate the command refuses gets its one line. Screenshots go to test-artifacts/page/ (git-ignored).
+ * Needs `npm run build` and Chromium.
  */
 import { spawnSync } from 'node:child_process';
 import { copyFileSync, existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
@@ -196,6 +197,20 @@ describe('member figures in the page', () => {
     await page.locator(`${card(name)} [data-role="member-result"]`).screenshot({ path: join(ARTIFACTS, 'member-bracket-420.png') });
     await page.setViewportSize({ width: 1280, height: 900 });
   }, 180_000);
+
+  it('a plate the command refuses (two layers) shows the command line\'s one line beside the file', async () => {
+    const name = 'tapered-doubler-td5.json';
+    copyFileSync(join(ROOT, 'samples', name), join(folder, name));
+    await page.setInputFiles('#pick', [join(folder, name)]);
+    await page.waitForSelector(`${card(name)}[data-state="done"]`, { timeout: 60_000 });
+    await page.click(`${card(name)} [data-role="member"]`);
+    await page.waitForSelector(`${card(name)} [data-role="member-result"][data-state="failed"]`, { timeout: 60_000 });
+    const r = spawnSync(process.execPath, [CLI, 'member', name], { cwd: folder, encoding: 'utf8' });
+    expect(r.status).not.toBe(0);
+    expect(r.stdout).toBe('');
+    expect(await page.textContent(`${card(name)} [data-role="member-message"]`)).toBe(r.stderr.trim());
+    expect(await page.$$(`${card(name)} [data-role="save-member-json"]`)).toEqual([]);
+  }, 120_000);
 
   it('sent no request out of the page', () => {
     expect(leaving).toEqual([]);
