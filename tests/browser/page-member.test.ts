@@ -2,9 +2,10 @@
  * The page's member figures (the file as the cross-section of a long member) in Chromium: the built page
  * (dist/page/platewise.html) opened from a file URL, the tee sample and a drawing loaded through the file
  * input, the member figures asked for from the keyboard, and every figure shown (read from data-key /
- * data-value / data-error) checked against `platewise member --json` run on the same file to 1e-12 relative;
- * the rounding against the command line's member table; the saved JSON against the command's output byte for
- * byte; a plate the command refuses gets its one line. Screenshots go to test-artifacts/page/ (git-ignored).
+ * data-value / data-error) checked against `platewise member --json` run on the same file to 1e-12 relative
+ * (estimates of the plastic figures about turned principal axes to 1e-3: see ENGINE_ROUNDOFF_ESTIMATES); the
+ * rounding against the command line's member table; the saved JSON against the command's output (the tee's
+ * byte for byte, the drawing's with the same exception); a plate the command refuses gets its one line. Screenshots go to test-artifacts/page/ (git-ignored).
  * Needs `npm run build` and Chromium.
  */
 import { spawnSync } from 'node:child_process';
