@@ -3,7 +3,7 @@
  * textContent only (names and texts from drawings never become markup), downloads out. Every figure comes
  * from the worker (web/worker.ts), which runs the library; nothing is computed here.
  */
-import type { BatchView, CompareView, FileSettings, FileView, MaterialView, PartView, ToWorker } from './protocol.js';
+import type { BatchView, CompareView, FileSettings, FileView, MaterialView, MemberView, PartView, ToWorker } from './protocol.js';
 
 declare const PLATEWISE_VERSION: string;
 declare const WORKER_SOURCE: string;
@@ -130,8 +130,8 @@ let palette: Record<string, string> = {};
 let nextKey = 1;
 const filesBox = document.getElementById('files')!;
 
-function quantityTable(g: PartView['groups'][number], idPrefix: string): HTMLElement {
-  const t = el('table', { 'data-role': 'quantities', 'data-group': g.group, id: `${idPrefix}-${g.group}` });
+function quantityTable(g: PartView['groups'][number], idPrefix: string, role = 'quantities', notBound = '(not a bound)'): HTMLElement {
+  const t = el('table', { 'data-role': role, 'data-group': g.group, id: `${idPrefix}-${g.group}` });
   t.append(el('caption', {}, g.title));
   t.append(el('thead', {}, el('tr', {}, el('th', { scope: 'col' }, 'quantity'), el('th', { scope: 'col' }, 'value'), el('th', { scope: 'col' }, '± estimate'), el('th', { scope: 'col' }, 'unit'))));
   const body = el('tbody');
@@ -139,7 +139,7 @@ function quantityTable(g: PartView['groups'][number], idPrefix: string): HTMLEle
     body.append(el('tr', { 'data-key': r.key, 'data-value': String(r.value), 'data-error': String(r.error), 'data-group': g.group },
       el('th', { scope: 'row' }, r.key, el('small', {}, r.description)),
       el('td', { class: 'num' }, r.text),
-      el('td', { class: 'num' }, `± ${r.errorText}${r.bound ? '' : ' (not a bound)'}`),
+      el('td', { class: 'num' }, `± ${r.errorText}${r.bound ? '' : ` ${notBound}`}`),
       el('td', {}, r.unit)));
   }
   t.append(body);
@@ -275,6 +275,7 @@ function addCard(file: File, bytes: ArrayBuffer): Card {
     void call({ op: 'drop', key: c.key });
     scheduleBatch();
   });
+  const memberBox = memberControls(c);
   c.root.append(
     el('h2', { id: `f${key}-title` }, file.name),
     el('p', { class: 'message', 'data-role': 'message', role: 'status' }),
@@ -283,11 +284,72 @@ function addCard(file: File, bytes: ArrayBuffer): Card {
     el('div', { class: 'toolbar' }, json, report, refLabel, ref, toAll, remove),
     el('div', { 'data-role': 'comparison' }),
     el('div', { 'data-role': 'result' }),
+    memberBox,
   );
   filesBox.append(c.root);
   cards.push(c);
   void call({ op: 'hold', key, name: file.name, bytes, settings: c.settings }, [bytes]).then(() => measure(c));
   return c;
+}
+
+/**
+ * The file as the cross-section of a long member (`platewise member`): asked for on demand, since torsion takes
+ * a second or two on the worker; the figures stay until asked for again (they do not depend on the plate settings).
+ */
+function memberControls(c: Card): HTMLElement {
+  const id = `f${c.key}-member`;
+  const torsion = el('input', { type: 'checkbox', id: `${id}-torsion`, checked: '', 'data-role': 'member-torsion' });
+  const bolts = el('input', { type: 'checkbox', id: `${id}-bolts`, 'data-role': 'member-bolts' });
+  const go = el('button', { type: 'button', 'data-needs': 'figures', 'data-role': 'member' }, 'Figures as a member cross-section');
+  const out = el('div', { 'data-role': 'member-result', 'aria-live': 'polite' });
+  go.addEventListener('click', () => void memberFigures(c, out, go, torsion.checked, bolts.checked));
+  return el('div', { class: 'member' },
+    el('div', { class: 'toolbar' }, go,
+      el('label', { for: torsion.id }, torsion, ' with torsion constant, shear centre and warping (a second or two)'),
+      el('label', { for: bolts.id }, bolts, ' with the bolt group of the circular holes')),
+    out);
+}
+
+async function memberFigures(c: Card, out: HTMLElement, go: HTMLButtonElement, torsion: boolean, bolts: boolean): Promise<void> {
+  go.disabled = true;
+  out.dataset.state = 'busy';
+  out.replaceChildren(el('p', { class: 'state' }, `working out the member figures${torsion ? ' with torsion' : ''}…`));
+  let v: MemberView;
+  try {
+    v = await call<MemberView>({ op: 'member', key: c.key, torsion, bolts });
+  } catch (e) {
+    out.replaceChildren(el('p', { class: 'message', 'data-role': 'member-message' }, (e as Error).message));
+    out.dataset.state = 'failed';
+    go.disabled = false;
+    return;
+  }
+  go.disabled = false;
+  const blocks = v.parts.map((p, i) => {
+    const block = el('div', { class: 'member-part', 'data-role': 'member-part', 'data-part': p.name, 'data-index': String(i) },
+      el('h4', {}, `${p.name} as a member cross-section (${p.unit})`));
+    for (const g of p.groups) {
+      block.append(quantityTable(g, `f${c.key}-m${i}`, 'member-quantities', v.notBound));
+      if (g.group === 'torsion' && p.torsionMethod) block.append(el('p', { class: 'state' }, `torsion: ${p.torsionMethod}`));
+    }
+    if (p.bolts) {
+      const t = el('table', { 'data-role': 'member-quantities', 'data-group': 'boltGroup' }, el('caption', {}, 'Bolt group'),
+        el('thead', {}, el('tr', {}, el('th', { scope: 'col' }, 'figure'), el('th', { scope: 'col' }, 'value'), el('th', { scope: 'col' }, 'unit'))),
+        el('tbody', {}, ...p.bolts.rows.map((r) => el('tr', { 'data-key': r.path, 'data-value': String(r.value), 'data-group': 'boltGroup' },
+          el('th', { scope: 'row' }, r.label), el('td', { class: 'num' }, r.text), el('td', {}, r.unit)))));
+      block.append(el('p', { class: 'state' }, `bolt group: ${p.bolts.heading}`), el('div', { class: 'scroll' }, t));
+    }
+    if (p.notes.length) block.append(el('ul', { class: 'words' }, ...p.notes.map((n) => el('li', {}, n))));
+    return block;
+  });
+  const saveJson = el('button', { type: 'button', class: 'quiet', 'data-role': 'save-member-json' }, 'Save member figures (JSON)');
+  saveJson.addEventListener('click', () => save(`${stem(c.name)}.member.json`, v.json, 'application/json'));
+  out.replaceChildren(
+    el('p', { class: 'state' }, `member figures worked out in ${Math.round(v.millis)} ms; the same as platewise member${torsion ? '' : ' --no-torsion'}${bolts ? ' --bolts' : ''}`),
+    el('div', { class: 'member-parts' }, ...blocks),
+    ...v.cautions.map((x) => el('p', { class: 'caution' }, x)),
+    el('div', { class: 'toolbar' }, saveJson));
+  out.dataset.state = 'done';
+  out.dataset.asked = JSON.stringify({ torsion, bolts });
 }
 
 async function compareWith(c: Card, f: File): Promise<void> {

@@ -13,6 +13,8 @@ export type ToWorker = { id: number } & (
   | { op: 'report'; key: number }
   | { op: 'compare'; key: number; name: string; bytes: ArrayBuffer }
   | { op: 'materials' }
+  /** `platewise member` on the file: torsion unless told not (`--no-torsion`), the bolt group with `bolts` (`--bolts`) */
+  | { op: 'member'; key: number; torsion: boolean; bolts: boolean }
 );
 
 export interface QuantityView {
@@ -46,3 +48,14 @@ export interface BatchView {
 }
 
 export interface MaterialView { id: string; name: string; density: number; aliases: string[] }
+
+/** One part of `platewise member --json`'s document as the page shows it (every figure from that document). */
+export interface MemberPartView {
+  name: string; unit: string;
+  /** plastic and principal moduli; torsion when asked for */
+  groups: QuantityGroupView[];
+  torsionMethod?: string;
+  notes: string[];
+  bolts?: { heading: string; rows: { path: string; label: string; value: number; text: string; unit: string }[] };
+}
+export interface MemberView { parts: MemberPartView[]; json: string; cautions: string[]; notBound: string; millis: number }

@@ -18,13 +18,15 @@ import { comparePart, pickPart } from '../src/output/comparePart.js';
 import { comparisonCsv, comparisonJson, comparisonText, rowAdvice } from '../src/output/compareText.js';
 import { PALETTE, drawPart } from '../src/output/draw.js';
 import { formatError, formatNumber } from '../src/output/numbers.js';
+import { NOT_A_BOUND, NUMERIC_FIBRES, boltGroupFigures, boltGroupText, memberFigureText, memberJson, torsionMethodText } from '../src/output/memberText.js';
+import { analyzeMemberModels } from '../src/analysis/torsionMember.js';
 import { partReportJson, reportsJson } from '../src/output/partReport.js';
 import { reportHtml } from '../src/output/reportPart.js';
 import { interpretationText, unitSourceText, warningText } from '../src/output/words.js';
 import { quantityInfo, unitText } from '../src/properties/quantities.js';
 import { readReference } from '../src/qa/reference.js';
 import { type ReadModel, readModels } from '../src/read/models.js';
-import type { FileSettings, FileView, PartView, QuantityGroupView, ToWorker } from './protocol.js';
+import type { FileSettings, FileView, MemberPartView, MemberView, PartView, QuantityGroupView, ToWorker } from './protocol.js';
 
 declare const PLATEWISE_VERSION: string;
 
@@ -187,6 +189,41 @@ function compare(key: number, refName: string, refBytes: Uint8Array) {
   };
 }
 
+interface MemberQuantityJson { value: number; error: number; unit: string; errorIsBound?: false }
+interface MemberPartJson {
+  part: string; unit: string; exactFibres: boolean;
+  plastic: Record<string, MemberQuantityJson>;
+  torsion?: Record<string, MemberQuantityJson> & { method: Parameters<typeof torsionMethodText>[0]; notes: string[] };
+  boltGroup?: Parameters<typeof boltGroupFigures>[0] & { count: number; selectedFrom: number };
+}
+
+/**
+ * `platewise member --json` on the file (no --print-unit, no net lines): the same call and the same writer; the
+ * tables are made from that very document, each figure rounded as the member table rounds it.
+ */
+function member(key: number, torsion: boolean, bolts: boolean): MemberView {
+  const h = files.get(key)!;
+  const t0 = performance.now();
+  const results = analyzeMemberModels(modelsOf(h), { torsion: torsion ? {} : false, bolts: bolts ? [] : undefined });
+  const json = memberJson(results);
+  const doc = JSON.parse(json) as { parts: MemberPartJson[]; cautions: string[] };
+  const group = (title: string, name: string, q: Record<string, unknown>): QuantityGroupView => ({
+    title, group: name,
+    rows: Object.entries(q).filter((e): e is [string, MemberQuantityJson] => typeof (e[1] as MemberQuantityJson)?.value === 'number').map(([k, v]) => {
+      const t = memberFigureText(v);
+      return { key: k, value: v.value, error: v.error, text: t.value, errorText: t.error, unit: v.unit, description: quantityInfo(k)?.description ?? '', bound: v.errorIsBound !== false };
+    }),
+  });
+  const parts = doc.parts.map((p): MemberPartView => ({
+    name: p.part, unit: p.unit,
+    groups: [group('Plastic and principal moduli', 'plastic', p.plastic), ...(p.torsion ? [group('Torsion, shear centre, warping', 'torsion', p.torsion)] : [])],
+    torsionMethod: p.torsion ? torsionMethodText(p.torsion.method) : undefined,
+    notes: [...(p.exactFibres ? [] : [NUMERIC_FIBRES]), ...(p.torsion?.notes ?? [])],
+    bolts: p.boltGroup ? { heading: boltGroupText(p.boltGroup, p.unit), rows: boltGroupFigures(p.boltGroup, p.unit) } : undefined,
+  }));
+  return { parts, json, cautions: doc.cautions, notBound: NOT_A_BOUND, millis: performance.now() - t0 };
+}
+
 const scope = self as unknown as { onmessage: ((ev: MessageEvent<ToWorker>) => void) | null; postMessage(m: unknown): void };
 
 scope.onmessage = async (ev) => {
@@ -201,6 +238,7 @@ scope.onmessage = async (ev) => {
       case 'draw': reply = await drawings(m.key); break;
       case 'batch': reply = batch(m.keys); break;
       case 'report': reply = await report(m.key); break;
+      case 'member': reply = member(m.key, m.torsion, m.bolts); break;
       case 'compare': reply = compare(m.key, m.name, new Uint8Array(m.bytes)); break;
       case 'materials': reply = { materials: listMaterials().map((x) => ({ id: x.id, name: x.name, density: x.density, aliases: [...x.aliases] })), palette: { ...PALETTE } }; break;
     }

@@ -5,7 +5,7 @@
  */
 import { type LengthUnit, lengthFactor } from '../base/units.js';
 import type { MemberResult, NetSectionResult } from '../analysis/torsionMember.js';
-import type { TorsionFact } from '../analysis/torsion.js';
+import type { TorsionFact, TorsionResult } from '../analysis/torsion.js';
 import { LENGTH_POWER, type Quantity, quantityInfo, unitText } from '../properties/quantities.js';
 import { GEOMETRY_CAUTION, NET_SECTION_NOTE } from './cautions.js';
 import { formatError, formatNumber, formatValue } from './numbers.js';
@@ -74,11 +74,52 @@ export function torsionFactText(f: TorsionFact): string {
   }
 }
 
+/** Said beside an estimate that is not a bound (the library's errorIsBound: false). */
+export const NOT_A_BOUND = '(± an estimate, not a bound)';
+/** Said when fibre distances of elliptical arcs and Béziers were found numerically. */
+export const NUMERIC_FIBRES = '(fibre distances of elliptical arcs and Béziers found numerically, to round-off)';
+
+/** One quantity of `memberJson`'s document as the member table prints it: the value rounded to its estimate. */
+export function memberFigureText(q: { value: number; error: number }): { value: string; error: string } {
+  return { value: formatValue(q.value, q.error), error: formatError(q.error) };
+}
+
 function rows(r: MemberResult, keys: readonly string[], src: Record<string, Quantity>, to: LengthUnit, out: string[]): void {
   for (const k of keys) {
     const c = convert(k, src[k], r.units, to);
-    out.push(`  ${k.padEnd(14)} ${formatValue(c.value, c.error).padStart(18)} ± ${formatError(c.error).padEnd(8)} ${c.unit}${c.errorIsBound === false ? ' (± an estimate, not a bound)' : ''}`.trimEnd());
+    const t = memberFigureText(c);
+    out.push(`  ${k.padEnd(14)} ${t.value.padStart(18)} ± ${t.error.padEnd(8)} ${c.unit}${c.errorIsBound === false ? ` ${NOT_A_BOUND}` : ''}`.trimEnd());
   }
+}
+
+/** How the torsion figures were found, in words. */
+export function torsionMethodText(m: TorsionResult['method']): string {
+  return `order-${m.order} finite elements, ${m.triangles} triangles, ${m.unknowns} unknowns; estimate ${m.safety} × the change from ${m.coarseTriangles} triangles`;
+}
+
+/** What the bolt group's sums are, in words (u: the unit they are printed in). */
+export function boltGroupText(g: { count: number; selectedFrom: number }, u: string): string {
+  return `${g.count} of ${g.selectedFrom} circular holes, each counted as a unit area at its centre; sums about the group centroid, in ${u}²`;
+}
+
+/** A figure of the bolt group as `memberJson` writes it: its path in the part's document and the text the table prints. */
+export interface BoltFigure { path: string; label: string; value: number; text: string; unit: string }
+
+/** The bolt group of one part of `memberJson`'s document as figures, rounded as the member table rounds them. */
+export function boltGroupFigures(g: { centroid: number[]; sumXX: number; sumYY: number; sumXY: number; sumRR: number; principal: number[]; principalAngle: number;
+  bolts: { x: number; y: number; diameter: number; distance: number }[] }, u: string): BoltFigure[] {
+  const sq = `${u}²`;
+  const f = (path: string, label: string, value: number, unit: string, digits?: number): BoltFigure => ({ path, label, value, text: formatNumber(value, digits), unit });
+  return [
+    f('centroid.0', 'centroid x', g.centroid[0], u), f('centroid.1', 'centroid y', g.centroid[1], u),
+    f('sumXX', 'Σx²', g.sumXX, sq), f('sumYY', 'Σy²', g.sumYY, sq), f('sumXY', 'Σxy', g.sumXY, sq), f('sumRR', 'Σr²', g.sumRR, sq),
+    f('principal.0', 'larger principal sum', g.principal[0], sq), f('principal.1', 'smaller principal sum', g.principal[1], sq),
+    f('principalAngle', 'larger along, from +x', g.principalAngle, '°', 6),
+    ...g.bolts.flatMap((b, i) => [
+      f(`bolts.${i}.diameter`, `bolt ${i + 1} Ø`, b.diameter, u, 6), f(`bolts.${i}.x`, `bolt ${i + 1} x`, b.x, u), f(`bolts.${i}.y`, `bolt ${i + 1} y`, b.y, u),
+      f(`bolts.${i}.distance`, `bolt ${i + 1} from the centroid`, b.distance, u),
+    ]),
+  ];
 }
 
 export function memberText(results: readonly MemberResult[], to?: LengthUnit): string {
@@ -90,16 +131,16 @@ export function memberText(results: readonly MemberResult[], to?: LengthUnit): s
     rows(r, SECTION_KEYS, r.section.quantities, u, out);
     out.push(' plastic and principal moduli');
     rows(r, PLASTIC_KEYS, r.plastic, u, out);
-    if (!r.exactFibres) out.push('  (fibre distances of elliptical arcs and Béziers found numerically, to round-off)');
+    if (!r.exactFibres) out.push(`  ${NUMERIC_FIBRES}`);
     if (r.torsion) {
       const t = r.torsion;
-      out.push(` torsion (order-${t.method.order} finite elements, ${t.method.triangles} triangles, ${t.method.unknowns} unknowns; estimate ${t.method.safety} × the change from ${t.method.coarseTriangles} triangles)`);
+      out.push(` torsion (${torsionMethodText(t.method)})`);
       rows(r, TORSION_KEYS, t.quantities, u, out);
       for (const f of t.facts) out.push(`  note: ${torsionFactText(f)}`);
     }
     if (r.boltGroup) {
       const g = r.boltGroup, f = lengthFactor(r.units, u);
-      out.push(` bolt group: ${g.count} of ${g.selectedFrom} circular holes, each counted as a unit area at its centre; sums about the group centroid, in ${u}²`);
+      out.push(` bolt group: ${boltGroupText(g, u)}`);
       out.push(`  centroid       (${formatNumber(g.centroid[0] * f)}, ${formatNumber(g.centroid[1] * f)}) ${u}`);
       out.push(`  Σx² ${formatNumber(g.sumXX * f * f)}  Σy² ${formatNumber(g.sumYY * f * f)}  Σxy ${formatNumber(g.sumXY * f * f)}  Σr² ${formatNumber(g.sumRR * f * f)}`);
       out.push(`  principal sums ${formatNumber(g.principal[0] * f * f)}, ${formatNumber(g.principal[1] * f * f)}; larger along ${formatNumber(g.principalAngle, 6)}° from +x`);
