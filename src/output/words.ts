@@ -62,6 +62,7 @@ export function integralWarningText(w: IntegralWarning): string {
 
 const INTERPRETATION_WARNINGS: Record<InterpretationWarning, string> = {
   'units-assumed': 'the drawing states no length unit: coordinates were read as CSS pixels (1 px = 25.4/96 mm); give --units if that is wrong',
+  'units-assumed-mm': 'the drawing states no length unit: coordinates were read as millimetres; give --units if that is wrong',
   'hidden-content': 'hidden content (hidden layers or elements, layers switched off or frozen) was ignored, never cut',
   'duplicates-removed': 'contours drawn twice were found: each duplicate was removed and measured once',
   'foreign-content': 'elements outside the SVG namespace were ignored',

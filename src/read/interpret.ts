@@ -59,7 +59,7 @@ export interface InterpretOptions {
 export type IgnoreReason = 'hidden' | 'skipped-layer' | 'other-layer' | 'sheet-border';
 export type MarkingReason = 'open-contour' | 'marking-layer' | 'marking-colour';
 export type InterpretationWarning =
-  | 'units-assumed' | 'hidden-content' | 'duplicates-removed' | 'foreign-content' | 'text-ignored'
+  | 'units-assumed' | 'units-assumed-mm' | 'hidden-content' | 'duplicates-removed' | 'foreign-content' | 'text-ignored'
   | 'marking-outside' | 'shapes-united' | 'open-contour-on-cut-layer' | 'css-selector-unsupported' | 'sheet-border-skipped';
 
 export interface DuplicateNote { where: string; layer?: string; duplicateOf: string; x: number; y: number }
@@ -533,7 +533,8 @@ export function interpretDrawing(drawing: Drawing, options: InterpretOptions = {
       markingLength,
     });
   });
-  if (units.source === 'assumed') warnings.add('units-assumed');
+  // SVG user units are CSS pixels when nothing says otherwise; GeoJSON and WKT coordinates are taken as mm
+  if (units.source === 'assumed') warnings.add(units.detail?.assumed === 'css-px' ? 'units-assumed' : 'units-assumed-mm');
   if ((ignored['foreign-namespace'] ?? 0) > 0) warnings.add('foreign-content');
   if ((ignored.text ?? 0) > 0) warnings.add('text-ignored');
   if ((ignored['css-selector-unsupported'] ?? 0) > 0) warnings.add('css-selector-unsupported');

@@ -247,6 +247,16 @@ describe('units', () => {
     expect(r.parts[0].unitSource).toBe('assumed');
     expect(rel(area(r.parts[0]), 160 * 80 * (25.4 / 96) ** 2)).toBeLessThan(1e-13); // 1 px = 25.4/96 mm (CSS Values 3)
   });
+  it('GeoJSON and WKT without a unit: read as mm, and the warning says mm, not CSS pixels', () => {
+    // the unit rule is ours (README: GeoJSON and WKT coordinates are taken as mm unless --units says otherwise)
+    for (const [text, label] of [['POLYGON ((0 0, 160 0, 160 80, 0 80, 0 0))', 'u.wkt'], [JSON.stringify({ type: 'Polygon', coordinates: [[[0, 0], [160, 0], [160, 80], [0, 80], [0, 0]]] }), 'u.geojson']]) {
+      const r = readDrawing(text, label);
+      expect(r.units.source).toBe('assumed');
+      expect(r.summary.warnings).toContain('units-assumed-mm');
+      expect(r.summary.warnings).not.toContain('units-assumed');
+      expect(rel(area(r.parts[0]), 160 * 80)).toBeLessThan(1e-15);
+    }
+  });
   it('with the units option the same file gives 160 × 80 mm, source option', () => {
     const r = readDrawing(`<svg ${NS} width="160" height="80" viewBox="0 0 160 80">${plate}</svg>`, 'u.svg', { units: 'mm' });
     expect(r.units).toMatchObject({ unit: 'mm', source: 'option' });
