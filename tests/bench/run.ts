@@ -183,7 +183,15 @@ if (want('torsion')) {
   const pts = (quick ? [1300, 5200] : [1300, 5200, 20800]).map(run);
   results.torsion = pts;
   const p0 = pts[0];
-  rows.push({ case: `torsion and shear centre, ${p0.tri} curved-mesh triangles, order 3 (whole process)`, ours: f(p0.ms), peer: '', ratio: '', target: '≤ 2000 ms at 10^4', met: p0.ms <= 2000 * (p0.tri / 1e4) ** 1.2 ? 'yes' : 'no' });
+  rows.push({ case: `torsion and shear centre, ${p0.tri} curved-mesh triangles, order 3 (whole process)`, ours: f(p0.ms), peer: '', ratio: '', target: '', met: '' });
+  // the mesh sizes come in steps of 4×, so 10^4 triangles is read off the measured points around it
+  // (log-log interpolation between the two that bracket it), and said so
+  const k4 = pts.findIndex((p) => p.tri >= 1e4);
+  if (k4 > 0) {
+    const a = pts[k4 - 1], b = pts[k4];
+    const at = a.ms * Math.exp((Math.log(b.ms / a.ms) * Math.log(1e4 / a.tri)) / Math.log(b.tri / a.tri));
+    rows.push({ case: `torsion and shear centre at 10^4 triangles (interpolated between the measured ${a.tri} and ${b.tri})`, ours: f(at), peer: '', ratio: '', target: '≤ 2000 ms', met: at <= 2000 ? 'yes' : 'no' });
+  }
   for (let i = 1; i < pts.length; i++) {
     const a = pts[i - 1], b = pts[i], k = Math.log(b.tri / a.tri);
     const et = Math.log(b.ms / a.ms) / k, em = Math.log(b.rss / a.rss) / k;
