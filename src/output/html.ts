@@ -23,6 +23,7 @@ import { convergencePlot, convergencePoints } from './convergence.js';
 import { type DrawOptions, drawPart } from './draw.js';
 import { num } from './pathData.js';
 import { stopText } from './stopText.js';
+import { boundaryMethodText } from './massText.js';
 
 export interface ReportPart {
   /** Result measured exactly as `measure` measures it (the table shows these numbers). */
@@ -144,8 +145,10 @@ function massBlock(p: ReportPart): string {
   const keys = Object.keys(m.quantities);
   const layers = m.layers.map((l) => `<li>${escapeHtml(l.name)}: thickness ${escapeHtml(l.thickness)} ${escapeHtml(m.units)}, density ${escapeHtml(densityText(l.densityFrom))}, underside at z = ${formatNumber(l.z0)} ${escapeHtml(m.units)}</li>`).join('');
   return `<ul data-role="materials">${layers}</ul>\n${quantityTable(m.quantities as Record<string, Quantity>, keys, m.units, 'mass')}` +
-    `<p>Mass method: Dunavant degree ${m.method.degree}, ${m.method.triangles} triangles, ${escapeHtml(m.method.estimator)}; ` +
-    `${m.method.tolerance === null ? 'no tolerance requested' : `tolerance ${m.method.tolerance}`}, stop: ${escapeHtml(stopText(m.method))}.</p>`;
+    (m.method.estimator === 'exact boundary integrals'
+      ? `<p>Mass ${escapeHtml(boundaryMethodText('thickness and density constant or polynomials in x and y'))}.</p>`
+      : `<p>Mass method: Dunavant degree ${m.method.degree}, ${m.method.triangles} triangles, ${escapeHtml(m.method.estimator)}; ` +
+        `${m.method.tolerance === null ? 'no tolerance requested' : `tolerance ${m.method.tolerance}`}, stop: ${escapeHtml(stopText(m.method))}.</p>`);
 }
 
 /** Fabrication block: cut length, pierces, blank, scrap (and masses with a constant plate), box, marking. */

@@ -50,7 +50,7 @@ function rows(q: Record<MassKey, Quantity>, length: string, u: MassUnits): Quant
 }
 
 /** The method line of a result integrated exactly from the boundary, `why` saying what made that possible. */
-function boundaryMethodText(why: string): string {
+export function boundaryMethodText(why: string): string {
   return `method: ${why}, so exact boundary integrals (Green's theorem, no mesh); estimate = round-off and representation allowance, propagated through each quantity`;
 }
 

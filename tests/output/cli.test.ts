@@ -176,6 +176,11 @@ describe('report settings carry their units', () => {
     expect(platewise(['report', 'samples/gusset-g2.json', '--thickness', '10', '--density', '7850', '-o', o]).status).toBe(0);
     expect(readFileSync(o, 'utf8')).toMatch(/<dt>settings<\/dt><dd>thickness 10 mm, density 7850 kg\/m³<\/dd>/);
   });
+  it('a constant plate\'s mass comes from the boundary, and the method line says so (no "degree 0, 0 triangles")', () => {
+    const h = readFileSync(join(dir, 'settings.html'), 'utf8');
+    expect(h).toMatch(/Mass method: thickness and density constant or polynomials in x and y, so exact boundary integrals/);
+    expect(h).not.toMatch(/Dunavant degree 0, 0 triangles/);
+  });
 });
 
 describe('the report shows values rounded to their estimates (tests/output/rounding.test.ts has the rule)', () => {
