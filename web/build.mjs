@@ -1,7 +1,7 @@
 /**
  * Builds the page: one self-contained HTML file (dist/page/platewise.html) holding the page script and, as a
  * text inside it, the worker script that runs the library. Both are esbuild bundles of web/ and src/ for the
- * browser; the few Node built-ins the library or svgdom name are replaced by web/shims (see there). Run by
+ * browser; the few Node built-ins the library names are replaced by web/shims (see there). Run by
  * `npm run build` after tsc; fails if the file would reach the 2 MB budget.
  */
 import { build } from 'esbuild';
@@ -17,8 +17,6 @@ const version = JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8')).ver
 const shims = join(ROOT, 'web', 'shims');
 const alias = {
   'node:module': join(shims, 'module.ts'),
-  fontkit: join(shims, 'nofiles.ts'),
-  'image-size/fromFile': join(shims, 'nofiles.ts'),
   'node:path': join(shims, 'nofiles.ts'),
   path: join(shims, 'nofiles.ts'),
   'node:url': join(shims, 'nofiles.ts'),
