@@ -17,7 +17,7 @@ import { GEOMETRY_CAUTION, MASS_CAUTION } from '../src/output/cautions.js';
 import { comparePart, pickPart } from '../src/output/comparePart.js';
 import { comparisonCsv, comparisonJson, comparisonText, rowAdvice } from '../src/output/compareText.js';
 import { PALETTE, drawPart } from '../src/output/draw.js';
-import { formatError, formatNumber } from '../src/output/numbers.js';
+import { formatError, formatNumber, formatValue } from '../src/output/numbers.js';
 import { NOT_A_BOUND, NUMERIC_FIBRES, boltGroupFigures, boltGroupText, memberFigureText, memberJson, torsionMethodText } from '../src/output/memberText.js';
 import { analyzeMemberModels } from '../src/analysis/torsionMember.js';
 import { partReportJson, reportsJson } from '../src/output/partReport.js';
@@ -56,7 +56,7 @@ function groupView(title: string, group: string, q: Record<string, { value: numb
   return {
     title, group,
     rows: Object.entries(q).map(([key, v]) => ({
-      key, value: v.value, error: v.error, text: formatNumber(v.value), errorText: formatError(v.error), unit: unitOf(key),
+      key, value: v.value, error: v.error, text: formatValue(v.value, v.error), errorText: formatError(v.error), unit: unitOf(key),
       description: quantityInfo(key)?.description ?? '', bound: v.errorIsBound !== false,
     })),
   };
@@ -182,7 +182,7 @@ function compare(key: number, refName: string, refBytes: Uint8Array) {
     rows: comparison.rows.map((r) => ({
       quantity: r.quantity, verdict: r.verdict,
       stated: `${formatNumber(r.statedAsWritten)}${r.statedUnit ? ' ' + r.statedUnit : ''}`,
-      computed: r.computed === null ? '—' : `${formatNumber(r.computed)}${r.unit ? ' ' + r.unit : ''} ± ${formatError(r.error ?? NaN)}`,
+      computed: r.computed === null ? '—' : `${formatValue(r.computed, r.error ?? NaN)}${r.unit ? ' ' + r.unit : ''} ± ${formatError(r.error ?? NaN)}`,
       difference: r.difference === null ? '—' : formatNumber(r.difference, 4),
       tolerance: formatNumber(r.tolerance, 4), advice: rowAdvice(r),
     })),

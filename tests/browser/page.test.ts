@@ -19,6 +19,7 @@ import type { BrowserContext, Page } from 'playwright-core';
 import { type Browser, launchChromium } from './chromium.js';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { parseCsv } from '../../src/base/csv.js';
+import { formatValue } from '../../src/output/numbers.js';
 
 const ROOT = join(import.meta.dirname, '..', '..');
 const CLI = join(ROOT, 'dist', 'cli', 'main.js');
@@ -127,6 +128,7 @@ describe('the offline page in Chromium', () => {
         name: a.getAttribute('data-part'),
         rows: [...a.querySelectorAll('tr[data-key][data-value]')].map((tr) => ({
           group: tr.getAttribute('data-group')!, key: tr.getAttribute('data-key')!, value: tr.getAttribute('data-value')!, error: tr.getAttribute('data-error')!,
+          text: tr.querySelector('td.num')?.textContent ?? '',
         })),
         drawn: a.querySelectorAll('[data-role="viewer"] img').length,
       })));
@@ -144,6 +146,8 @@ describe('the offline page in Chromium', () => {
           for (const r of shown) {
             expect(close(Number(r.value), q[r.key].value), `${f.name} ${r.key}: page ${r.value}, CLI ${q[r.key].value}`).toBe(true);
             expect(close(Number(r.error), q[r.key].error), `${f.name} ${r.key} estimate: page ${r.error}, CLI ${q[r.key].error}`).toBe(true);
+            // shown rounded to what its estimate supports, by the command line's own rule
+            expect(r.text, `${f.name} ${r.key} shown`).toBe(formatValue(Number(r.value), Number(r.error)));
           }
         }
         if (f.material) expect(Object.keys(expected.mass).length, `${f.name}: mass shown`).toBeGreaterThan(0);
