@@ -5,11 +5,6 @@
  * A check that found a difference (exit 1) is decided by the command itself, not here.
  */
 
-/** A library option name as its flag: "massUnit" → "--mass-unit". */
-export function flagOf(option: string): string {
-  return '--' + option.replace(/[A-Z]/g, (c) => '-' + c.toLowerCase());
-}
-
 /**
  * Standard output and error failures end the run in one line with a documented status (README "Exit
  * status"): a reader that closed the pipe (`platewise batch … | head`) stops the run quietly with 141, as a
@@ -32,12 +27,12 @@ export async function run(body: () => Promise<string | void>): Promise<void> {
     const out = await body();
     if (out) process.stdout.write(out);
   } catch (e) {
-    const { isInputError, isMethodError, OptionError, OutputError, oneLine, EXIT } = await import('../src/base/errors.js');
+    const { isInputError, isMethodError, OptionError, OutputError, oneLine, optionFlag, EXIT } = await import('../src/base/errors.js');
     if (e instanceof OutputError) {
       process.stderr.write(`platewise: ${e.message}\n`);
       process.exitCode = EXIT.outputFailed;
     } else if (e instanceof OptionError) {
-      process.stderr.write(`platewise: ${flagOf(e.option)}: ${e.detail}\n`);
+      process.stderr.write(`platewise: ${optionFlag(e.option)}: ${e.detail}\n`);
       process.exitCode = EXIT.badInput;
     } else if (isInputError(e)) {
       process.stderr.write(`platewise: ${e.message}\n`);

@@ -236,9 +236,22 @@ function input(label: string, name: keyof FileSettings, c: Card, attrs: Record<s
   return el('label', { for: id }, label, field);
 }
 
+/** The drawing's length unit, as `--units` gives it: what the drawing says (the default), or one chosen here. */
+function unitChoice(c: Card): HTMLElement {
+  const id = `f${c.key}-units`;
+  const field = el('select', { id, name: 'units', 'data-role': 'units' },
+    el('option', { value: '' }, 'as the drawing says'),
+    ...['mm', 'cm', 'm', 'in', 'ft'].map((u) => el('option', { value: u }, u)));
+  field.addEventListener('change', () => {
+    c.settings.units = (field as HTMLSelectElement).value;
+    void call({ op: 'settings', key: c.key, settings: c.settings }).then(() => measure(c));
+  });
+  return el('label', { for: id }, 'drawing unit', field);
+}
+
 function addCard(file: File, bytes: ArrayBuffer): Card {
   const key = nextKey++;
-  const c: Card = { key, name: file.name, root: el('section', { class: 'file', 'data-file': file.name, 'aria-labelledby': `f${key}-title` }), settings: { thickness: '', material: '', density: '', quantity: 1 }, busy: false, again: false };
+  const c: Card = { key, name: file.name, root: el('section', { class: 'file', 'data-file': file.name, 'aria-labelledby': `f${key}-title` }), settings: { thickness: '', material: '', density: '', quantity: 1, units: '' }, busy: false, again: false };
   const form = el('form', { class: 'inputs', 'aria-label': `settings for ${file.name}` });
   form.addEventListener('submit', (e) => e.preventDefault());
   form.append(
@@ -246,6 +259,7 @@ function addCard(file: File, bytes: ArrayBuffer): Card {
     input('material (name or alias)', 'material', c, { type: 'text', list: 'materials', autocomplete: 'off', 'data-role': 'material' }),
     input('density instead (kg/m³)', 'density', c, { type: 'text', inputmode: 'decimal', autocomplete: 'off', 'data-role': 'density' }),
     input('how many pieces', 'quantity', c, { type: 'number', min: '1', step: '1', 'data-role': 'quantity' }),
+    unitChoice(c),
   );
   const toAll = el('button', { type: 'button', class: 'quiet' }, 'Use these settings for every file');
   toAll.addEventListener('click', () => {
@@ -253,6 +267,7 @@ function addCard(file: File, bytes: ArrayBuffer): Card {
       if (o === c) continue;
       o.settings = { ...c.settings };
       for (const k of ['thickness', 'material', 'density', 'quantity'] as const) (o.root.querySelector(`input[name="${k}"]`) as HTMLInputElement).value = String(o.settings[k]);
+      (o.root.querySelector('select[name="units"]') as HTMLSelectElement).value = o.settings.units;
       void call({ op: 'settings', key: o.key, settings: o.settings }).then(() => measure(o));
     }
   });

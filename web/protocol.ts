@@ -1,7 +1,8 @@
 /** Messages between the page (web/page.ts) and its worker (web/worker.ts): plain data only. */
 
 /** The inputs beside each file, as typed (the worker parses them with the library's one settings grammar). */
-export interface FileSettings { thickness: string; material: string; density: string; quantity: number }
+/** A file's settings; `units` is the drawing's length unit as `--units` gives it, '' for what the drawing says. */
+export interface FileSettings { thickness: string; material: string; density: string; quantity: number; units: string }
 
 export type ToWorker = { id: number } & (
   | { op: 'hold'; key: number; name: string; bytes: ArrayBuffer; settings: FileSettings }

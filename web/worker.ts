@@ -5,7 +5,7 @@
  * receives the library's objects, only texts, numbers and the writers' output.
  */
 import { analyzePart, type PartReport } from '../src/analysis/analyze.js';
-import { InputError } from '../src/base/errors.js';
+import { InputError, OptionError, optionFlag } from '../src/base/errors.js';
 import { decodeUtf8, MAX_INPUT_BYTES } from '../src/base/utf8.js';
 import { type BatchRow, failureText, jobRows } from '../src/batch/jobRows.js';
 import type { Job } from '../src/batch/manifest.js';
@@ -26,6 +26,7 @@ import { interpretationText, unitSourceText, warningText } from '../src/output/w
 import { quantityInfo, unitText } from '../src/properties/quantities.js';
 import { readReference } from '../src/qa/reference.js';
 import { type ReadModel, readModels } from '../src/read/models.js';
+import type { LengthUnit } from '../src/base/units.js';
 import type { FileSettings, FileView, MemberPartView, MemberView, PartView, QuantityGroupView, ToWorker } from './protocol.js';
 
 declare const PLATEWISE_VERSION: string;
@@ -91,7 +92,7 @@ function partView(r: PartReport): PartView {
 }
 
 function modelsOf(h: Held): ReadModel[] {
-  return readModels(textOf(h), h.name);
+  return readModels(textOf(h), h.name, h.settings.units ? { units: h.settings.units as LengthUnit } : {});
 }
 
 /**
@@ -111,7 +112,16 @@ function measure(key: number): FileView {
   const h = files.get(key)!;
   const t0 = performance.now();
   try {
-    const models = modelsOf(h);
+    let models: ReadModel[];
+    let unitsRefused: string | undefined;
+    try {
+      models = modelsOf(h);
+    } catch (e) {
+      // a unit the file contradicts, or a unit given to a part file: the figures as the file says, and the refusal
+      if (!h.settings.units) throw e;
+      models = readModels(textOf(h), h.name);
+      unitsRefused = `platewise: ${e instanceof OptionError ? `${optionFlag(e.option)}: ${e.detail}` : failureText(e)}`;
+    }
     const run = (g: PlateSettings) => models.map((m) => analyzePart(m, { given: g, mass: 'required', fabrication: 'auto' }));
     const g = given(h.settings);
     let reports: PartReport[];
@@ -127,6 +137,7 @@ function measure(key: number): FileView {
     }
     const json = reportsJson(reports, MASS_UNITS);
     h.reports = reports;
+    if (unitsRefused) refused = refused ? `${unitsRefused}\n${refused}` : unitsRefused;
     return { ok: true, parts: reports.map(partView), json, millis: performance.now() - t0, refused };
   } catch (e) {
     h.reports = undefined;
@@ -137,7 +148,7 @@ function measure(key: number): FileView {
 /** The job `batch` would run for this file, its settings as a manifest row's cells. */
 function jobOf(key: number, row: number): Job {
   const h = files.get(key)!;
-  return { row, file: h.name, path: h.name, quantity: h.settings.quantity, plate: given(h.settings), stated: [] };
+  return { row, file: h.name, path: h.name, quantity: h.settings.quantity, plate: given(h.settings), stated: [], ...(h.settings.units ? { units: h.settings.units as LengthUnit } : {}) };
 }
 
 function batch(keys: number[]): { csv: string; rows: BatchRow[]; summary: ReturnType<SummaryBuilder['finish']>; summaryLines: string[] } {
@@ -166,7 +177,7 @@ async function report(key: number): Promise<string> {
   return reportHtml(modelsOf(h), {
     section: {}, given: given(s),
     file: { name: h.name, sha256 }, version: PLATEWISE_VERSION, date: new Date().toISOString(),
-    settings: { thickness: s.thickness || undefined, density: s.density || undefined, material: s.material || undefined },
+    settings: { thickness: s.thickness || undefined, density: s.density || undefined, material: s.material || undefined, units: s.units || undefined },
   });
 }
 

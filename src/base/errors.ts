@@ -66,6 +66,11 @@ function capEcho(s: string, whole: number): string {
  * Bad input in a library option (units, format, tolerance …). `option` is the library's name for it; the
  * command line shows it as its flag (`units` → `--units`), a library user sees the plain name.
  */
+/** A library option's name as the command line's flag (`units` → `--units`, `unitsOverride` → `--units-override`). */
+export function optionFlag(option: string): string {
+  return '--' + option.replace(/[A-Z]/g, (c) => '-' + c.toLowerCase());
+}
+
 export class OptionError extends InputError {
   readonly option: string;
   constructor(option: string, detail: string) {

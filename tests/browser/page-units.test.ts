@@ -1,0 +1,94 @@
+/**
+ * The page's drawing unit (the `--units` of the command line) in Chromium: an invented unitless SVG plate is
+ * read by the default rule (CSS pixels, with the warning) and, with "mm" chosen, as millimetres — each time
+ * every section figure equal to `platewise measure --json` with the same flags to 1e-12 relative; a unit given
+ * to a part file gets the command line's refusal line while the figures stay as the file says.
+ * Needs `npm run build` and Chromium.
+ */
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { type Browser, launchChromium } from './chromium.js';
+
+const ROOT = join(import.meta.dirname, '..', '..');
+const CLI = join(ROOT, 'dist', 'cli', 'main.js');
+const PAGE = join(ROOT, 'dist', 'page', 'platewise.html');
+const ARTIFACTS = join(ROOT, 'test-artifacts', 'page');
+
+// invented test data: a 160 × 80 plate with a Ø30 hole, in SVG user units with no unit stated
+const SVG = '<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 160 80"><path fill-rule="evenodd" d="M0 0H160V80H0Z M95 40A15 15 0 1 0 65 40A15 15 0 1 0 95 40Z"/></svg>\n';
+const PART = JSON.stringify({ part: 'unit test plate', units: 'mm', outline: { rectangle: { corner: [0, 0], size: [120, 60] } } });
+
+let folder: string;
+let browser: Browser | undefined;
+let page: Page;
+
+function platewise(args: string[]): { status: number | null; stdout: string; stderr: string } {
+  const r = spawnSync(process.execPath, [CLI, ...args], { cwd: folder, encoding: 'utf8' });
+  return { status: r.status, stdout: r.stdout, stderr: r.stderr };
+}
+const close = (a: number, b: number) => a === b || Math.abs(a - b) <= 1e-12 * Math.abs(b);
+const card = (name: string) => `section.file[data-file="${name}"]`;
+
+async function settled(name: string, units: string): Promise<void> {
+  await page.waitForFunction(([c, u]) => {
+    const e = document.querySelector(c) as HTMLElement | null;
+    return !!e && !!e.dataset.settings && JSON.parse(e.dataset.settings).units === u && (e.dataset.state === 'done' || e.dataset.state === 'failed');
+  }, [card(name), units] as const, { timeout: 60_000 });
+}
+
+async function sectionShown(name: string): Promise<Map<string, number>> {
+  const rows = await page.$$eval(`${card(name)} tr[data-key][data-value][data-group="section"]`, (trs) => trs.map((t) => [t.getAttribute('data-key')!, Number(t.getAttribute('data-value'))] as const));
+  return new Map(rows);
+}
+
+beforeAll(async () => {
+  folder = mkdtempSync(join(tmpdir(), 'platewise-page-units-'));
+  mkdirSync(ARTIFACTS, { recursive: true });
+  writeFileSync(join(folder, 'plate.svg'), SVG);
+  writeFileSync(join(folder, 'plate.json'), PART);
+  browser = await launchChromium({ width: 1280, height: 900 });
+  page = await browser.ctx.newPage();
+  await page.goto(pathToFileURL(PAGE).href);
+  await page.waitForSelector('body[data-ready="true"]');
+  await page.setInputFiles('#pick', [join(folder, 'plate.svg'), join(folder, 'plate.json')]);
+}, 120_000);
+
+afterAll(async () => {
+  await browser?.close();
+  rmSync(folder, { recursive: true, force: true });
+});
+
+describe('the drawing unit in the page', () => {
+  it('a unitless SVG: the default rule with its warning, then mm as chosen; figures equal measure --json with the same flags', async () => {
+    await settled('plate.svg', '');
+    const byDefault = JSON.parse(platewise(['measure', 'plate.svg', '--json']).stdout);
+    let got = await sectionShown('plate.svg');
+    expect(got.size).toBe(Object.keys(byDefault.quantities).length);
+    for (const [k, q] of Object.entries(byDefault.quantities) as [string, { value: number }][]) expect(close(got.get(k)!, q.value), k).toBe(true);
+    expect(await page.textContent(card('plate.svg'))).toContain('CSS pixels');
+    await page.selectOption(`${card('plate.svg')} select[name="units"]`, 'mm');
+    await settled('plate.svg', 'mm');
+    const inMm = JSON.parse(platewise(['measure', 'plate.svg', '--json', '--units', 'mm']).stdout);
+    got = await sectionShown('plate.svg');
+    for (const [k, q] of Object.entries(inMm.quantities) as [string, { value: number }][]) expect(close(got.get(k)!, q.value), k).toBe(true);
+    // the closed form of the invented plate: 160 × 80 − π·15² (elementary)
+    expect(close(got.get('area')!, 160 * 80 - Math.PI * 225)).toBe(true);
+    await page.locator(card('plate.svg')).screenshot({ path: join(ARTIFACTS, 'units-mm.png') });
+  });
+
+  it('a unit given to a part file: the command line\'s refusal next to it, the figures as the file says', async () => {
+    await page.selectOption(`${card('plate.json')} select[name="units"]`, 'cm');
+    await settled('plate.json', 'cm');
+    const refused = platewise(['measure', 'plate.json', '--units', 'cm']);
+    expect(refused.status).toBe(2);
+    expect((await page.textContent(`${card('plate.json')} [data-role="message"]`))!.trim()).toBe(refused.stderr.trim());
+    const asFile = JSON.parse(platewise(['measure', 'plate.json', '--json']).stdout);
+    const got = await sectionShown('plate.json');
+    expect(close(got.get('area')!, asFile.quantities.area.value)).toBe(true);
+  });
+});
