@@ -3,7 +3,7 @@
  * the chords (Delaunator + Constrainautor by default, cdt2d on request), tag every triangle edge that lies on a curve, and split chords until every
  * curved triangle's map is safely valid.
  */
-import { InputError, MethodError } from '../base/errors.js';
+import { MethodError } from '../base/errors.js';
 import { type Part, localFrame, partAbout, partBox } from '../geometry/part.js';
 import { type Segment, ops, piecesForTurning, segmentStart } from '../geometry/segments.js';
 import { type Mesh, TriangleMap, curvedEdgeRatio } from './mesh.js';

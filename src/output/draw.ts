@@ -13,7 +13,7 @@
  */
 import { type SvgEl, svgRoot } from './svgBuild.js';
 import type { SectionResult } from '../analysis/measure.js';
-import { InputError, OptionError } from '../base/errors.js';
+import { OptionError } from '../base/errors.js';
 import { type Mesh, triangleCount } from '../mesh/mesh.js';
 import { formatError, formatNumber, formatValue } from './text.js';
 import { LENGTH_UNITS, type LengthUnit } from '../base/units.js';

@@ -16,8 +16,6 @@ export interface ArcSegment {
   a0: number; a1: number;
 }
 
-const TWO_PI = 2 * Math.PI;
-
 const arcParam = (s: ArcSegment, ang: number, slack: number): number => sweepParam(ang, s.a0, s.a1, slack);
 
 /** Crossings of a line (ta) and an arc (tb) within `tol`; a tangent within tol counts once. */
