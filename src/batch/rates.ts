@@ -22,7 +22,7 @@
  */
 import { InputError } from '../base/errors.js';
 import { type CsvDialect, RFC_4180, csvWhere, decimalCommaCell, otherSeparator, otherSeparatorError, parseCsvRecords, parseCsvRows } from '../base/csv.js';
-import { editDistance } from '../base/text.js';
+import { suggestKey } from '../qa/reference.js';
 import type { MaterialTable } from '../model/materials.js';
 import { lookupMaterial } from '../model/plate.js';
 
@@ -86,12 +86,8 @@ export function parseRates(text: string, label: string, options: { materials?: M
     const name = m[1];
     const unit = m[2]?.trim();
     if (!(COLUMNS as readonly string[]).includes(name)) {
-      let best: string | undefined, bestD = Infinity;
-      for (const c of COLUMNS) {
-        const d = editDistance(name.toLowerCase(), c.toLowerCase());
-        if (d < bestD) { bestD = d; best = c; }
-      }
-      const hint = bestD <= Math.max(2, Math.floor(name.length / 3)) ? `; did you mean "${best}"?` : '';
+      const best = suggestKey(name, COLUMNS);
+      const hint = best ? `; did you mean "${best}"?` : '';
       throw new InputError(at, `unknown column "${h}"${hint}; expected ${COLUMNS.join(', ')} (the numbers with their unit in brackets, such as "thickness [mm]")`);
     }
     const c = name as Column;

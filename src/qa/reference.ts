@@ -73,7 +73,7 @@ export interface ReferenceOptions {}
 
 
 /** The closest known key to `name`, if close enough to be a likely typo. */
-export function suggestKey(name: string, keys: readonly string[]): string | undefined {
+export function suggestKey(name: string, keys: readonly string[], limit = Math.max(2, Math.floor(name.length / 3))): string | undefined {
   const lower = name.toLowerCase();
   const exactCase = keys.find((k) => k.toLowerCase() === lower);
   if (exactCase) return exactCase;
@@ -82,7 +82,7 @@ export function suggestKey(name: string, keys: readonly string[]): string | unde
     const dd = editDistance(lower, k.toLowerCase());
     if (dd < bestD) { bestD = dd; best = k; }
   }
-  return bestD <= Math.max(2, Math.floor(name.length / 3)) ? best : undefined;
+  return bestD <= limit ? best : undefined;
 }
 
 function knownKeys(_options: ReferenceOptions): string[] {
@@ -129,14 +129,8 @@ export function suggestQuantities(name: string, keys: readonly string[]): { keys
     if (begun.length > 0 && begun.length <= 4) return { keys: begun };
   }
   // spelling: short names only by one edit (a two-letter change turns "qty" into "Iy")
-  const lower = name.toLowerCase();
-  let best: string | undefined, bestD = Infinity;
-  for (const k of keys) {
-    const dd = k.toLowerCase() === lower ? 0 : editDistance(lower, k.toLowerCase());
-    if (dd < bestD) { bestD = dd; best = k; }
-  }
-  const limit = name.length <= 3 ? 1 : Math.max(2, Math.floor(name.length / 3));
-  return best !== undefined && bestD <= limit ? { keys: [best] } : { keys: [] };
+  const best = name.length <= 3 ? suggestKey(name, keys, 1) : suggestKey(name, keys);
+  return { keys: best === undefined ? [] : [best] };
 }
 
 export function checkQuantity(name: string, where: string, options: ReferenceOptions): Dimension {
