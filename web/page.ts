@@ -6,25 +6,28 @@
 import type { BatchView, CompareView, FileSettings, FileView, MaterialView, MemberView, PartView, ToWorker } from './protocol.js';
 
 declare const PLATEWISE_VERSION: string;
-declare const WORKER_SOURCE: string;
 
 // ------------------------------------------------------------------ worker calls
 
 type Distribute<T> = T extends unknown ? Omit<T, 'id'> : never;
-const worker = new Worker(URL.createObjectURL(new Blob([WORKER_SOURCE], { type: 'text/javascript' })));
+// started by a small script at the top of the page (web/build.mjs) as soon as the page begins to load
+const started = (self as unknown as { platewiseWorker: Promise<Worker> }).platewiseWorker;
 let nextId = 1;
 const waiting = new Map<number, { resolve: (v: unknown) => void; reject: (e: Error) => void }>();
-worker.onmessage = (ev: MessageEvent<{ id: number; ok: boolean; value?: unknown; message?: string }>) => {
-  const w = waiting.get(ev.data.id);
-  if (!w) return;
-  waiting.delete(ev.data.id);
-  if (ev.data.ok) w.resolve(ev.data.value); else w.reject(new Error(ev.data.message));
-};
+const worker = started.then((w) => {
+  w.onmessage = (ev: MessageEvent<{ id: number; ok: boolean; value?: unknown; message?: string }>) => {
+    const h = waiting.get(ev.data.id);
+    if (!h) return;
+    waiting.delete(ev.data.id);
+    if (ev.data.ok) h.resolve(ev.data.value); else h.reject(new Error(ev.data.message));
+  };
+  return w;
+});
 function call<T>(m: Distribute<ToWorker>, transfer: Transferable[] = []): Promise<T> {
   const id = nextId++;
   return new Promise<T>((resolve, reject) => {
     waiting.set(id, { resolve: resolve as (v: unknown) => void, reject });
-    worker.postMessage({ ...m, id }, transfer);
+    worker.then((w) => w.postMessage({ ...m, id }, transfer), reject);
   });
 }
 
@@ -177,6 +180,7 @@ function render(c: Card): void {
   state.textContent = `${v.parts.length} part${v.parts.length === 1 ? '' : 's'}: ${v.parts.map((p) => p.name).join(', ')} — measured in ${Math.round(v.millis)} ms${v.refused ? ' without the settings below (see the line above)' : ''}${c.busy ? ' (measuring again…)' : ''}`;
   v.parts.forEach((p, i) => body.append(partBlock(c, p, i)));
   setButtons(c, true);
+  if (!c.busy) performance.mark('platewise:figures-shown'); // read by the bench (tests/bench/page.ts)
 }
 
 function setButtons(c: Card, ok: boolean): void {
@@ -447,6 +451,7 @@ document.getElementById('batch-csv')!.addEventListener('click', () => { if (last
 // ------------------------------------------------------------------ intake
 
 async function take(list: FileList | File[]): Promise<void> {
+  performance.mark('platewise:files-taken');
   for (const f of Array.from(list)) addCard(f, await f.arrayBuffer());
   (document.getElementById('clear') as HTMLButtonElement).disabled = cards.length === 0;
 }
@@ -466,6 +471,9 @@ document.getElementById('clear')!.addEventListener('click', () => {
 });
 
 for (const v of document.querySelectorAll('[data-role="version"]')) v.textContent = PLATEWISE_VERSION;
+// the page takes files as soon as this script has run (data-ready): calls made before the worker is up wait for
+// it, and the worker answers in order, so the drawing palette below arrives before any file's figures
+document.body.dataset.ready = 'true';
 void call<{ materials: MaterialView[]; palette: Record<string, string> }>({ op: 'materials' }).then(({ materials, palette: p }) => {
   palette = p;
   const list = document.getElementById('materials')!;
@@ -473,5 +481,9 @@ void call<{ materials: MaterialView[]; palette: Record<string, string> }>({ op: 
     list.append(el('option', { value: m.id }, `${m.name}, ${m.density} kg/m³`));
     for (const a of m.aliases) list.append(el('option', { value: a }, `${m.name} (${m.id})`));
   }
-  document.body.dataset.ready = 'true';
+  document.body.dataset.worker = 'ready';
+  performance.mark('platewise:worker-ready'); // the page's own clock, read by the bench (tests/bench/page.ts)
+}, (e: Error) => {
+  document.body.dataset.worker = 'failed';
+  document.getElementById('intake')!.append(el('p', { class: 'caution', role: 'alert' }, `The page could not start its worker, so it cannot measure anything: ${e.message}. It needs a browser from 2023 or later (Chrome 110, Firefox 115, Safari 16.4).`));
 });

@@ -5,6 +5,8 @@
 export interface FileSettings { thickness: string; material: string; density: string; quantity: number; units: string }
 
 export type ToWorker = { id: number } & (
+  // sent once by web/start.js (id 0) before anything else: the CSS packages' code, loaded on first use
+  | { op: 'css-packages'; code: Blob }
   | { op: 'hold'; key: number; name: string; bytes: ArrayBuffer; settings: FileSettings }
   | { op: 'settings'; key: number; settings: FileSettings }
   | { op: 'drop'; key: number }

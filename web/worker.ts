@@ -242,6 +242,8 @@ scope.onmessage = async (ev) => {
   let reply: unknown;
   try {
     switch (m.op) {
+      // an address of the worker's own: a blob URL made by the page does not load here (opaque origin of file://)
+      case 'css-packages': (self as unknown as { platewiseCssUrl: string }).platewiseCssUrl = URL.createObjectURL(m.code); reply = null; break;
       case 'hold': files.set(m.key, { name: m.name, bytes: new Uint8Array(m.bytes), settings: m.settings }); reply = null; break;
       case 'settings': files.get(m.key)!.settings = m.settings; reply = null; break;
       case 'drop': files.delete(m.key); reply = null; break;

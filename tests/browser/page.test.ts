@@ -39,6 +39,8 @@ const FILES = [
   { name: 'baseplate.wkt', from: 'samples/baseplate.wkt', thickness: '', material: '', quantity: 1 },
   { name: 'bracket.svg', from: 'samples/bracket.svg', thickness: '6 mm', material: 's355', quantity: 4 },
   { name: 'broken.json', text: '{"name": "cut short", "outline": {"rectangle": [100, 50]},\n', thickness: '', material: '', quantity: 1 },
+  // a style sheet hides a construction circle: the page loads its CSS packages on demand (web/shims/module.ts)
+  { name: 'etched-plate-ep7.svg', from: 'samples/etched-plate-ep7.svg', thickness: '3 mm', material: 's355', quantity: 2 },
   { name: 'endplate-e2.json', from: 'samples/job/endplate-e2.json', thickness: '12 mm', material: 's355', quantity: 6 },
   { name: 'gusset-g2.json', from: 'samples/gusset-g2.json', thickness: '10', material: 'aluminium', quantity: 2 },
   { name: 'gusset.geojson', from: 'samples/gusset.geojson', thickness: '', material: '', quantity: 1 },
