@@ -159,7 +159,7 @@ export function boundaryMass(name: string, units: LengthUnit, layers: ResolvedLa
     method: {
       degree: 0, rulePoints: 0, estimator: 'exact boundary integrals', stopped: 'exact', tolerance: null,
       baseTriangles: 0, triangles: 0, rounds: 0, points, millis: performance.now() - started, minJacobianRatio: 1,
-      errorIsBound: true, unverifiedTriangles: 0, kinkCuts: 0,
+      errorIsBound: true, unverifiedTriangles: 0, boundedTriangles: 0, kinkCuts: 0,
     },
   };
 }

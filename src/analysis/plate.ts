@@ -10,7 +10,7 @@
 import { InputError, MethodError } from '../base/errors.js';
 import type { Mesh } from '../mesh/mesh.js';
 import { type CompiledExpression, type ExprNode, compileExpression, polynomialDegree } from '../expr/index.js';
-import { kinkLines, roundingOnBox, smoothOnBox, type KinkLine } from '../expr/smooth.js';
+import { kinkLines, rangeOnBox, roundingOnBox, smoothOnBox, type KinkLine } from '../expr/smooth.js';
 import { type Part, partBox } from '../geometry/part.js';
 import { type DensityOrigin, type ResolvedLayer, fieldError } from '../model/plate.js';
 import { type MeshOptions, buildMesh, integrandChordLength, joinMeshes, localOrigin } from '../mesh/build.js';
@@ -31,7 +31,12 @@ export interface IntegrationOptions extends MeshOptions {
   prepared?: boolean;
   /** The mesh to use for layer i, when the caller has one (built at most once per run). */
   meshOf?: (layer: number) => Mesh;
-  tolerance?: number;
+  /**
+   * Relative tolerance of adaptive refinement. Undefined: the default — mass properties take the two levels
+   * (mesh and its uniform refinement), `integrateExpression` refines a non-polynomial integrand to
+   * DEFAULT_INTEGRAL_TOLERANCE; null: the two levels only, never refined.
+   */
+  tolerance?: number | null;
   maxTriangles?: number;
   maxMillis?: number;
   /**
@@ -59,6 +64,8 @@ export interface IntegrationMethod {
   errorIsBound: boolean;
   /** Triangles (leaves) on which the integrand was not proved smooth. */
   unverifiedTriangles: number;
+  /** Base triangles counted 0 within a proved bound of their contribution, never evaluated (src/analysis/adaptive.ts). */
+  boundedTriangles: number;
   /** Straight kink or jump lines of the integrand the part was cut along (0: none, or cutting failed). */
   kinkCuts: number;
 }
@@ -79,6 +86,7 @@ function methodOf(results: AdaptiveResult[], tolerance: number | undefined, kink
     minJacobianRatio: Math.min(...results.map((r) => r.minJacobianRatio)),
     errorIsBound: results.every((r) => r.errorIsBound),
     unverifiedTriangles: results.reduce((n, r) => n + r.unverifiedLeaves, 0),
+    boundedTriangles: results.reduce((n, r) => n + r.boundedLeaves, 0),
     kinkCuts: kinkCuts.reduce((a, b) => a + b, 0),
   };
 }
@@ -199,7 +207,7 @@ function layerSums(layer: ResolvedLayer, index: number, opts: IntegrationOptions
   };
   const size = Math.hypot(...boxSize(mesh));
   const result = integrateAdaptive(mesh, MASS_SUMS, f, {
-    degree: opts.degree ?? DEFAULT_DEGREE, tolerance: opts.tolerance,
+    degree: opts.degree ?? DEFAULT_DEGREE, tolerance: opts.tolerance ?? undefined,
     // first moments and products: to within tolerance × (mass or second moment) × size, like the centre
     absTolerance: (s, tol) => {
       const e1 = tol * Math.abs(s[0]) * size, e6 = tol * Math.abs(s[6]) * size;
@@ -234,7 +242,7 @@ export function measureMass(name: string, units: LengthUnit, layers: ResolvedLay
     }
   });
   const { values, errors } = propagateErrors((s) => massFromSums(s, ref, units), total.fine, total.fine, total.estimate, total.scale);
-  const method = methodOf(runs.map((r) => r.result), opts.tolerance, runs.map((r) => r.cuts));
+  const method = methodOf(runs.map((r) => r.result), opts.tolerance ?? undefined, runs.map((r) => r.cuts));
   return { part: name, units, quantities: markBound(toQuantities(values, errors), method.errorIsBound), layers: out, method };
 }
 
@@ -260,6 +268,12 @@ export interface ExpressionResult {
 }
 
 /**
+ * Relative tolerance of `integrate` for an integrand that is not a polynomial, when none is asked for: the
+ * mesh is refined adaptively until the estimate is below it (polynomials are exact from the boundary).
+ */
+export const DEFAULT_INTEGRAL_TOLERANCE = 1e-12;
+
+/**
  * Integrate the expression `text` over a part: ∫ f dA, the first moments and the point of action of the
  * resultant. `where` names the expression's source in messages ("--expr").
  */
@@ -281,19 +295,31 @@ export function integrateExpression(input: Part, text: string, opts: Integration
     out[0] = v; out[1] = v * lx; out[2] = v * ly;
   };
   const size = Math.hypot(...boxSize(mesh));
+  const [ox, oy] = mesh.origin;
+  const tree = expr.tree;
+  const tolerance = opts.tolerance === null ? undefined : opts.tolerance ?? (expr.polynomialDegree === null ? DEFAULT_INTEGRAL_TOLERANCE : undefined);
   const r = integrateAdaptive(mesh, 3, f, {
-    degree: opts.degree ?? DEFAULT_DEGREE, tolerance: opts.tolerance,
+    degree: opts.degree ?? DEFAULT_DEGREE, tolerance,
     // first moments: the point of action to within tolerance × part size
     absTolerance: (s, tol) => [undefined, tol * Math.abs(s[0]) * size, tol * Math.abs(s[0]) * size],
     maxTriangles: opts.maxTriangles, maxMillis: opts.maxMillis, smoothOn: im ? im.smoothOn : () => true,
+    // |f|, |f·lx|, |f·ly| on a box by interval arithmetic (outward rounded; the margin covers the products' rounding)
+    boundsOn: (x0, y0, x1, y1, out) => {
+      const range = rangeOnBox(tree, [x0, y0, x1, y1]);
+      if (range === null) return false;
+      const B = Math.max(Math.abs(range[0]), Math.abs(range[1])) * (1 + 1e-12);
+      out[0] = B;
+      out[1] = B * Math.max(Math.abs(x0 - ox), Math.abs(x1 - ox)) * (1 + 1e-12);
+      out[2] = B * Math.max(Math.abs(y0 - oy), Math.abs(y1 - oy)) * (1 + 1e-12);
+      return true;
+    },
   });
-  const [ox, oy] = mesh.origin;
   const derive = (s: Float64Array) => ({
     integral: s[0], momentX: s[1] + ox * s[0], momentY: s[2] + oy * s[0], pointX: ox + s[1] / s[0], pointY: oy + s[2] / s[0],
   });
   // the estimate bounds the fine value's error by itself (see measureMass)
   const { values, errors } = propagateErrors(derive, r.fine, r.fine, r.estimate, r.scale);
-  const method = methodOf([r], opts.tolerance, [im?.cuts ?? 0]);
+  const method = methodOf([r], tolerance, [im?.cuts ?? 0]);
   // a cap (method.stopped) is a fact of the method; the writers in src/output say it in words
   return expressionResult(part, text, values, errors, r.errorIsBound, method);
 }
@@ -352,6 +378,6 @@ function boundaryExpression(part: Part, text: string, expr: CompiledExpression):
   return expressionResult(part, text, values, errors, true, {
     degree: 0, rulePoints: 0, estimator: 'exact boundary integrals', stopped: 'exact', tolerance: null,
     baseTriangles: 0, triangles: 0, rounds: 0, points: r.nodes, millis: performance.now() - started, minJacobianRatio: 1,
-    errorIsBound: true, unverifiedTriangles: 0, kinkCuts: 0,
+    errorIsBound: true, unverifiedTriangles: 0, boundedTriangles: 0, kinkCuts: 0,
   });
 }

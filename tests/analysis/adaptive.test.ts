@@ -120,9 +120,9 @@ describe(`adaptive integration to a relative tolerance of ${TOL}`, () => {
     });
   }
 
-  it('without a tolerance the near-singular case is far off, and its estimate says so', () => {
+  it('with the two levels only (tolerance null) the near-singular case is far off, and its estimate says so', () => {
     const k = CASES[2];
-    const r = integrateExpression(partFromObject(k.part), k.expr, {});
+    const r = integrateExpression(partFromObject(k.part), k.expr, { tolerance: null });
     const trueErr = Math.abs(r.integral.value - k.exact);
     expect(r.method.stopped).toBe('levels');
     expect(r.integral.error).toBeGreaterThanOrEqual(trueErr);

@@ -8,7 +8,7 @@
 import { describe, expect, it } from 'vitest';
 import { integrateAdaptive } from '../../src/analysis/adaptive.js';
 import { measureSection, preparePart } from '../../src/analysis/measure.js';
-import { integrateExpression } from '../../src/analysis/plate.js';
+import { DEFAULT_INTEGRAL_TOLERANCE, integrateExpression } from '../../src/analysis/plate.js';
 import { buildMesh } from '../../src/mesh/build.js';
 import { refineUniform } from '../../src/mesh/refine.js';
 import { MOMENT_COUNT, integrate } from '../../src/quadrature/integrate.js';
@@ -58,10 +58,14 @@ describe('one stop code everywhere', () => {
 
   it('adaptive refinement says tolerance, or which cap stopped it', () => {
     const p = partFromObject(plate);
-    // a polynomial comes exactly from the boundary; on the mesh, without a tolerance, it stops at the levels
+    // a polynomial comes exactly from the boundary; on the mesh, without a tolerance, it stops at the levels;
+    // anything else is refined to the default tolerance, or with tolerance null stops at the levels
     expect(integrateExpression(p, 'x*y', {}).method.stopped).toBe('exact');
     expect(integrateExpression(p, 'x*y', { method: 'mesh' }).method.stopped).toBe('levels');
-    expect(integrateExpression(p, 'sin(x/100)', {}).method.stopped).toBe('levels');
+    const smooth = integrateExpression(p, 'sin(x/100)', {});
+    expect(smooth.method.stopped).toBe('tolerance');
+    expect(smooth.method.tolerance).toBe(DEFAULT_INTEGRAL_TOLERANCE);
+    expect(integrateExpression(p, 'sin(x/100)', { tolerance: null }).method.stopped).toBe('levels');
     expect(integrateExpression(p, 'exp(-((x-120)^2+(y-90)^2)/300)', { tolerance: 1e-6 }).method.stopped).toBe('tolerance');
     const capped = integrateExpression(p, '1/sqrt((x-37.3)^2 + (y-21.7)^2 + 1e-6)', { tolerance: 1e-12, maxTriangles: 2000 });
     expect(capped.method.stopped).toBe('triangle-cap');

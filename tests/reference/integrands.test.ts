@@ -11,7 +11,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { integrateExpression } from '../../src/analysis/plate.js';
+import { DEFAULT_INTEGRAL_TOLERANCE, integrateExpression } from '../../src/analysis/plate.js';
 import { partFromObject } from '../../src/read/partJson.js';
 import { judge } from '../../src/qa/verdict.js';
 import { integralJson, integralText } from '../../src/output/massText.js';
@@ -186,18 +186,30 @@ describe('item 5: a rim singularity is marked "not a bound" everywhere', () => {
   });
 });
 
-describe('item 7: useful estimates at default settings', () => {
-  // before (453840a), default settings: Gaussian s = 12, 30, 60: estimate/true 49, 6.9e3, 1.6e6;
+describe('item 7: useful estimates from the two levels, and at default settings', () => {
+  // before (453840a), two levels (then the default): Gaussian s = 12, 30, 60: estimate/true 49, 6.9e3, 1.6e6;
   // panel 2 + cos((x+y)/20): true error 2.2e3 (6.8e-4 relative, from slivers along the long outline edges).
   for (const s of [12, 30, 60]) {
-    it(`Gaussian bump of width ${s}: 1 ≤ estimate / true error ≤ 1000`, () => {
+    it(`Gaussian bump of width ${s}, two levels (tolerance null): 1 ≤ estimate / true error ≤ 1000`, () => {
       const exact = ref(s === 12 ? 'gauss' : `gauss s=${s}`);
-      const r = integrateExpression(gaussPart(), gaussExpr(s), {});
+      const r = integrateExpression(gaussPart(), gaussExpr(s), { tolerance: null });
       const trueErr = Math.abs(r.integral.value - exact);
       console.log(`gauss s=${s} default: true ${trueErr.toExponential(2)} estimate ${r.integral.error.toExponential(2)} ratio ${(r.integral.error / trueErr).toFixed(1)}`);
       expect(trueErr).toBeGreaterThan(1e-13 * exact); // above round-off, so the ratio means something
       expect(r.integral.error / trueErr).toBeGreaterThanOrEqual(1);
       expect(r.integral.error / trueErr).toBeLessThanOrEqual(1000);
+    });
+  }
+  for (const s of [12, 30, 60]) {
+    it(`Gaussian bump of width ${s}, default settings: refined to ${DEFAULT_INTEGRAL_TOLERANCE}, true error ≤ 1e-13 relative and covered`, () => {
+      const exact = ref(s === 12 ? 'gauss' : `gauss s=${s}`);
+      const r = integrateExpression(gaussPart(), gaussExpr(s), {});
+      const trueErr = Math.abs(r.integral.value - exact);
+      console.log(`gauss s=${s} default: true ${trueErr.toExponential(2)} estimate ${r.integral.error.toExponential(2)}`);
+      expect(r.method.stopped).toBe('tolerance');
+      expect(trueErr).toBeLessThanOrEqual(1e-13 * exact);
+      expect(r.integral.error).toBeGreaterThanOrEqual(trueErr);
+      expect(r.integral.error).toBeLessThanOrEqual(DEFAULT_INTEGRAL_TOLERANCE * exact);
     });
   }
   it('the 1,250-hole panel: long outline edges are split, the error falls to round-off and stays covered', () => {
