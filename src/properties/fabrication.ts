@@ -18,7 +18,7 @@
  * - Straight-edged parts: exact rotating calipers over the convex hull of the vertices; an optimal rectangle
  *   has a side collinear with a hull edge (Freeman & Shapira 1975, from memory).
  * - Parts with curves: A(θ) has period π/2. Candidates are the directions of the hull edges of the vertex set,
- *   a scan of 2048 angles over [0, π/2), and golden-section refinement of the best local minima of the scan.
+ *   a scan of 128 angles over [0, π/2), and golden-section refinement of the best local minima of the scan.
  *   The result is then certified by a Lipschitz branch-and-bound: with R the half-diagonal of the bounding
  *   box, every boundary point lies within R of the box centre c, so h (taken about c) is a maximum of
  *   functions ⟨p − c, u(θ)⟩ whose slopes are at most R; hence W and H are 2R-Lipschitz and at most 2R,
@@ -252,7 +252,7 @@ export function minRectangleOfHull(hull: readonly [number, number][]): { theta: 
   return { theta: best!.theta, ext: best!.ext, spread };
 }
 
-const SCAN = 2048;
+const SCAN = 128;
 const CERT_TOL = 1e-7;
 const MAX_EVALS = 60000;
 
