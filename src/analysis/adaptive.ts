@@ -88,6 +88,11 @@ export interface AdaptiveOptions {
    * product as its estimate (a bound of its whole contribution), until refinement asks for it.
    */
   boundsOn?: (x0: number, y0: number, x1: number, y1: number, out: Float64Array) => boolean;
+  /**
+   * A bound per component of what the mesh leaves out (the part outside a meshed piece,
+   * src/analysis/localize.ts), added to the estimate throughout, so the tolerance is met with it.
+   */
+  outside?: ArrayLike<number>;
 }
 
 export interface AdaptiveResult {
@@ -290,7 +295,7 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
   }
   const heldEstimate = new Float64Array(K);
   const sumHeld = () => {
-    heldEstimate.fill(0);
+    for (let k = 0; k < K; k++) heldEstimate[k] = opts.outside?.[k] ?? 0;
     for (const t of held) for (let k = 0; k < K; k++) heldEstimate[k] += boundOf[t * K + k];
   };
   sumHeld();

@@ -24,6 +24,7 @@ import { exactFigures, preparePart } from './measure.js';
 import { MAX_BOUNDARY_DEGREE, boundCoordinate, boundMul, boundaryPolynomialIntegrals } from '../properties/boundaryPolynomial.js';
 import { checkPoles } from './singular.js';
 import { cutAlongLines } from './kinks.js';
+import { type LocalPiece, localPiece } from './localize.js';
 
 export interface IntegrationOptions extends MeshOptions {
   degree?: number;
@@ -66,6 +67,11 @@ export interface IntegrationMethod {
   unverifiedTriangles: number;
   /** Base triangles counted 0 within a proved bound of their contribution, never evaluated (src/analysis/adaptive.ts). */
   boundedTriangles: number;
+  /**
+   * `integrate` only: the box the mesh was limited to, [x0, y0, x1, y1]; outside it the integrand was bounded
+   * by interval arithmetic, and that bound is in the estimate (src/analysis/localize.ts).
+   */
+  meshedBox?: [number, number, number, number];
   /** Straight kink or jump lines of the integrand the part was cut along (0: none, or cutting failed). */
   kinkCuts: number;
 }
@@ -286,40 +292,53 @@ export function integrateExpression(input: Part, text: string, opts: Integration
     const exact = boundaryExpression(part, text, expr);
     if (exact) return exact;
   }
-  const im = expr.isConstant ? null : meshForIntegrands(part, [expr.tree], opts);
-  const mesh = im ? im.mesh : buildMesh(part, opts).mesh;
-  if (!expr.isConstant) checkPoles(mesh, ev, where);
+  const tree = expr.tree;
+  const tolerance = opts.tolerance === null ? undefined : opts.tolerance ?? (expr.polynomialDegree === null ? DEFAULT_INTEGRAL_TOLERANCE : undefined);
   const f = (x: number, y: number, lx: number, ly: number, out: Float64Array) => {
     const v = ev(x, y);
     if (!Number.isFinite(v)) throw new InputError(where, `is ${v} at (${x.toFixed(1)}, ${y.toFixed(1)}); expected a finite value everywhere on the part`);
     out[0] = v; out[1] = v * lx; out[2] = v * ly;
   };
-  const size = Math.hypot(...boxSize(mesh));
-  const [ox, oy] = mesh.origin;
-  const tree = expr.tree;
-  const tolerance = opts.tolerance === null ? undefined : opts.tolerance ?? (expr.polynomialDegree === null ? DEFAULT_INTEGRAL_TOLERANCE : undefined);
-  const r = integrateAdaptive(mesh, 3, f, {
-    degree: opts.degree ?? DEFAULT_DEGREE, tolerance,
-    // first moments: the point of action to within tolerance × part size
-    absTolerance: (s, tol) => [undefined, tol * Math.abs(s[0]) * size, tol * Math.abs(s[0]) * size],
-    maxTriangles: opts.maxTriangles, maxMillis: opts.maxMillis, smoothOn: im ? im.smoothOn : () => true,
-    // |f|, |f·lx|, |f·ly| on a box by interval arithmetic (outward rounded; the margin covers the products' rounding)
-    boundsOn: (x0, y0, x1, y1, out) => {
-      const range = rangeOnBox(tree, [x0, y0, x1, y1]);
-      if (range === null) return false;
-      const B = Math.max(Math.abs(range[0]), Math.abs(range[1])) * (1 + 1e-12);
-      out[0] = B;
-      out[1] = B * Math.max(Math.abs(x0 - ox), Math.abs(x1 - ox)) * (1 + 1e-12);
-      out[2] = B * Math.max(Math.abs(y0 - oy), Math.abs(y1 - oy)) * (1 + 1e-12);
-      return true;
-    },
-  });
+  const [bx0, by0, bx1, by1] = partBox(part);
+  const size = Math.hypot(bx1 - bx0, by1 - by0);
+  /** Integrate over `on` (the part, or its piece where f matters with the bound of the rest), or null to retry whole. */
+  const attempt = (on: Part, local: LocalPiece | null) => {
+    const im = expr.isConstant ? null : meshForIntegrands(on, [tree], opts);
+    const mesh = im ? im.mesh : buildMesh(on, opts).mesh;
+    if (!expr.isConstant) checkPoles(mesh, ev, where);
+    const [ox, oy] = mesh.origin;
+    const outside = local ? local.outside(ox, oy) : undefined;
+    const r = integrateAdaptive(mesh, 3, f, {
+      degree: opts.degree ?? DEFAULT_DEGREE, tolerance,
+      // first moments: the point of action to within tolerance × part size
+      absTolerance: (s, tol) => [undefined, tol * Math.abs(s[0]) * size, tol * Math.abs(s[0]) * size],
+      maxTriangles: opts.maxTriangles, maxMillis: opts.maxMillis, smoothOn: im ? im.smoothOn : () => true,
+      // |f|, |f·lx|, |f·ly| on a box by interval arithmetic (outward rounded; the margin covers the products' rounding)
+      boundsOn: (x0, y0, x1, y1, out) => {
+        const range = rangeOnBox(tree, [x0, y0, x1, y1]);
+        if (range === null) return false;
+        const B = Math.max(Math.abs(range[0]), Math.abs(range[1])) * (1 + 1e-12);
+        out[0] = B;
+        out[1] = B * Math.max(Math.abs(x0 - ox), Math.abs(x1 - ox)) * (1 + 1e-12);
+        out[2] = B * Math.max(Math.abs(y0 - oy), Math.abs(y1 - oy)) * (1 + 1e-12);
+        return true;
+      },
+      // what lies outside the piece: bounded, in the estimate; worth it only if far below the tolerance
+      outside,
+    });
+    if (outside && tolerance !== undefined) for (let k = 0; k < 3; k++) if (!(outside[k] <= 0.1 * r.target[k])) return null;
+    return { r, ox, oy, cuts: im?.cuts ?? 0, box: local ? local.box : null };
+  };
+  const local = expr.isConstant ? null : localPiece(part, tree);
+  const run = (local ? attempt(local.part, local) : null) ?? attempt(part, null)!;
+  const { r, ox, oy } = run;
   const derive = (s: Float64Array) => ({
     integral: s[0], momentX: s[1] + ox * s[0], momentY: s[2] + oy * s[0], pointX: ox + s[1] / s[0], pointY: oy + s[2] / s[0],
   });
   // the estimate bounds the fine value's error by itself (see measureMass)
   const { values, errors } = propagateErrors(derive, r.fine, r.fine, r.estimate, r.scale);
-  const method = methodOf([r], tolerance, [im?.cuts ?? 0]);
+  const method = methodOf([r], tolerance, [run.cuts]);
+  if (run.box) method.meshedBox = run.box;
   // a cap (method.stopped) is a fact of the method; the writers in src/output say it in words
   return expressionResult(part, text, values, errors, r.errorIsBound, method);
 }

@@ -17,6 +17,12 @@ import type { Quantity } from '../properties/quantities.js';
 import { densityText, integralWarningText } from './words.js';
 import { type QuantityRow, formatError, formatNumber, formatValue, renderRows } from './text.js';
 
+/** Where the mesh of an integral was limited to (src/analysis/localize.ts), in words. */
+function meshedBoxText(b: readonly number[], unit: string): string {
+  const n = (v: number) => formatNumber(v, 6);
+  return `; meshed only within x ${n(b[0])} to ${n(b[2])}, y ${n(b[1])} to ${n(b[3])} ${unit}, where interval arithmetic could not show the integrand negligible (its bound elsewhere is in the ±)`;
+}
+
 export interface MassUnits {
   mass: MassUnit;
   inertia: MassMomentUnit;
@@ -110,7 +116,7 @@ export function integralText(r: ExpressionResult, fUnit?: string): string {
     `${r.part} — f(x, y) = ${r.expression}; x, y in ${L}`, '', renderRows(rowsOut), '',
     m.estimator === 'exact boundary integrals'
       ? boundaryMethodText('a polynomial integrand')
-      : `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on ${m.triangles} triangles (from ${m.baseTriangles}); ${stopText(m)}`,
+      : `method: Dunavant degree ${m.degree} (${m.rulePoints} points) on ${m.triangles} triangles (from ${m.baseTriangles}); ${stopText(m)}${m.meshedBox ? meshedBoxText(m.meshedBox, L) : ''}`,
   ];
   if (!m.errorIsBound) out.push(`note: ${notBoundText(m)}`);
   for (const w of warningsOf(r)) out.push(`warning: ${w}`);

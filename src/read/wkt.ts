@@ -25,24 +25,62 @@ export interface WktOptions extends InterpretOptions {
   fileLabel?: string;
 }
 
-type Tok = { kind: 'word' | 'num' | '(' | ')' | ',' | ';' | 'end'; text: string; at: number };
+type TokKind = 'word' | 'num' | '(' | ')' | ',' | ';' | 'end';
 
 const NUM = /[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?/y;
 
-/** Most tokens read from one WKT text (about a million points): memory stays far under 1 GB (issue 16). */
-export const MAX_WKT_TOKENS = 3_000_000;
+/** Most tokens read from one WKT text (about 2 million points): memory stays far under 1 GB (issue 16). */
+export const MAX_WKT_TOKENS = 6_000_000;
 
-function tokenize(text: string, where: (at: number) => string, srids: { srid: number; at: number }[]): Tok[] {
-  const out: Tok[] = [];
+/**
+ * The tokens of a WKT text in typed arrays (kind, position, length, value): a million-point polygon is 3–4
+ * million tokens, which as one object each took several hundred MB.
+ */
+class Tokens {
+  n = 0;
+  kind = new Uint8Array(1024);
+  at = new Uint32Array(1024);
+  len = new Uint32Array(1024);
+  value = new Float64Array(1024);
+  /** Upper-cased keywords, by token index. */
+  words = new Map<number, string>();
+  constructor(readonly text: string) {}
+  push(kind: number, at: number, len: number, value: number): void {
+    if (this.n === this.kind.length) {
+      const grow = <T extends Uint8Array | Uint32Array | Float64Array>(a: T): T => { const b = new (a.constructor as new (n: number) => T)(2 * a.length); b.set(a); return b; };
+      this.kind = grow(this.kind); this.at = grow(this.at); this.len = grow(this.len); this.value = grow(this.value);
+    }
+    this.kind[this.n] = kind; this.at[this.n] = at; this.len[this.n] = len; this.value[this.n] = value;
+    this.n++;
+  }
+  kindOf(k: number): TokKind { return KINDS[this.kind[k]]; }
+  textOf(k: number): string {
+    const kind = this.kind[k];
+    if (kind === K_WORD) return this.words.get(k)!;
+    if (kind === K_END) return 'the end of the text';
+    return this.text.slice(this.at[k], this.at[k] + this.len[k]);
+  }
+}
+const KINDS: readonly TokKind[] = ['word', 'num', '(', ')', ',', ';', 'end'];
+const K_WORD = 0, K_NUM = 1, K_END = 6;
+const PUNCT: Record<string, number> = { '(': 2, ')': 3, ',': 4, ';': 5 };
+
+const isLetter = (c: number) => (c >= 65 && c <= 90) || (c >= 97 && c <= 122);
+
+function tokenize(text: string, where: (at: number) => string, srids: { srid: number; at: number }[]): Tokens {
+  const out = new Tokens(text);
   let i = 0;
   while (i < text.length) {
-    if (out.length > MAX_WKT_TOKENS) throw new InputError(where(i), `holds more than ${MAX_WKT_TOKENS} tokens (about ${MAX_WKT_TOKENS / 3} points), the limit for one drawing; split it or simplify it`);
+    if (out.n > MAX_WKT_TOKENS) throw new InputError(where(i), `holds more than ${MAX_WKT_TOKENS} tokens (about ${Math.round(MAX_WKT_TOKENS / 3)} points), the limit for one drawing; split it or simplify it`);
+    const code = text.charCodeAt(i);
+    // white space: the ASCII kinds at once, anything else as \s decides
+    if (code === 32 || (code >= 9 && code <= 13) || (code >= 128 && /\s/.test(text[i]))) { i++; continue; }
     const c = text[i];
-    if (/\s/.test(c)) { i++; continue; }
-    if (c === '(' || c === ')' || c === ',' || c === ';') { out.push({ kind: c, text: c, at: i }); i++; continue; }
-    if (/[A-Za-z]/.test(c)) {
+    const p = PUNCT[c];
+    if (p !== undefined) { out.push(p, i, 1, 0); i++; continue; }
+    if (isLetter(code)) {
       const s = i;
-      while (i < text.length && /[A-Za-z_]/.test(text[i])) i++;
+      while (i < text.length && (isLetter(text.charCodeAt(i)) || text[i] === '_')) i++;
       // EWKT "SRID=4326;" prefix
       if (text.slice(s, i).toUpperCase() === 'SRID' && text[i] === '=') {
         const m = /=\s*(\d+)\s*;/y;
@@ -53,15 +91,16 @@ function tokenize(text: string, where: (at: number) => string, srids: { srid: nu
         i = m.lastIndex;
         continue;
       }
-      out.push({ kind: 'word', text: text.slice(s, i).toUpperCase(), at: s });
+      out.words.set(out.n, text.slice(s, i).toUpperCase());
+      out.push(K_WORD, s, i - s, 0);
       continue;
     }
     NUM.lastIndex = i;
     const m = NUM.exec(text);
-    if (m) { out.push({ kind: 'num', text: m[0], at: i }); i += m[0].length; continue; }
+    if (m) { out.push(K_NUM, i, m[0].length, Number(m[0])); i += m[0].length; continue; }
     throw new InputError(where(i), `unexpected character "${c}"; expected a keyword, a number, '(', ')' or ','`);
   }
-  out.push({ kind: 'end', text: 'the end of the text', at: text.length });
+  out.push(K_END, text.length, 0, 0);
   return out;
 }
 
@@ -81,34 +120,34 @@ export function readWktDrawing(text: string, opts: WktOptions = {}): Drawing {
     units = { unit: opts.units, source: 'option', detail: { srid } };
   }
   let k = 0;
-  const peek = () => toks[k];
-  const expect = (kind: Tok['kind'], what: string): Tok => {
-    const t = toks[k];
-    if (t.kind !== kind) throw new InputError(where(t.at), `expected ${what}, got ${t.kind === 'end' ? t.text : `"${t.text}"`}`);
-    k++;
-    return t;
+  const kindNow = () => toks.kindOf(k);
+  /** The current token, which must be of `kind`; returns its position in the text. */
+  const expect = (kind: TokKind, what: string): number => {
+    const got = toks.kindOf(k);
+    if (got !== kind) throw new InputError(where(toks.at[k]), `expected ${what}, got ${got === 'end' ? toks.textOf(k) : `"${toks.textOf(k)}"`}`);
+    return toks.at[k++];
   };
-  const isEmpty = () => peek().kind === 'word' && peek().text === 'EMPTY' ? (k++, true) : false;
+  const isEmpty = () => kindNow() === 'word' && toks.textOf(k) === 'EMPTY' ? (k++, true) : false;
 
   const ring = (dims: number, tag: string, ringLabel: string): Loop | null => {
     if (isEmpty()) return null;
-    const open = expect('(', "'(' to start a ring or EMPTY");
+    const openAt = expect('(', "'(' to start a ring or EMPTY");
     const pts: { x: number; y: number; at: number }[] = [];
     for (;;) {
-      const first = peek();
-      const nums: number[] = [];
-      while (peek().kind === 'num') nums.push(Number(toks[k++].text));
-      if (nums.length !== dims) {
-        const hint = nums.length > dims && tag === '' ? ` (write POLYGON Z or POLYGON M for ${nums.length} ordinates)` : '';
-        throw new InputError(where(first.at), `expected a point of ${dims} numbers${tag ? ` (${tag})` : ''}, got ${nums.length}${hint}`);
+      const first = k;
+      while (toks.kind[k] === K_NUM) k++;
+      const count = k - first;
+      if (count !== dims) {
+        const hint = count > dims && tag === '' ? ` (write POLYGON Z or POLYGON M for ${count} ordinates)` : '';
+        throw new InputError(where(toks.at[first]), `expected a point of ${dims} numbers${tag ? ` (${tag})` : ''}, got ${count}${hint}`);
       }
-      if (!nums.every(Number.isFinite)) throw new InputError(where(first.at), 'expected finite numbers');
-      pts.push({ x: nums[0], y: nums[1], at: first.at });
-      if (peek().kind === ',') { k++; continue; }
+      for (let j = first; j < k; j++) if (!Number.isFinite(toks.value[j])) throw new InputError(where(toks.at[first]), 'expected finite numbers');
+      pts.push({ x: toks.value[first], y: toks.value[first + 1], at: toks.at[first] });
+      if (kindNow() === ',') { k++; continue; }
       expect(')', "',' or ')' after a point");
       break;
     }
-    if (pts.length < 4) throw new InputError(where(open.at), `expected a closed ring of at least 4 points, got ${pts.length}`);
+    if (pts.length < 4) throw new InputError(where(openAt), `expected a closed ring of at least 4 points, got ${pts.length}`);
     const a = pts[0], b = pts[pts.length - 1];
     if (a.x !== b.x || a.y !== b.y) {
       throw new InputError(where(b.at), `expected the ring to end at its first point (${a.x} ${a.y}), got (${b.x} ${b.y}); a linear ring is closed (OGC 06-103r4, 6.1.7)`);
@@ -117,44 +156,45 @@ export function readWktDrawing(text: string, opts: WktOptions = {}): Drawing {
     const d: { x: number; y: number }[] = [];
     for (const p of pts) { const q = d[d.length - 1]; if (!q || q.x !== p.x || q.y !== p.y) d.push(p); }
     if (d.length > 1 && d[0].x === d[d.length - 1].x && d[0].y === d[d.length - 1].y) d.pop();
-    if (d.length < 3) throw new InputError(where(open.at), `expected at least 3 distinct points, got ${d.length}`);
+    if (d.length < 3) throw new InputError(where(openAt), `expected at least 3 distinct points, got ${d.length}`);
     const segments: Segment[] = d.map((p, j) => ({ kind: 'line', x0: p.x, y0: p.y, x1: d[(j + 1) % d.length].x, y1: d[(j + 1) % d.length].y }));
-    return { segments, where: `${ringLabel} (wkt character ${open.at})` };
+    return { segments, where: `${ringLabel} (wkt character ${openAt})` };
   };
 
   const polygon = (dims: number, tag: string, polyLabel: string): Region | null => {
     if (isEmpty()) return null;
-    const open = expect('(', "'(' to start a polygon or EMPTY");
+    const openAt = expect('(', "'(' to start a polygon or EMPTY");
     const loops: (Loop | null)[] = [];
     for (;;) {
       loops.push(ring(dims, tag, `${polyLabel} ring ${loops.length}`));
-      if (peek().kind === ',') { k++; continue; }
+      if (kindNow() === ',') { k++; continue; }
       expect(')', "',' or ')' after a ring");
       break;
     }
     if (loops[0] === null) {
-      if (loops.some((l) => l !== null)) throw new InputError(where(open.at), 'expected an outline ring first; it is EMPTY but holes follow');
+      if (loops.some((l) => l !== null)) throw new InputError(where(openAt), 'expected an outline ring first; it is EMPTY but holes follow');
       return null;
     }
     return { outer: loops[0], holes: loops.slice(1).filter((l): l is Loop => l !== null) };
   };
 
   const parts: { regions: Region[]; at: number }[] = [];
-  while (peek().kind !== 'end') {
-    if (peek().kind === ';') { k++; continue; }
-    const kw = expect('word', 'POLYGON or MULTIPOLYGON');
-    if (kw.text !== 'POLYGON' && kw.text !== 'MULTIPOLYGON') {
-      throw new InputError(where(kw.at), `expected POLYGON or MULTIPOLYGON (a plate needs an area), got ${kw.text}`);
+  while (kindNow() !== 'end') {
+    if (kindNow() === ';') { k++; continue; }
+    const kwText = toks.kindOf(k) === 'word' ? toks.textOf(k) : '';
+    const kwAt = expect('word', 'POLYGON or MULTIPOLYGON');
+    if (kwText !== 'POLYGON' && kwText !== 'MULTIPOLYGON') {
+      throw new InputError(where(kwAt), `expected POLYGON or MULTIPOLYGON (a plate needs an area), got ${kwText}`);
     }
     let dims = 2, tag = '';
-    if (peek().kind === 'word' && ['Z', 'M', 'ZM'].includes(peek().text)) {
-      tag = toks[k++].text;
+    if (kindNow() === 'word' && ['Z', 'M', 'ZM'].includes(toks.textOf(k))) {
+      tag = toks.textOf(k++);
       dims = tag === 'ZM' ? 4 : 3;
     }
     const g = parts.length;
     const base = `wkt geometry ${g}`;
     const regions: Region[] = [];
-    if (kw.text === 'POLYGON') {
+    if (kwText === 'POLYGON') {
       const r = polygon(dims, tag, base);
       if (r) regions.push(r);
     } else if (!isEmpty()) {
@@ -162,12 +202,12 @@ export function readWktDrawing(text: string, opts: WktOptions = {}): Drawing {
       for (let j = 0; ; j++) {
         const r = polygon(dims, tag, `${base} polygon ${j}`);
         if (r) regions.push(r);
-        if (peek().kind === ',') { k++; continue; }
+        if (kindNow() === ',') { k++; continue; }
         expect(')', "',' or ')' after a polygon");
         break;
       }
     }
-    parts.push({ regions, at: kw.at });
+    parts.push({ regions, at: kwAt });
   }
   const nonEmpty = parts.filter((p) => p.regions.length > 0);
   if (nonEmpty.length === 0) {
