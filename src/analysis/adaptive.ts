@@ -343,7 +343,9 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
     };
     setTargets();
     for (;;) {
-      const met = drive.every((k) => estimate[k] <= target[k]);
+      // met when the ± the caller will show (the estimate plus the round-off allowance 64ε·(|value| + Σ|terms|)
+      // of propagateErrors, src/properties/mass.ts) is within the tolerance, not the estimate alone
+      const met = drive.every((k) => estimate[k] + ROUNDOFF * (Math.abs(fine[k]) + scale[k]) <= target[k]);
       if (met) { stopped = allBounded() ? 'tolerance' : 'unverified'; break; }
       if (Date.now() - start > maxMillis) { stopped = 'time-cap'; break; }
       const room = Math.floor((maxTriangles - 4 * leaves.length) / 12); // each split adds 3 leaves = 12 fine triangles
