@@ -23,6 +23,8 @@ import { type FabricationFigures, fabricationFigures } from '../properties/fabri
 import type { Quantity } from '../properties/quantities.js';
 import { type MeasureOptions, type SectionResult, type SectionWarning, measureSection } from './measure.js';
 import { boundaryMass } from './boundaryMass.js';
+import { plasticSection } from '../properties/plasticSection.js';
+import { measureTorsion } from './torsion.js';
 import { type IntegrationOptions, type MassResult, measureMass } from './plate.js';
 
 export type AnalysisWarning =
@@ -51,6 +53,11 @@ export interface AnalysisRequest {
   integration?: Pick<IntegrationOptions, 'tolerance' | 'maxTriangles' | 'maxMillis'>;
   /** 'always', 'never', or 'auto': when one constant thickness and density are known. */
   fabrication?: 'always' | 'auto' | 'never';
+  /**
+   * Member figures as `member` gives them, for a plate of one shape: the plastic group, and the torsion group
+   * (a finite-element solve, a second or two). `compare` and `batch` ask for them when a stated value needs them.
+   */
+  member?: { plastic?: boolean; torsion?: boolean };
 }
 
 export interface LayerReport {
@@ -73,8 +80,10 @@ export interface PartReport {
   plate?: ConstantPlate;
   /** What is missing for mass figures (empty when complete or not asked). */
   missing: ('thickness' | 'density')[];
-  /** Every computed quantity by catalogue key (section of the first layer, fabrication, mass). */
+  /** Every computed quantity by catalogue key (section of the first layer, fabrication, mass, member figures asked for). */
   quantities: Record<string, Quantity>;
+  /** Member figures were asked for but a plate of several layers has none (they need one shape). */
+  memberNotComputed?: { layers: number };
   warnings: AnalysisWarning[];
   cautions: Caution[];
   /** How the drawing was read (drawings only): counts, reasons, units with their source, marking per part. */
@@ -137,6 +146,14 @@ export function analyzePart(model: PlateModel & { interpretation?: Interpretatio
   const quantities: Record<string, Quantity> = { ...section.quantities };
   if (fabrication) for (const [k, v] of Object.entries(fabrication.quantities)) if (v) quantities[k] = v;
   if (mass) for (const [k, v] of Object.entries(mass.quantities)) quantities[k] = v;
+  let memberNotComputed: PartReport['memberNotComputed'];
+  if (request.member?.plastic || request.member?.torsion) {
+    if (model.layers.length !== 1) memberNotComputed = { layers: model.layers.length };
+    else {
+      if (request.member.plastic) for (const [k, v] of Object.entries(plasticSection(section.geometry.part, section.quantities).quantities)) quantities[k] = v;
+      if (request.member.torsion) for (const [k, v] of Object.entries(measureTorsion(model.layers[0].part).quantities)) quantities[k] = v;
+    }
+  }
   const cautions: Caution[] = ['geometry'];
   if (mass || fabrication?.quantities.netMass) cautions.push('mass');
   // issue 16: no NaN or Infinity is ever reported; the one refusal names the cause (src/analysis/finite.ts)
@@ -144,5 +161,6 @@ export function analyzePart(model: PlateModel & { interpretation?: Interpretatio
   return {
     part: model.name, units: model.units, unitSource: model.unitSource, layered: model.layered,
     layers, section, mass, fabrication, plate, missing, quantities, warnings, cautions, interpretation: model.interpretation, notCut: model.notCut,
+    ...(memberNotComputed ? { memberNotComputed } : {}),
   };
 }

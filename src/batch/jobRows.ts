@@ -8,7 +8,7 @@ import { isInputError, isMethodError } from '../base/errors.js';
 import type { MaterialTable } from '../model/materials.js';
 import type { PlateModel, PlateSettings } from '../model/plate.js';
 import type { Quantity } from '../properties/quantities.js';
-import { explainMissing, partSize } from '../qa/compute.js';
+import { explainMissing, memberNeeds, partSize } from '../qa/compute.js';
 import { type Reference, readReference } from '../qa/reference.js';
 import { type ComparisonRow, type Verdict, compareAll } from '../qa/verdict.js';
 import { readModels } from '../read/models.js';
@@ -113,6 +113,8 @@ export function jobRows(job: Job, settings: JobSettings, texts: JobTexts): Batch
         given: job.plate, defaults: settings.defaults, materials: settings.materials,
         // a constant plate's mass comes from exact boundary integrals: cheap, so the mass column is always filled
         mass: 'optional', fabrication: 'always',
+        // plastic and torsion figures only for a part whose stated values need them
+        member: stated.length > 0 && (parts.length === 1 || named === undefined || named === part.name) ? memberNeeds(stated.map((v) => v.quantity)) : undefined,
       });
       const p = f.plate;
       row.material = p?.material ?? null;

@@ -333,7 +333,7 @@ function wrap(text: string, width: number): string[] {
 
 export function summaryText(s: BatchSummary): string {
   const lines = [
-    `batch: ${s.rows} file${s.rows === 1 ? '' : 's'}, ${s.parts} part${s.parts === 1 ? '' : 's'}: ${s.partsMeasured} measured, ${s.partsFailed} failed; ${s.pieces} pieces in all`,
+    `batch: ${s.rows} file${s.rows === 1 ? '' : 's'}, ${s.parts} part${s.parts === 1 ? '' : 's'}: ${s.partsMeasured} measured, ${s.partsFailed} failed; ${s.pieces} piece${s.pieces === 1 ? '' : 's'} in all`,
   ];
   if (s.byMaterialAndThickness.length > 0) {
     lines.push('totals by material and thickness (× quantity):');

@@ -3,6 +3,18 @@
  * length tolerances), which stated keys need a thickness and density, and why a stated mass was not computed.
  */
 import type { PartReport } from '../analysis/analyze.js';
+import { quantityInfo } from '../properties/quantities.js';
+
+/** Which member figures stated values need (the plastic and torsion groups come from `member`'s analysis). */
+export function memberNeeds(keys: Iterable<string>): { plastic: boolean; torsion: boolean } {
+  let plastic = false, torsion = false;
+  for (const k of keys) {
+    const g = quantityInfo(k)?.group;
+    if (g === 'plastic') plastic = true;
+    if (g === 'torsion') torsion = true;
+  }
+  return { plastic, torsion };
+}
 
 /** Bounding-box diagonal in the part's unit (for default length tolerances). */
 export function partSize(r: PartReport): number {
@@ -32,6 +44,13 @@ export function missingReason(r: PartReport): MissingReason {
 export function explainMissing(rows: { quantity: string; note?: string; computed: number | null }[], r: PartReport): void {
   const why = missingReason(r);
   for (const row of rows) {
+    if (row.computed === null && r.memberNotComputed) {
+      const g = quantityInfo(row.quantity)?.group;
+      if (g === 'plastic' || g === 'torsion') {
+        row.note = `not computed: member figures need a plate of one shape; this one has ${r.memberNotComputed.layers} layers`;
+        continue;
+      }
+    }
     if (row.computed === null && needsPlate(row.quantity)) {
       row.note = why.code === 'needs'
         ? `not computed: needs ${why.missing.map((m) => (m === 'thickness' ? 'a thickness' : 'a density (material or density)')).join(' and ')}`

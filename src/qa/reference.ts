@@ -34,7 +34,7 @@ import { InputError, describeValue } from '../base/errors.js';
 import { checkJsonText } from '../base/jsonCheck.js';
 import { type Dimension, QUANTITIES, quantityInfo } from '../properties/quantities.js';
 import { parseCsvRecords, csvWhere } from '../base/csv.js';
-import { type ParsedUnit, parseUnit, plainScale, UNIT_EXAMPLES } from './units.js';
+import { DIMENSION_WORDS, type ParsedUnit, parseUnit, plainScale, UNIT_EXAMPLES } from './units.js';
 import { editDistance } from '../base/text.js';
 
 export type StatedTolerance =
@@ -147,12 +147,12 @@ export function unitFor(dim: Dimension, text: string, where: string): ParsedUnit
   const t = text.trim();
   if (t === '') {
     if (dim === 'count' || dim === 'ratio') return { dimension: dim, scale: plainScale(dim), text: '' };
-    throw new InputError(where, `expected a unit of ${dim} (${UNIT_EXAMPLES[dim]}); units are never assumed`);
+    throw new InputError(where, `expected a unit of ${DIMENSION_WORDS[dim]} (${UNIT_EXAMPLES[dim]}); units are never assumed`);
   }
   const u = parseUnit(t);
-  if (!u) throw new InputError(where, `unknown unit "${t}"; expected a unit of ${dim} (${UNIT_EXAMPLES[dim]})`);
+  if (!u) throw new InputError(where, `unknown unit "${t}"; expected a unit of ${DIMENSION_WORDS[dim]} (${UNIT_EXAMPLES[dim]})`);
   if (u.dimension !== dim) {
-    throw new InputError(where, `"${t}" is a unit of ${u.dimension}; expected a unit of ${dim} (${UNIT_EXAMPLES[dim]})`);
+    throw new InputError(where, `"${t}" is a unit of ${DIMENSION_WORDS[u.dimension]}; expected a unit of ${DIMENSION_WORDS[dim]} (${UNIT_EXAMPLES[dim]})`);
   }
   return u;
 }

@@ -54,7 +54,7 @@ export const UNIT_EXAMPLES: Record<Dimension, string> = {
   length3: 'mm³, cm³, in³ (or mm3, mm^3)',
   length4: 'mm⁴, cm⁴, in⁴ (or mm4, mm^4)',
   length6: 'mm⁶, cm⁶, in⁶ (or mm6, mm^6)',
-  perLength3: 'not accepted in a stated-values file',
+  perLength3: 'mm⁻³, cm⁻³, in⁻³ (or mm^-3, 1/mm³)',
   angle: 'deg (or °), rad',
   count: 'no unit',
   ratio: 'no unit, or %',
@@ -63,10 +63,16 @@ export const UNIT_EXAMPLES: Record<Dimension, string> = {
   force: 'N, kN, lbf',
 };
 
-/** "mm²", "mm2", "mm^2", "in ^ 3" → { name, power }; null if not of that form. */
+/** Each dimension in words, for messages. */
+export const DIMENSION_WORDS: Record<Dimension, string> = {
+  length: 'length', area: 'area', length3: 'length³', length4: 'length⁴', length6: 'length⁶', perLength3: 'length⁻³',
+  angle: 'angle', count: 'count', ratio: 'ratio', mass: 'mass', massMoment: 'mass × length²', force: 'force',
+};
+
+/** "mm²", "mm2", "mm^2", "in ^ 3", "mm⁶" → { name, power }; null if not of that form. */
 function splitPower(s: string): { name: string; power: number } | null {
   const t = s.replace(/[¹²³⁴⁶]/g, (c) => '^' + SUPERSCRIPT[c]).replace(/\s+/g, '');
-  const m = /^([a-z]+)(?:\^?([1-4]))?$/.exec(t);
+  const m = /^([a-z]+)(?:\^?([1-46]))?$/.exec(t);
   if (!m) return null;
   return { name: m[1], power: m[2] ? Number(m[2]) : 1 };
 }
@@ -90,6 +96,17 @@ export function parseUnit(text: string): ParsedUnit | null {
     }
     return null;
   }
+  // per length cubed (τmax/T): "mm⁻³", "mm^-3", "mm-3", "1/mm³", "1/mm^3"; the scale is the reciprocal of a
+  // whole number of ticks, so a conversion is within a few ulps of the exact factor instead of exact
+  const inv = /^1\s*\/\s*(.+)$/.exec(s);
+  const neg = /^([a-z]+)\s*(?:⁻³|\^\s*-\s*3|-3)$/.exec(s);
+  if (inv || neg) {
+    const lp = inv ? splitPower(inv[1]) : { name: neg![1], power: 3 };
+    if (lp && lp.power === 3 && Object.prototype.hasOwnProperty.call(LENGTH_TICKS, lp.name)) {
+      return { dimension: 'perLength3', scale: 1 / LENGTH_TICKS[lp.name].ticks ** 3, text: raw };
+    }
+    return null;
+  }
   const lp = splitPower(s);
   if (lp && Object.prototype.hasOwnProperty.call(LENGTH_TICKS, lp.name)) {
     return { dimension: POWER_OF[lp.power], scale: LENGTH_TICKS[lp.name].ticks ** lp.power, text: raw };
@@ -108,7 +125,7 @@ export function reportScale(dim: Dimension, lengthUnit: LengthUnit): number {
     case 'length3': return PART_TICKS[lengthUnit] ** 3;
     case 'length4': return PART_TICKS[lengthUnit] ** 4;
     case 'length6': return PART_TICKS[lengthUnit] ** 6;
-    case 'perLength3': return PART_TICKS[lengthUnit] ** -3;
+    case 'perLength3': return 1 / PART_TICKS[lengthUnit] ** 3;
     case 'angle': return 1;
     case 'count': return 1;
     case 'ratio': return 100; // a plain fraction is 100 ticks of %

@@ -137,6 +137,67 @@ describe('compare: verdicts and exit statuses', () => {
   });
 });
 
+describe('compare: member figures stated on a sheet (plastic and torsion groups)', () => {
+  // Closed forms (common practice, no source; the torsion tests in tests/analysis/torsion.test.ts check the
+  // same): a solid circle of diameter d has J = πd⁴/32 and τmax/T = 16/(πd³); a rectangle b × h has the
+  // plastic modulus Zx = b·h²/4 about its centroidal x axis, and warping constant Iw of a circle is 0.
+  const disc = file('disc.json', { part: 'disc (invented)', units: 'mm', outline: { circle: { center: [0, 0], diameter: 40 } } });
+  const bar = file('bar.json', { part: 'bar (invented)', units: 'mm', outline: { rectangle: { corner: [0, 0], size: [100, 20] } } });
+
+  it('J and τmax/T of a disc against πd⁴/32 and 16/(πd³), in several unit spellings: every row passes', () => {
+    const refs = [
+      file('disc-ref-mm.json', { values: [
+        { quantity: 'J', value: Math.PI * 40 ** 4 / 32, unit: 'mm4', tolerance: '0.1%' },
+        { quantity: 'tauPerTorque', value: 16 / (Math.PI * 40 ** 3), unit: 'mm^-3', tolerance: '0.5%' },
+      ] }),
+      file('disc-ref-cm.json', { values: [
+        { quantity: 'J', value: Math.PI * 4 ** 4 / 32, unit: 'cm⁴', tolerance: '0.1%' },
+        { quantity: 'tauPerTorque', value: 16 / (Math.PI * 4 ** 3), unit: '1/cm³', tolerance: '0.5%' },
+      ] }),
+    ];
+    for (const ref of refs) {
+      const r = platewise(['compare', disc, '--reference', ref, '--csv']);
+      expect(r.status, r.stderr).toBe(0);
+      const t = parseCsvRecords(r.stdout, 'out');
+      expect(t.records.map((x) => [x.quantity, x.verdict])).toEqual([['J', 'pass'], ['tauPerTorque', 'pass']]);
+    }
+  });
+
+  it('Zx of a bar against b·h²/4 (plastic group); a wrong Zx fails', () => {
+    const ref = file('bar-ref.json', { values: [{ quantity: 'Zx', value: 100 * 20 ** 2 / 4, unit: 'mm³' }, { quantity: 'Zy', value: 20 * 100 ** 2 / 4 * 1.5, unit: 'mm³', note: 'deliberately wrong' }] });
+    const r = platewise(['compare', bar, '--reference', ref]);
+    expect(r.status).toBe(1);
+    expect(r.stdout).toMatch(/^Zx .* pass$/m);
+    expect(r.stdout).toMatch(/^Zy .* FAIL$/m);
+    // no torsion stated: no torsion solve and no prismatic-member note
+    expect(r.stdout).not.toMatch(/prismatic member/);
+  });
+
+  it('torsion stated: the prismatic-member note is printed with the verdicts', () => {
+    const ref = file('disc-ref2.json', { values: [{ quantity: 'J', value: Math.PI * 40 ** 4 / 32, unit: 'mm4', tolerance: '0.1%' }] });
+    const r = platewise(['compare', disc, '--reference', ref]);
+    expect(r.status, r.stderr).toBe(0);
+    expect(r.stdout).toMatch(/prismatic\s+member/);
+  });
+
+  it('a plate of two layers has no member figures: the row says why, the verdict is inconclusive', () => {
+    const ref = file('td5-ref.json', { values: [{ quantity: 'J', value: 1, unit: 'mm4' }] });
+    const r = platewise(['compare', 'samples/tapered-doubler-td5.json', '--reference', ref]);
+    expect(r.status).toBe(1);
+    expect(r.stdout).toMatch(/member figures need a plate of one shape; this one has 2 layers/);
+  });
+
+  it('units of the warping constant and of τmax/T are read; a unit of the wrong power is refused in words', () => {
+    const ok = file('iw-ref.json', { values: [{ quantity: 'Iw', value: 0, unit: 'mm6', tolerance: '1 mm6' }] });
+    expect(platewise(['compare', disc, '--reference', ok]).stderr).not.toMatch(/unknown unit/);
+    const bad = file('tau-bad.json', { values: [{ quantity: 'tauPerTorque', value: 1, unit: 'mm^-4' }] });
+    const r = platewise(['compare', disc, '--reference', bad]);
+    expect(r.status).toBe(2);
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+    expect(r.stderr).toMatch(/unknown unit "mm\^-4"; expected a unit of length⁻³ \(mm⁻³/);
+  });
+});
+
 describe('compare --digits-tolerance', () => {
   // the perimeter of the plate above: 2(200 + 100) + 40π = 725.6637 mm (closed form); stated as 0.7257 m
   // it is 0.036 mm off: fails the default 0.01 mm + 0.01 % of the diagonal (0.032 mm), passes ± 0.00005 m
