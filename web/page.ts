@@ -253,9 +253,24 @@ function unitChoice(c: Card): HTMLElement {
   return el('label', { for: id }, 'drawing unit', field);
 }
 
+/** The mass units, as `--mass-unit` with `--inertia-unit` give them (web/worker.ts MASS_CHOICES). */
+function massUnitChoice(c: Card): HTMLElement {
+  const id = `f${c.key}-mass-units`;
+  const field = el('select', { id, name: 'massUnits', 'data-role': 'mass-units' },
+    el('option', { value: '' }, 'kg, kg·m²'),
+    el('option', { value: 'lb' }, 'lb, lb·in²'),
+    el('option', { value: 'lb-ft' }, 'lb, lb·ft²'),
+    el('option', { value: 'g' }, 'g, g·cm²'));
+  field.addEventListener('change', () => {
+    c.settings.massUnits = (field as HTMLSelectElement).value;
+    void call({ op: 'settings', key: c.key, settings: c.settings }).then(() => measure(c));
+  });
+  return el('label', { for: id }, 'mass units', field);
+}
+
 function addCard(file: File, bytes: ArrayBuffer): Card {
   const key = nextKey++;
-  const c: Card = { key, name: file.name, root: el('section', { class: 'file', 'data-file': file.name, 'aria-labelledby': `f${key}-title` }), settings: { thickness: '', material: '', density: '', quantity: 1, units: '' }, busy: false, again: false };
+  const c: Card = { key, name: file.name, root: el('section', { class: 'file', 'data-file': file.name, 'aria-labelledby': `f${key}-title` }), settings: { thickness: '', material: '', density: '', quantity: 1, units: '', massUnits: '' }, busy: false, again: false };
   const form = el('form', { class: 'inputs', 'aria-label': `settings for ${file.name}` });
   form.addEventListener('submit', (e) => e.preventDefault());
   form.append(
@@ -264,6 +279,7 @@ function addCard(file: File, bytes: ArrayBuffer): Card {
     input('density instead (kg/m³)', 'density', c, { type: 'text', inputmode: 'decimal', autocomplete: 'off', 'data-role': 'density' }),
     input('how many pieces', 'quantity', c, { type: 'number', min: '1', step: '1', 'data-role': 'quantity' }),
     unitChoice(c),
+    massUnitChoice(c),
   );
   const toAll = el('button', { type: 'button', class: 'quiet' }, 'Use these settings for every file');
   toAll.addEventListener('click', () => {
@@ -272,6 +288,7 @@ function addCard(file: File, bytes: ArrayBuffer): Card {
       o.settings = { ...c.settings };
       for (const k of ['thickness', 'material', 'density', 'quantity'] as const) (o.root.querySelector(`input[name="${k}"]`) as HTMLInputElement).value = String(o.settings[k]);
       (o.root.querySelector('select[name="units"]') as HTMLSelectElement).value = o.settings.units;
+      (o.root.querySelector('select[name="massUnits"]') as HTMLSelectElement).value = o.settings.massUnits;
       void call({ op: 'settings', key: o.key, settings: o.settings }).then(() => measure(o));
     }
   });

@@ -27,12 +27,19 @@ import { quantityInfo, unitText } from '../src/properties/quantities.js';
 import { readReference } from '../src/qa/reference.js';
 import { type ReadModel, readModels } from '../src/read/models.js';
 import type { LengthUnit } from '../src/base/units.js';
+import type { MassUnits } from '../src/output/massText.js';
 import type { FileSettings, FileView, MemberPartView, MemberView, PartView, QuantityGroupView, ToWorker } from './protocol.js';
 
 declare const PLATEWISE_VERSION: string;
 
-/** The CLI's measure defaults: kg and kg·m² (massJson converts to these). */
-const MASS_UNITS = { mass: 'kg', inertia: 'kg·m²' } as const;
+/** The page's mass-unit choices as the command line's --mass-unit and --inertia-unit ('' is its default). */
+export const MASS_CHOICES: Record<string, MassUnits> = {
+  '': { mass: 'kg', inertia: 'kg·m²' },
+  lb: { mass: 'lb', inertia: 'lb·in²' },
+  'lb-ft': { mass: 'lb', inertia: 'lb·ft²' },
+  g: { mass: 'g', inertia: 'g·cm²' },
+};
+const massUnitsOf = (s: FileSettings): MassUnits => MASS_CHOICES[s.massUnits] ?? MASS_CHOICES[''];
 
 interface Held { name: string; bytes: Uint8Array; settings: FileSettings; reports?: PartReport[] }
 const files = new Map<number, Held>();
@@ -63,23 +70,23 @@ function groupView(title: string, group: string, q: Record<string, { value: numb
   };
 }
 
-function partView(r: PartReport): PartView {
-  // exactly the document `measure --json` prints for this part
-  const doc = partReportJson(r, MASS_UNITS) as {
+function partView(r: PartReport, mu: MassUnits): PartView {
+  // exactly the document `measure --json` prints for this part, and the units it states for each group
+  const doc = partReportJson(r, mu) as {
     quantities: Record<string, { value: number; error: number }>;
-    massProperties?: { quantities: Record<string, { value: number; error: number }>; units: { mass: string } };
+    massProperties?: { quantities: Record<string, { value: number; error: number }>; units: { mass: string; massMoment: string } };
     fabrication?: { quantities: Record<string, { value: number; error: number }>; units: { mass: string } };
   };
   const length = r.units;
-  const unit = (key: string, mass = 'kg') => {
+  const unit = (key: string, mass: string, inertia: string) => {
     const info = quantityInfo(key);
     if (!info) return '';
-    return info.dimension === 'massMoment' ? MASS_UNITS.inertia : unitText(info.dimension, length, mass);
+    return info.dimension === 'massMoment' ? inertia : unitText(info.dimension, length, mass);
   };
   const groups = [
-    groupView('Section', 'section', doc.quantities, (k) => unit(k)),
-    groupView('Mass', 'mass', doc.massProperties?.quantities, (k) => unit(k)),
-    groupView('Cutting', 'fabrication', doc.fabrication?.quantities, (k) => unit(k)),
+    groupView('Section', 'section', doc.quantities, (k) => unit(k, 'kg', '')),
+    groupView('Mass', 'mass', doc.massProperties?.quantities, (k) => unit(k, doc.massProperties!.units.mass, doc.massProperties!.units.massMoment)),
+    groupView('Cutting', 'fabrication', doc.fabrication?.quantities, (k) => unit(k, doc.fabrication!.units.mass, '')),
   ].filter((g): g is QuantityGroupView => g !== undefined);
   const reading = r.interpretation ? interpretationText(r.interpretation, r.part) : [`length unit ${r.units}: ${unitSourceText(r.unitSource)}`];
   const p = r.plate;
@@ -135,10 +142,11 @@ function measure(key: number): FileView {
       reports = run({});
       refused = `platewise: ${failureText(e)}`;
     }
-    const json = reportsJson(reports, MASS_UNITS);
+    const mu = massUnitsOf(h.settings);
+    const json = reportsJson(reports, mu);
     h.reports = reports;
     if (unitsRefused) refused = refused ? `${unitsRefused}\n${refused}` : unitsRefused;
-    return { ok: true, parts: reports.map(partView), json, millis: performance.now() - t0, refused };
+    return { ok: true, parts: reports.map((r) => partView(r, mu)), json, millis: performance.now() - t0, refused };
   } catch (e) {
     h.reports = undefined;
     return { ok: false, message: `platewise: ${failureText(e)}`, millis: performance.now() - t0 };

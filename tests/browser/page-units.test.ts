@@ -2,7 +2,9 @@
  * The page's drawing unit (the `--units` of the command line) in Chromium: an invented unitless SVG plate is
  * read by the default rule (CSS pixels, with the warning) and, with "mm" chosen, as millimetres — each time
  * every section figure equal to `platewise measure --json` with the same flags to 1e-12 relative; a unit given
- * to a part file gets the command line's refusal line while the figures stay as the file says.
+ * to a part file gets the command line's refusal line while the figures stay as the file says. The mass units
+ * (the command line's --mass-unit with --inertia-unit): every mass figure shown and the saved JSON equal
+ * `measure --json` with the same flags, and each unit cell says the unit chosen.
  * Needs `npm run build` and Chromium.
  */
 import { spawnSync } from 'node:child_process';
@@ -39,6 +41,13 @@ async function settled(name: string, units: string): Promise<void> {
     const e = document.querySelector(c) as HTMLElement | null;
     return !!e && !!e.dataset.settings && JSON.parse(e.dataset.settings).units === u && (e.dataset.state === 'done' || e.dataset.state === 'failed');
   }, [card(name), units] as const, { timeout: 60_000 });
+}
+
+async function settledMass(name: string, massUnits: string): Promise<void> {
+  await page.waitForFunction(([c, m]) => {
+    const e = document.querySelector(c) as HTMLElement | null;
+    return !!e && !!e.dataset.settings && JSON.parse(e.dataset.settings).massUnits === m && e.dataset.state === 'done';
+  }, [card(name), massUnits] as const, { timeout: 60_000 });
 }
 
 async function sectionShown(name: string): Promise<Map<string, number>> {
@@ -90,5 +99,31 @@ describe('the drawing unit in the page', () => {
     const asFile = JSON.parse(platewise(['measure', 'plate.json', '--json']).stdout);
     const got = await sectionShown('plate.json');
     expect(close(got.get('area')!, asFile.quantities.area.value)).toBe(true);
+  });
+});
+
+describe('the mass units in the page', () => {
+  it('lb with lb·in²: the mass figures and their units equal measure --json --mass-unit lb --inertia-unit lb·in²', async () => {
+    // the part file's plate: 120 × 60 mm; 10 mm of s355 typed in, as --thickness and --material
+    await page.selectOption(`${card('plate.json')} select[name="units"]`, '');
+    await page.fill(`${card('plate.json')} input[name="thickness"]`, '10 mm');
+    await page.fill(`${card('plate.json')} input[name="material"]`, 's355');
+    await page.selectOption(`${card('plate.json')} select[name="massUnits"]`, 'lb');
+    await settledMass('plate.json', 'lb');
+    await page.waitForFunction((c) => JSON.parse((document.querySelector(c) as HTMLElement).dataset.settings!).material === 's355', card('plate.json'));
+    await page.waitForSelector(`${card('plate.json')}[data-state="done"] tr[data-group="mass"]`);
+    const cli = JSON.parse(platewise(['measure', 'plate.json', '--json', '--thickness', '10 mm', '--material', 's355', '--mass-unit', 'lb', '--inertia-unit', 'lb·in²']).stdout);
+    const rows = await page.$$eval(`${card('plate.json')} tr[data-group="mass"]`, (trs) => trs.map((t) => ({ key: t.getAttribute('data-key')!, value: Number(t.getAttribute('data-value')), unit: t.lastElementChild!.textContent!.trim() })));
+    expect(rows.length).toBe(Object.keys(cli.massProperties.quantities).length);
+    for (const r of rows) {
+      expect(close(r.value, cli.massProperties.quantities[r.key].value), r.key).toBe(true);
+      if (r.key === 'mass') expect(r.unit).toBe('lb');
+      if (r.key === 'massMomentZ') expect(r.unit).toBe('lb·in²');
+    }
+    expect(cli.massProperties.units.mass).toBe('lb');
+    // 120 × 60 × 10 mm of steel at 7850 kg/m³ (design value of density for steel, EN 1993-1-1:2005, 3.2.6, the
+    // built-in table's figure for s355) in pounds (1 lb = 0.45359237 kg exactly, NIST SP 811 appendix B)
+    const mass = rows.find((r) => r.key === 'mass')!.value;
+    expect(Math.abs(mass - 0.12 * 0.06 * 0.01 * 7850 / 0.45359237)).toBeLessThanOrEqual(1e-12 * mass);
   });
 });
