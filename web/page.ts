@@ -487,17 +487,44 @@ document.getElementById('clear')!.addEventListener('click', () => {
   scheduleBatch();
 });
 
+// the user's materials file (the command line's --materials-file): for every file; the figures are made again
+const materialsPick = document.getElementById('materials-pick') as HTMLInputElement;
+const materialsState = document.getElementById('materials-state')!;
+const materialsForget = document.getElementById('materials-forget') as HTMLButtonElement;
+const materialsMessage = document.getElementById('materials-message')!;
+function fillMaterials(materials: MaterialView[]): void {
+  const list = document.getElementById('materials')!;
+  list.replaceChildren();
+  for (const m of materials) {
+    list.append(el('option', { value: m.id }, `${m.name}, ${m.density} kg/m³${m.fromFile ? ' (your file)' : ''}`));
+    for (const a of m.aliases) list.append(el('option', { value: a }, `${m.name} (${m.id})`));
+  }
+}
+async function useMaterialsFile(file: File | null): Promise<void> {
+  try {
+    const r = await call<{ materials: MaterialView[]; count: number }>({ op: 'materials-file', name: file?.name ?? '', bytes: file ? await file.arrayBuffer() : null });
+    fillMaterials(r.materials);
+    materialsState.textContent = file ? `${file.name}: ${r.count} material${r.count === 1 ? '' : 's'} (they come first and may replace built-in ones)` : 'built-in materials only';
+    materialsMessage.textContent = '';
+    document.body.dataset.materialsFile = file ? file.name : '';
+    materialsForget.hidden = file === null;
+    for (const c of cards) void measure(c);
+  } catch (e) {
+    // the command line's one line; the table in use stays as it was (the line above says which)
+    materialsMessage.textContent = (e as Error).message;
+    document.body.dataset.materialsFile = 'refused';
+  }
+}
+materialsPick.addEventListener('change', () => { const f = materialsPick.files?.[0]; materialsPick.value = ''; if (f) void useMaterialsFile(f); });
+materialsForget.addEventListener('click', () => void useMaterialsFile(null));
+
 for (const v of document.querySelectorAll('[data-role="version"]')) v.textContent = PLATEWISE_VERSION;
 // the page takes files as soon as this script has run (data-ready): calls made before the worker is up wait for
 // it, and the worker answers in order, so the drawing palette below arrives before any file's figures
 document.body.dataset.ready = 'true';
 void call<{ materials: MaterialView[]; palette: Record<string, string> }>({ op: 'materials' }).then(({ materials, palette: p }) => {
   palette = p;
-  const list = document.getElementById('materials')!;
-  for (const m of materials) {
-    list.append(el('option', { value: m.id }, `${m.name}, ${m.density} kg/m³`));
-    for (const a of m.aliases) list.append(el('option', { value: a }, `${m.name} (${m.id})`));
-  }
+  fillMaterials(materials);
   document.body.dataset.worker = 'ready';
   performance.mark('platewise:worker-ready'); // the page's own clock, read by the bench (tests/bench/page.ts)
 }, (e: Error) => {

@@ -20,6 +20,8 @@ export type ToWorker = { id: number } & (
   | { op: 'report'; key: number }
   | { op: 'compare'; key: number; name: string; bytes: ArrayBuffer }
   | { op: 'materials' }
+  // the command line's --materials-file: a user's materials file for every file of the page (null bytes: forget it)
+  | { op: 'materials-file'; name: string; bytes: ArrayBuffer | null }
   /** `platewise member` on the file: torsion unless told not (`--no-torsion`), the bolt group with `bolts` (`--bolts`) */
   | { op: 'member'; key: number; torsion: boolean; bolts: boolean }
 );
@@ -54,7 +56,7 @@ export interface BatchView {
   summaryLines: string[];
 }
 
-export interface MaterialView { id: string; name: string; density: number; aliases: string[] }
+export interface MaterialView { id: string; name: string; density: number; aliases: string[]; fromFile: boolean }
 
 /** One part of `platewise member --json`'s document as the page shows it (every figure from that document). */
 export interface MemberPartView {

@@ -10,7 +10,8 @@ import { decodeUtf8, MAX_INPUT_BYTES } from '../src/base/utf8.js';
 import { type BatchRow, failureText, jobRows } from '../src/batch/jobRows.js';
 import type { Job } from '../src/batch/manifest.js';
 import { batchLine } from '../src/batch/lines.js';
-import { listMaterials } from '../src/model/materials.js';
+import { type MaterialTable, listMaterials } from '../src/model/materials.js';
+import { loadMaterialFile } from '../src/model/materialFile.js';
 import type { PlateModel, PlateSettings } from '../src/model/plate.js';
 import { SummaryBuilder, batchCsvHeader, batchCsvRow, summaryText } from '../src/output/batchRows.js';
 import { GEOMETRY_CAUTION, MASS_CAUTION } from '../src/output/cautions.js';
@@ -43,6 +44,9 @@ const massUnitsOf = (s: FileSettings): MassUnits => MASS_CHOICES[s.massUnits] ??
 
 interface Held { name: string; bytes: Uint8Array; settings: FileSettings; reports?: PartReport[] }
 const files = new Map<number, Held>();
+/** The user's materials file (the command line's --materials-file), for every file of the page. */
+let userMaterials: MaterialTable | undefined;
+const materialList = () => listMaterials(userMaterials).map((x) => ({ id: x.id, name: x.name, density: x.density, aliases: [...x.aliases], fromFile: x.origin !== 'built-in' }));
 
 /** The file as the command line would read it: the same size limit and the same decoding with its messages. */
 function textOf(h: Held): string {
@@ -129,7 +133,7 @@ function measure(key: number): FileView {
       models = readModels(textOf(h), h.name);
       unitsRefused = `platewise: ${e instanceof OptionError ? `${optionFlag(e.option)}: ${e.detail}` : failureText(e)}`;
     }
-    const run = (g: PlateSettings) => models.map((m) => analyzePart(m, { given: g, mass: 'required', fabrication: 'auto' }));
+    const run = (g: PlateSettings) => models.map((m) => analyzePart(m, { given: g, materials: userMaterials, mass: 'required', fabrication: 'auto' }));
     const g = given(h.settings);
     let reports: PartReport[];
     let refused: string | undefined;
@@ -165,7 +169,7 @@ function batch(keys: number[]): { csv: string; rows: BatchRow[]; summary: Return
   const all: BatchRow[] = [];
   keys.forEach((key, i) => {
     const h = files.get(key)!;
-    const rows = jobRows(jobOf(key, i + 1), { defaults: {} }, {
+    const rows = jobRows(jobOf(key, i + 1), { defaults: {}, materials: userMaterials }, {
       part: () => ({ text: textOf(h) }),
       reference: () => { throw new Error('no reference file in the page'); },
     });
@@ -183,7 +187,7 @@ async function report(key: number): Promise<string> {
   const sha256 = [...digest].map((b) => b.toString(16).padStart(2, '0')).join('');
   const s = h.settings;
   return reportHtml(modelsOf(h), {
-    section: {}, given: given(s),
+    section: {}, given: given(s), materials: userMaterials,
     file: { name: h.name, sha256 }, version: PLATEWISE_VERSION, date: new Date().toISOString(),
     settings: { thickness: s.thickness || undefined, density: s.density || undefined, material: s.material || undefined, units: s.units || undefined },
   });
@@ -194,7 +198,7 @@ function compare(key: number, refName: string, refBytes: Uint8Array) {
   const reference = readReference(decodeUtf8(refBytes, refName), refName);
   const models = modelsOf(h);
   const model: PlateModel = pickPart(models, h.name, reference.part, `${refName}:part`);
-  const { comparison, meta } = comparePart(model, reference, { file: h.name, reference: refName }, { given: given(h.settings) });
+  const { comparison, meta } = comparePart(model, reference, { file: h.name, reference: refName }, { given: given(h.settings), materials: userMaterials });
   return {
     verdict: comparison.verdict, counts: comparison.counts, text: comparisonText(comparison, meta),
     json: JSON.stringify(comparisonJson(comparison, meta), null, 2) + '\n', csv: comparisonCsv(comparison),
@@ -261,7 +265,13 @@ scope.onmessage = async (ev) => {
       case 'report': reply = await report(m.key); break;
       case 'member': reply = member(m.key, m.torsion, m.bolts); break;
       case 'compare': reply = compare(m.key, m.name, new Uint8Array(m.bytes)); break;
-      case 'materials': reply = { materials: listMaterials().map((x) => ({ id: x.id, name: x.name, density: x.density, aliases: [...x.aliases] })), palette: { ...PALETTE } }; break;
+      case 'materials': reply = { materials: materialList(), palette: { ...PALETTE } }; break;
+      case 'materials-file':
+        // read as the command line reads --materials-file: the same size limit, decoding and one-line refusals;
+        // a refused file leaves the table as it was
+        userMaterials = m.bytes === null ? undefined : loadMaterialFile(textOf({ name: m.name, bytes: new Uint8Array(m.bytes), settings: {} as FileSettings }), m.name);
+        reply = { materials: materialList(), count: userMaterials ? listMaterials(userMaterials).filter((x) => x.origin !== 'built-in').length : 0 };
+        break;
     }
     scope.postMessage({ id: m.id, ok: true, value: reply });
   } catch (e) {

@@ -8,6 +8,7 @@ import { analyzePart } from '../analysis/analyze.js';
 import { type MeasureOptions, measureSection } from '../analysis/measure.js';
 import type { PlateModel, PlateSettings } from '../model/plate.js';
 import type { SectionMarks } from '../analysis/torsionMember.js';
+import type { MaterialTable } from '../model/materials.js';
 import type { InterpretationSummary, NotCut } from '../read/interpret.js';
 import { type ReportInput, buildReport } from './html.js';
 import { interpretationText, unitSourceText } from './words.js';
@@ -17,10 +18,10 @@ export const CONVERGENCE_LEVELS = 3;
 
 export async function reportHtml(
   models: readonly (PlateModel & { interpretation?: InterpretationSummary; notCut?: NotCut })[],
-  options: Omit<ReportInput, 'parts'> & { section: MeasureOptions; given: PlateSettings; marks?: readonly (SectionMarks | undefined)[] },
+  options: Omit<ReportInput, 'parts'> & { section: MeasureOptions; given: PlateSettings; marks?: readonly (SectionMarks | undefined)[]; materials?: MaterialTable },
 ): Promise<string> {
-  const { section, given, marks, ...input } = options;
-  const reports = models.map((m) => analyzePart(m, { section, given, mass: 'optional', fabrication: 'always' }));
+  const { section, given, marks, materials, ...input } = options;
+  const reports = models.map((m) => analyzePart(m, { section, given, materials, mass: 'optional', fabrication: 'always' }));
   // the convergence plot needs at least three refinement levels: a separate run on the same shape, made only
   // where the table's values come from a mesh (exact boundary results have no convergence to show)
   const convergence = reports.map((r) => (r.section.method.path === 'boundary' || r.section.levels.length > CONVERGENCE_LEVELS

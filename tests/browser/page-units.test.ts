@@ -4,7 +4,9 @@
  * every section figure equal to `platewise measure --json` with the same flags to 1e-12 relative; a unit given
  * to a part file gets the command line's refusal line while the figures stay as the file says. The mass units
  * (the command line's --mass-unit with --inertia-unit): every mass figure shown and the saved JSON equal
- * `measure --json` with the same flags, and each unit cell says the unit chosen.
+ * `measure --json` with the same flags, and each unit cell says the unit chosen. A materials file (the command
+ * line's --materials-file): a material of its own gives the figures of `measure --materials-file`, and a
+ * refused file shows the command line's one line while the figures stay.
  * Needs `npm run build` and Chromium.
  */
 import { spawnSync } from 'node:child_process';
@@ -60,6 +62,9 @@ beforeAll(async () => {
   mkdirSync(ARTIFACTS, { recursive: true });
   writeFileSync(join(folder, 'plate.svg'), SVG);
   writeFileSync(join(folder, 'plate.json'), PART);
+  // invented materials for the test: one of its own, and a file the reader refuses (no "source")
+  writeFileSync(join(folder, 'shop.json'), JSON.stringify({ materials: { 'shop-alloy-7': { density: 2.81, unit: 'g/cm3', source: 'invented for a test', name: 'Shop alloy 7 (invented)' } } }));
+  writeFileSync(join(folder, 'bad-materials.json'), JSON.stringify({ materials: { 'no-source': { density: 7850, unit: 'kg/m3' } } }));
   browser = await launchChromium({ width: 1280, height: 900 });
   page = await browser.ctx.newPage();
   await page.goto(pathToFileURL(PAGE).href);
@@ -125,5 +130,31 @@ describe('the mass units in the page', () => {
     // built-in table's figure for s355) in pounds (1 lb = 0.45359237 kg exactly, NIST SP 811 appendix B)
     const mass = rows.find((r) => r.key === 'mass')!.value;
     expect(Math.abs(mass - 0.12 * 0.06 * 0.01 * 7850 / 0.45359237)).toBeLessThanOrEqual(1e-12 * mass);
+  });
+});
+
+describe('a materials file in the page', () => {
+  it('a material of its own: figures equal measure --materials-file; a refused file shows the one line, figures stay', async () => {
+    await page.setInputFiles('#materials-pick', join(folder, 'shop.json'));
+    await page.waitForSelector('body[data-materials-file="shop.json"]');
+    expect(await page.textContent('#materials-state')).toMatch(/shop\.json: 1 material/);
+    await page.selectOption(`${card('plate.json')} select[name="massUnits"]`, '');
+    await page.fill(`${card('plate.json')} input[name="material"]`, 'shop-alloy-7');
+    await page.waitForFunction((c) => { const e = document.querySelector(c) as HTMLElement; const s = JSON.parse(e.dataset.settings!); return s.material === 'shop-alloy-7' && s.massUnits === '' && e.dataset.state === 'done'; }, card('plate.json'));
+    await page.waitForSelector(`${card('plate.json')} tr[data-group="mass"][data-key="mass"]`);
+    const cli = JSON.parse(platewise(['measure', 'plate.json', '--json', '--thickness', '10 mm', '--material', 'shop-alloy-7', '--materials-file', 'shop.json']).stdout);
+    const shown = Number(await page.getAttribute(`${card('plate.json')} tr[data-group="mass"][data-key="mass"]`, 'data-value'));
+    expect(close(shown, cli.massProperties.quantities.mass.value)).toBe(true);
+    // 120 × 60 × 10 mm at 2.81 g/cm³ = 2810 kg/m³ (1 g/cm³ = 1000 kg/m³ exactly)
+    expect(Math.abs(shown - 0.12 * 0.06 * 0.01 * 2810)).toBeLessThanOrEqual(1e-12 * shown);
+    const refused = platewise(['materials', '--materials-file', 'bad-materials.json']);
+    expect(refused.status).toBe(2);
+    await page.setInputFiles('#materials-pick', join(folder, 'bad-materials.json'));
+    await page.waitForSelector('body[data-materials-file="refused"]');
+    expect((await page.textContent('#materials-message'))!.trim()).toBe(refused.stderr.trim());
+    // the table stays as it was, and says so: the same figures
+    expect(await page.textContent('#materials-state')).toMatch(/shop\.json: 1 material/);
+    const again = Number(await page.getAttribute(`${card('plate.json')} tr[data-group="mass"][data-key="mass"]`, 'data-value'));
+    expect(again).toBe(shown);
   });
 });
