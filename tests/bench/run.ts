@@ -44,7 +44,8 @@ function time(fn: () => unknown, reps = quick ? 3 : 7): number {
   return ts[ts.length >> 1];
 }
 
-interface Row { case: string; ours: string; peer: string; ratio: string; target: string; met: string }
+/** A table row; `inProcess` rows time code inside one process (diagnosis), printed in a second, labelled table. */
+interface Row { case: string; ours: string; peer: string; ratio: string; target: string; met: string; inProcess?: true }
 const rows: Row[] = [];
 const results: Record<string, unknown> = {};
 const f = (ms: number) => ms < 10 ? ms.toFixed(2) : ms.toFixed(0);
@@ -75,7 +76,7 @@ function panelCase(name: string, nx: number, ny: number, d: number) {
   const best = Math.min(tEarcut, tDel);
   const r = tOurs / best;
   results[name] = { vertices: coords.length / 2, oursMs: tOurs, earcutMs: tEarcut, delaunatorConstrainautorMs: tDel, ratio: r };
-  rows.push({ case: `${name}: measure vs bare triangulation of the same boundary (${coords.length / 2} vertices)`, ours: f(tOurs), peer: `earcut ${f(tEarcut)}, delaunator+constrainautor ${f(tDel)}`, ratio: r.toFixed(2), target: name === 'panel-1250' ? '≤ 1.5' : '—', met: name === 'panel-1250' ? (r <= 1.5 ? 'yes' : 'no') : '—' });
+  rows.push({ case: `${name}: measure vs bare triangulation of the same boundary (${coords.length / 2} vertices)`, ours: f(tOurs), peer: `earcut ${f(tEarcut)}, delaunator+constrainautor ${f(tDel)}`, ratio: r.toFixed(2), target: name === 'panel-1250' ? '≤ 1.5' : '—', met: name === 'panel-1250' ? (r <= 1.5 ? 'yes' : 'no') : '—', inProcess: true });
 }
 
 if (want('panel-1250')) panelCase('panel-1250', 50, 25, 20);
@@ -93,16 +94,16 @@ if (want('scaling')) {
   const a = pts[0], b = pts[pts.length - 1];
   const exponent = Math.log(b.ms / a.ms) / Math.log(b.n / a.n);
   results.scaling = { points: pts, exponent };
-  for (const p of pts) rows.push({ case: `straight plate, ${p.n} vertices: measure vs Green's-theorem boundary formula`, ours: f(p.ms), peer: `green ${f(p.greenMs)}`, ratio: (p.ms / p.greenMs).toFixed(1), target: '—', met: '—' });
-  rows.push({ case: `growth exponent of measure time, ${a.n}→${b.n} vertices`, ours: exponent.toFixed(3), peer: '', ratio: '', target: '≤ 1.15', met: exponent <= 1.15 ? 'yes' : 'no' });
+  for (const p of pts) rows.push({ case: `straight plate, ${p.n} vertices: measure vs Green's-theorem boundary formula`, ours: f(p.ms), peer: `green ${f(p.greenMs)}`, ratio: (p.ms / p.greenMs).toFixed(1), target: '—', met: '—', inProcess: true });
+  rows.push({ case: `growth exponent of measure time, ${a.n}→${b.n} vertices`, ours: exponent.toFixed(3), peer: '', ratio: '', target: '≤ 1.15', met: exponent <= 1.15 ? 'yes' : 'no', inProcess: true });
   const meshPts = pts.filter((p) => p.meshMs !== undefined) as { n: number; meshMs: number }[];
   if (meshPts.length >= 2) {
     const m0 = meshPts[0], m1 = meshPts[meshPts.length - 1];
     const e = Math.log(m1.meshMs / m0.meshMs) / Math.log(m1.n / m0.n);
-    rows.push({ case: `growth exponent of the mesh path (--method mesh), ${m0.n}→${m1.n} vertices`, ours: e.toFixed(3), peer: meshPts.map((p) => `${p.n}: ${f(p.meshMs)} ms`).join(', '), ratio: '', target: '(≤ 1.15)', met: e <= 1.15 ? 'yes' : 'no' });
+    rows.push({ case: `growth exponent of the mesh path (--method mesh), ${m0.n}→${m1.n} vertices`, ours: e.toFixed(3), peer: meshPts.map((p) => `${p.n}: ${f(p.meshMs)} ms`).join(', '), ratio: '', target: '(≤ 1.15)', met: e <= 1.15 ? 'yes' : 'no', inProcess: true });
   }
   const big = pts.find((p) => p.n >= 1e6);
-  if (big) rows.push({ case: 'peak memory (max RSS) at 10^6 vertices', ours: `${big.rssMB.toFixed(0)} MB`, peer: '', ratio: '', target: '< 1024 MB', met: big.rssMB < 1024 ? 'yes' : 'no' });
+  if (big) rows.push({ case: 'peak memory (max RSS) at 10^6 vertices', ours: `${big.rssMB.toFixed(0)} MB`, peer: '', ratio: '', target: '< 1024 MB', met: big.rssMB < 1024 ? 'yes' : 'no', inProcess: true });
 }
 
 if (want('expression')) {
@@ -116,7 +117,7 @@ if (want('expression')) {
   const runHand = () => { let s = 0; for (let i = 0; i < N; i++) s += hand(i * 1e-3, 7 - i * 1e-4); sink += s; };
   const th = time(runHand), tc = time(runCompiled);
   results.expression = { compiledMs: tc, handMs: th, speed: th / tc, sink };
-  rows.push({ case: `expression, ${N} evaluations: compiled vs hand-written JavaScript`, ours: f(tc), peer: `hand ${f(th)}`, ratio: (tc / th).toFixed(2), target: 'speed ≥ 0.5 of hand-written (ratio ≤ 2)', met: tc / th <= 2 ? 'yes' : 'no' });
+  rows.push({ case: `expression, ${N} evaluations: compiled vs hand-written JavaScript`, ours: f(tc), peer: `hand ${f(th)}`, ratio: (tc / th).toFixed(2), target: 'speed ≥ 0.5 of hand-written (ratio ≤ 2)', met: tc / th <= 2 ? 'yes' : 'no', inProcess: true });
 }
 
 if (want('startup')) {
@@ -329,6 +330,8 @@ if (want('formats')) {
 }
 
 const head = `Run ${new Date().toISOString().slice(0, 10)} on ${availableParallelism()} cores (${cpus()[0]?.model ?? 'unknown CPU'}), Node ${process.version}. Times in ms (median).`;
-const table = ['| case | platewise | peers | ratio | target | met |', '|---|---|---|---|---|---|', ...rows.map((r) => `| ${r.case} | ${r.ours} | ${r.peer} | ${r.ratio} | ${r.target} | ${r.met} |`)];
-console.log(head + '\n\n' + table.join('\n'));
+const tableOf = (rs: Row[]) => ['| case | platewise | peers | ratio | target | met |', '|---|---|---|---|---|---|', ...rs.map((r) => `| ${r.case} | ${r.ours} | ${r.peer} | ${r.ratio} | ${r.target} | ${r.met} |`)].join('\n');
+const whole = rows.filter((r) => !r.inProcess), inside = rows.filter((r) => r.inProcess);
+console.log(head + '\n\nWhole processes against peer processes of the same run:\n\n' + tableOf(whole)
+  + (inside.length > 0 ? '\n\nIn-process figures (code timed inside one process: for diagnosis, and the in-process targets of earlier rounds):\n\n' + tableOf(inside) : ''));
 writeFileSync(join(ROOT, 'bench-results.json'), JSON.stringify({ date: new Date().toISOString(), cores: availableParallelism(), results }, null, 2) + '\n');
