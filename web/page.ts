@@ -336,23 +336,32 @@ function memberControls(c: Card): HTMLElement {
   const id = `f${c.key}-member`;
   const torsion = el('input', { type: 'checkbox', id: `${id}-torsion`, checked: '', 'data-role': 'member-torsion' });
   const bolts = el('input', { type: 'checkbox', id: `${id}-bolts`, 'data-role': 'member-bolts' });
+  const lines = el('textarea', { id: `${id}-lines`, rows: '2', spellcheck: 'false', 'data-role': 'member-net-lines', placeholder: 'x,y x,y …' });
+  const unit = el('select', { id: `${id}-unit`, 'data-role': 'member-print-unit' },
+    el('option', { value: '' }, 'as the drawing'), ...['mm', 'cm', 'm', 'in'].map((u) => el('option', { value: u }, u)));
   const go = el('button', { type: 'button', 'data-needs': 'figures', 'data-role': 'member' }, 'Figures as a member cross-section');
   const out = el('div', { 'data-role': 'member-result', 'aria-live': 'polite' });
-  go.addEventListener('click', () => void memberFigures(c, out, go, torsion.checked, bolts.checked));
+  go.addEventListener('click', () => {
+    const netLines = (lines as HTMLTextAreaElement).value.split('\n').map((l) => l.trim()).filter((l) => l !== '');
+    void memberFigures(c, out, go, torsion.checked, bolts.checked, netLines, (unit as HTMLSelectElement).value);
+  });
   return el('div', { class: 'member' },
     el('div', { class: 'toolbar' }, go,
       el('label', { for: torsion.id }, torsion, ' with torsion constant, shear centre and warping (a second or two)'),
       el('label', { for: bolts.id }, bolts, ' with the bolt group of the circular holes')),
+    el('div', { class: 'toolbar' },
+      el('label', { for: lines.id, class: 'stacked' }, 'net sections along lines, one per line of text (x,y x,y …; the net area takes the thickness above)', lines),
+      el('label', { for: unit.id }, 'figures in', unit)),
     out);
 }
 
-async function memberFigures(c: Card, out: HTMLElement, go: HTMLButtonElement, torsion: boolean, bolts: boolean): Promise<void> {
+async function memberFigures(c: Card, out: HTMLElement, go: HTMLButtonElement, torsion: boolean, bolts: boolean, netLines: string[], printUnit: string): Promise<void> {
   go.disabled = true;
   out.dataset.state = 'busy';
   out.replaceChildren(el('p', { class: 'state' }, `working out the member figures${torsion ? ' with torsion' : ''}…`));
   let v: MemberView;
   try {
-    v = await call<MemberView>({ op: 'member', key: c.key, torsion, bolts });
+    v = await call<MemberView>({ op: 'member', key: c.key, torsion, bolts, netLines, printUnit });
   } catch (e) {
     out.replaceChildren(el('p', { class: 'message', 'data-role': 'member-message' }, (e as Error).message));
     out.dataset.state = 'failed';
@@ -374,18 +383,28 @@ async function memberFigures(c: Card, out: HTMLElement, go: HTMLButtonElement, t
           el('th', { scope: 'row' }, r.label), el('td', { class: 'num' }, r.text), el('td', {}, r.unit)))));
       block.append(el('p', { class: 'state' }, `bolt group: ${p.bolts.heading}`), el('div', { class: 'scroll' }, t));
     }
+    (p.netSections ?? []).forEach((n, j) => {
+      if (!n) { block.append(el('p', { class: 'state', 'data-role': 'net-section', 'data-index': String(j) }, `net line ${j + 1}: misses this part`)); return; }
+      const t = el('table', { 'data-role': 'net-section', 'data-index': String(j) }, el('caption', {}, n.heading),
+        el('thead', {}, el('tr', {}, ...['figure', 'value', '± estimate', 'unit', 'meaning'].map((h) => el('th', { scope: 'col' }, h)))),
+        el('tbody', {}, ...n.rows.map((r) => el('tr', { 'data-key': r.key, 'data-value': String(r.value), 'data-error': String(r.error) },
+          el('th', { scope: 'row' }, r.key), el('td', { class: 'num' }, r.text), el('td', { class: 'num' }, `± ${r.errorText}`), el('td', {}, r.unit), el('td', {}, r.what)))));
+      block.append(el('div', { class: 'scroll' }, t), ...(n.noArea ? [el('p', { class: 'state' }, n.noArea)] : []),
+        el('p', { class: 'state' }, n.runsHeading), el('ul', { class: 'words' }, ...n.runs.map((x) => el('li', {}, x))),
+        ...(n.note ? [el('p', { class: 'state' }, n.note)] : []));
+    });
     if (p.notes.length) block.append(el('ul', { class: 'words' }, ...p.notes.map((n) => el('li', {}, n))));
     return block;
   });
   const saveJson = el('button', { type: 'button', class: 'quiet', 'data-role': 'save-member-json' }, 'Save member figures (JSON)');
   saveJson.addEventListener('click', () => save(`${stem(c.name)}.member.json`, v.json, 'application/json'));
   out.replaceChildren(
-    el('p', { class: 'state' }, `member figures worked out in ${Math.round(v.millis)} ms; the same as platewise member${torsion ? '' : ' --no-torsion'}${bolts ? ' --bolts' : ''}`),
+    el('p', { class: 'state' }, `member figures worked out in ${Math.round(v.millis)} ms; the same as platewise member${torsion ? '' : ' --no-torsion'}${bolts ? ' --bolts' : ''}${netLines.map((l) => ` --net-line "${l}"`).join('')}${netLines.length && c.settings.thickness.trim() ? ` --thickness "${c.settings.thickness.trim()}"` : ''}${printUnit ? ` --print-unit ${printUnit}` : ''}`),
     el('div', { class: 'member-parts' }, ...blocks),
     ...v.cautions.map((x) => el('p', { class: 'caution' }, x)),
     el('div', { class: 'toolbar' }, saveJson));
   out.dataset.state = 'done';
-  out.dataset.asked = JSON.stringify({ torsion, bolts });
+  out.dataset.asked = JSON.stringify({ torsion, bolts, netLines, printUnit });
 }
 
 async function compareWith(c: Card, f: File): Promise<void> {

@@ -23,7 +23,8 @@ export type ToWorker = { id: number } & (
   // the command line's --materials-file: a user's materials file for every file of the page (null bytes: forget it)
   | { op: 'materials-file'; name: string; bytes: ArrayBuffer | null }
   /** `platewise member` on the file: torsion unless told not (`--no-torsion`), the bolt group with `bolts` (`--bolts`) */
-  | { op: 'member'; key: number; torsion: boolean; bolts: boolean }
+  // the command line's member --no-torsion, --bolts, --net-line (one line of text each) and --print-unit ('' = the part's)
+  | { op: 'member'; key: number; torsion: boolean; bolts: boolean; netLines: string[]; printUnit: string }
 );
 
 export interface QuantityView {
@@ -66,5 +67,7 @@ export interface MemberPartView {
   torsionMethod?: string;
   notes: string[];
   bolts?: { heading: string; rows: { path: string; label: string; value: number; text: string; unit: string }[] };
+  /** one per net line, in the member table's words; null where the line misses this part */
+  netSections?: ({ heading: string; rows: { key: string; value: number; error: number; text: string; errorText: string; unit: string; what: string }[]; noArea?: string; runsHeading: string; runs: string[]; note?: string } | null)[];
 }
 export interface MemberView { parts: MemberPartView[]; json: string; cautions: string[]; notBound: string; millis: number }

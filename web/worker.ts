@@ -19,7 +19,9 @@ import { comparePart, pickPart } from '../src/output/comparePart.js';
 import { comparisonCsv, comparisonJson, comparisonText, rowAdvice } from '../src/output/compareText.js';
 import { PALETTE, drawPart } from '../src/output/draw.js';
 import { formatError, formatNumber, formatValue } from '../src/output/numbers.js';
-import { NOT_A_BOUND, NUMERIC_FIBRES, boltGroupFigures, boltGroupText, memberFigureText, memberJson, torsionMethodText } from '../src/output/memberText.js';
+import { NOT_A_BOUND, NUMERIC_FIBRES, type NetSectionDoc, boltGroupFigures, boltGroupText, memberFigureText, memberJson, netSectionWords, torsionMethodText } from '../src/output/memberText.js';
+import { parseNetLine } from '../src/geometry/netSection.js';
+import { isLengthUnit } from '../src/base/units.js';
 import { analyzeMemberModels } from '../src/analysis/torsionMember.js';
 import { partReportJson, reportsJson } from '../src/output/partReport.js';
 import { reportHtml } from '../src/output/reportPart.js';
@@ -218,17 +220,22 @@ interface MemberPartJson {
   plastic: Record<string, MemberQuantityJson>;
   torsion?: Record<string, MemberQuantityJson> & { method: Parameters<typeof torsionMethodText>[0]; notes: string[] };
   boltGroup?: Parameters<typeof boltGroupFigures>[0] & { count: number; selectedFrom: number };
+  netSections?: (NetSectionDoc | null)[];
 }
 
 /**
  * `platewise member --json` on the file (no --print-unit, no net lines): the same call and the same writer; the
  * tables are made from that very document, each figure rounded as the member table rounds it.
  */
-function member(key: number, torsion: boolean, bolts: boolean): MemberView {
+function member(key: number, torsion: boolean, bolts: boolean, lineTexts: string[], printUnit: string): MemberView {
   const h = files.get(key)!;
   const t0 = performance.now();
-  const results = analyzeMemberModels(modelsOf(h), { torsion: torsion ? {} : false, bolts: bolts ? [] : undefined });
-  const json = memberJson(results);
+  // as the command line checks --print-unit and --net-line; the net area takes the file card's thickness
+  if (printUnit !== '' && (!isLengthUnit(printUnit) || printUnit === 'ft')) throw new InputError('--print-unit', `expected mm, cm, m or in, got "${printUnit}"`);
+  const netLines = lineTexts.length > 0 ? lineTexts.map((t) => parseNetLine(t, '--net-line')) : undefined;
+  const thickness = netLines && h.settings.thickness.trim() !== '' ? h.settings.thickness.trim() : undefined;
+  const results = analyzeMemberModels(modelsOf(h), { torsion: torsion ? {} : false, bolts: bolts ? [] : undefined, netLines }, thickness);
+  const json = memberJson(results, printUnit === '' ? undefined : printUnit as LengthUnit);
   const doc = JSON.parse(json) as { parts: MemberPartJson[]; cautions: string[] };
   const group = (title: string, name: string, q: Record<string, unknown>): QuantityGroupView => ({
     title, group: name,
@@ -243,6 +250,11 @@ function member(key: number, torsion: boolean, bolts: boolean): MemberView {
     torsionMethod: p.torsion ? torsionMethodText(p.torsion.method) : undefined,
     notes: [...(p.exactFibres ? [] : [NUMERIC_FIBRES]), ...(p.torsion?.notes ?? [])],
     bolts: p.boltGroup ? { heading: boltGroupText(p.boltGroup, p.unit), rows: boltGroupFigures(p.boltGroup, p.unit) } : undefined,
+    netSections: p.netSections?.map((n) => {
+      if (!n) return null;
+      const w = netSectionWords(n, p.unit);
+      return { ...w, rows: w.rows.map((r) => ({ ...r, text: formatNumber(r.value), errorText: formatError(r.error) })) };
+    }),
   }));
   return { parts, json, cautions: doc.cautions, notBound: NOT_A_BOUND, millis: performance.now() - t0 };
 }
@@ -263,7 +275,7 @@ scope.onmessage = async (ev) => {
       case 'draw': reply = await drawings(m.key); break;
       case 'batch': reply = batch(m.keys); break;
       case 'report': reply = await report(m.key); break;
-      case 'member': reply = member(m.key, m.torsion, m.bolts); break;
+      case 'member': reply = member(m.key, m.torsion, m.bolts, m.netLines, m.printUnit); break;
       case 'compare': reply = compare(m.key, m.name, new Uint8Array(m.bytes)); break;
       case 'materials': reply = { materials: materialList(), palette: { ...PALETTE } }; break;
       case 'materials-file':

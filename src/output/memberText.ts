@@ -29,25 +29,60 @@ function netQuantities(n: NetSectionResult, from: LengthUnit, to: LengthUnit) {
   };
 }
 
-function netSectionText(n: NetSectionResult, from: LengthUnit, to: LengthUnit, out: string[]): void {
-  const q = netQuantities(n, from, to);
+/** A net section as `member --json` writes it (lengths in the print unit). */
+export interface NetSectionDoc {
+  line: number[][]; where: string; crossings: number;
+  length: { value: number; error: number; unit: string }; grossLength: { value: number; error: number; unit: string };
+  netLength: { value: number; error: number; unit: string }; holeLength: { value: number; error: number; unit: string };
+  netArea?: { value: number; error: number; unit: string }; thickness?: { value: number; unit: string };
+  intervals: { from: number; to: number; fromError: number; toError: number; fromPoint: number[]; toPoint: number[] }[];
+  startsInMaterial: boolean; endsInMaterial: boolean;
+}
+
+function netSectionDoc(n: NetSectionResult, from: LengthUnit, to: LengthUnit): NetSectionDoc {
+  const f = lengthFactor(from, to);
+  return {
+    line: n.points.map((p) => p.map((v) => v * f)), where: n.where, crossings: n.crossings,
+    ...netQuantities(n, from, to), startsInMaterial: n.startsInMaterial, endsInMaterial: n.endsInMaterial,
+  };
+}
+
+/**
+ * A net section in words, from its JSON form (unit `to`): the heading, the figure rows with what each means, the
+ * runs of material along the line and a note when the line starts or ends inside the material. `member`'s table
+ * and the page both say it this way.
+ */
+export function netSectionWords(q: NetSectionDoc, to: string): {
+  heading: string; rows: { key: string; value: number; error: number; unit: string; what: string }[]; noArea?: string; runsHeading: string; runs: string[]; note?: string;
+} {
   const pt = ([x, y]: readonly number[]) => `(${formatNumber(x)}, ${formatNumber(y)})`;
-  out.push(` net section along ${n.points.map((p) => pt(p.map((v) => v * lengthFactor(from, to)))).join(' → ')} (${n.where}; ${n.crossings} boundary crossing${n.crossings === 1 ? '' : 's'})`);
-  const row = (k: string, v: { value: number; error: number; unit: string }, what: string) =>
-    out.push(`  ${k.padEnd(14)} ${formatNumber(v.value).padStart(18)} ± ${formatError(v.error).padEnd(8)} ${v.unit.padEnd(4)} ${what}`);
-  row('length', q.length, 'the line itself');
-  row('grossLength', q.grossLength, 'inside the outline, holes counted as material');
-  row('netLength', q.netLength, 'through material');
-  row('holeLength', q.holeLength, 'gross − net: taken by holes');
-  if (q.netArea) row('netArea', q.netArea, `netLength × thickness ${formatNumber(q.thickness!.value)} ${to}`);
-  else out.push('  (no thickness given: no net area)');
-  out.push(`  material along the line, from its first point (${to}):`);
-  for (const i of q.intervals) {
-    out.push(`   ${formatNumber(i.from)} ± ${formatError(i.fromError)} to ${formatNumber(i.to)} ± ${formatError(i.toError)}: ${pt(i.fromPoint)} → ${pt(i.toPoint)}`);
-  }
-  if (n.startsInMaterial || n.endsInMaterial) {
-    out.push(`  note: the line ${n.startsInMaterial && n.endsInMaterial ? 'starts and ends' : n.startsInMaterial ? 'starts' : 'ends'} inside the material; lengths count only the line as given`);
-  }
+  const rows = [
+    { key: 'length', ...q.length, what: 'the line itself' },
+    { key: 'grossLength', ...q.grossLength, what: 'inside the outline, holes counted as material' },
+    { key: 'netLength', ...q.netLength, what: 'through material' },
+    { key: 'holeLength', ...q.holeLength, what: 'gross − net: taken by holes' },
+    ...(q.netArea ? [{ key: 'netArea', ...q.netArea, what: `netLength × thickness ${formatNumber(q.thickness!.value)} ${to}` }] : []),
+  ];
+  return {
+    heading: `net section along ${q.line.map(pt).join(' → ')} (${q.where}; ${q.crossings} boundary crossing${q.crossings === 1 ? '' : 's'})`,
+    rows,
+    noArea: q.netArea ? undefined : '(no thickness given: no net area)',
+    runsHeading: `material along the line, from its first point (${to}):`,
+    runs: q.intervals.map((i) => `${formatNumber(i.from)} ± ${formatError(i.fromError)} to ${formatNumber(i.to)} ± ${formatError(i.toError)}: ${pt(i.fromPoint)} → ${pt(i.toPoint)}`),
+    note: q.startsInMaterial || q.endsInMaterial
+      ? `note: the line ${q.startsInMaterial && q.endsInMaterial ? 'starts and ends' : q.startsInMaterial ? 'starts' : 'ends'} inside the material; lengths count only the line as given`
+      : undefined,
+  };
+}
+
+function netSectionText(n: NetSectionResult, from: LengthUnit, to: LengthUnit, out: string[]): void {
+  const w = netSectionWords(netSectionDoc(n, from, to), to);
+  out.push(` ${w.heading}`);
+  for (const r of w.rows) out.push(`  ${r.key.padEnd(14)} ${formatNumber(r.value).padStart(18)} ± ${formatError(r.error).padEnd(8)} ${r.unit.padEnd(4)} ${r.what}`);
+  if (w.noArea) out.push(`  ${w.noArea}`);
+  out.push(`  ${w.runsHeading}`);
+  for (const line of w.runs) out.push(`   ${line}`);
+  if (w.note) out.push(`  ${w.note}`);
 }
 
 const SECTION_KEYS = ['area', 'centroidX', 'centroidY', 'Ix', 'Iy', 'Ixy', 'I1', 'I2', 'principalAngle', 'SxTop', 'SxBottom', 'SyRight', 'SyLeft'] as const;
@@ -172,10 +207,7 @@ export function memberJson(results: readonly MemberResult[], to?: LengthUnit): s
         sumUnit: `${u}²`, bolts: r.boltGroup.bolts.map((b) => ({ x: b.x * f, y: b.y * f, diameter: b.diameter * f, distance: b.distance * f })),
       } : undefined,
       // null: the line misses this part (files of several parts)
-      netSections: r.netSections?.map((n) => n && ({
-        line: n.points.map((p) => p.map((v) => v * f)), where: n.where, crossings: n.crossings,
-        ...netQuantities(n, r.units, u), startsInMaterial: n.startsInMaterial, endsInMaterial: n.endsInMaterial,
-      })),
+      netSections: r.netSections?.map((n) => n && netSectionDoc(n, r.units, u)),
     };
   });
   const notes = [...(results.some((r) => r.torsion) ? [PRISMATIC_NOTE] : []), ...(results.some((r) => r.netSections?.length) ? [NET_SECTION_NOTE] : [])];

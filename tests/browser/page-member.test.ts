@@ -199,6 +199,46 @@ describe('member figures in the page', () => {
     await page.setViewportSize({ width: 1280, height: 900 });
   }, 180_000);
 
+  it('net sections along two lines with the card\'s thickness, in cm, as `member --no-torsion --net-line … --thickness --print-unit cm`', async () => {
+    const name = 'bracket.svg';
+    const c = card(name);
+    await page.fill(`${c} input[name="thickness"]`, '6 mm');
+    await page.waitForFunction((sel) => { const e = document.querySelector(sel) as HTMLElement; return JSON.parse(e.dataset.settings ?? '{}').thickness === '6 mm' && e.dataset.state === 'done'; }, c);
+    const lines = ['30,0 30,60', '100,95 150,95'];
+    await page.fill(`${c} textarea[data-role="member-net-lines"]`, lines.join('\n'));
+    await page.selectOption(`${c} select[data-role="member-print-unit"]`, 'cm');
+    await page.uncheck(`${c} input[data-role="member-torsion"]`);
+    await page.uncheck(`${c} input[data-role="member-bolts"]`);
+    await page.click(`${c} button[data-role="member"]`);
+    await page.waitForFunction((sel) => { const e = document.querySelector(`${sel} [data-role="member-result"]`) as HTMLElement; return e.dataset.state === 'done' && JSON.parse(e.dataset.asked ?? '{}').printUnit === 'cm'; }, c, { timeout: 120_000 });
+    const args = ['member', name, '--no-torsion', ...lines.flatMap((l) => ['--net-line', l]), '--thickness', '6 mm', '--print-unit', 'cm'];
+    const doc = JSON.parse(platewise([...args, '--json']));
+    const table = platewise(args);
+    const shownNet = await page.$$eval(`${c} table[data-role="net-section"]`, (ts) => ts.map((t) => ({
+      caption: t.querySelector('caption')!.textContent!,
+      rows: [...t.querySelectorAll('tr[data-key]')].map((r) => ({ key: r.getAttribute('data-key')!, value: Number(r.getAttribute('data-value')), unit: r.querySelectorAll('td')[2].textContent! })),
+    })));
+    expect(shownNet.length).toBe(2);
+    shownNet.forEach((t, j) => {
+      const n = doc.parts[0].netSections[j];
+      expect(table).toContain(` ${t.caption}\n`); // the member table's own heading
+      for (const r of t.rows) {
+        expect(close(r.value, n[r.key].value), `${j}.${r.key}`).toBe(true);
+        expect(r.unit).toBe(n[r.key].unit);
+      }
+    });
+    // the second line runs through the centre of the Ø10 hole at (110, 95) and 2 mm off the centre of the Ø10
+    // hole at (135, 93): the holes take 10 + 2·√(5² − 2²) mm (chord of a circle, elementary), in cm
+    const hole = shownNet[1].rows.find((r) => r.key === 'holeLength')!;
+    expect(Math.abs(hole.value - (10 + 2 * Math.sqrt(21)) / 10)).toBeLessThanOrEqual(1e-10);
+    const runs = await page.$$eval(`${c} [data-role="member-result"] ul.words li`, (li) => li.map((x) => x.textContent!));
+    for (const r of runs.filter((x) => / to .*→/.test(x))) expect(table).toContain(`   ${r}\n`);
+    const cautions = await page.$$eval(`${c} [data-role="member-result"] .caution`, (e) => e.map((x) => x.textContent));
+    expect(cautions).toEqual(doc.cautions);
+    sameDocument(JSON.parse(await savedJson(name)), doc);
+    await page.locator(`${c} [data-role="member-result"]`).screenshot({ path: join(ARTIFACTS, 'member-net-sections.png') });
+  }, 180_000);
+
   it('a plate the command refuses (two layers) shows the command line\'s one line beside the file', async () => {
     const name = 'tapered-doubler-td5.json';
     copyFileSync(join(ROOT, 'samples', name), join(folder, name));
