@@ -268,9 +268,28 @@ function massUnitChoice(c: Card): HTMLElement {
   return el('label', { for: id }, 'mass units', field);
 }
 
+/** The command line's drawing options for this file (layers, joining, uniting), folded away until wanted. */
+function drawingOptions(c: Card): HTMLElement {
+  const id = `f${c.key}-unite`;
+  const unite = el('input', { type: 'checkbox', id, name: 'unite', 'data-role': 'unite' });
+  unite.addEventListener('change', () => {
+    c.settings.unite = (unite as HTMLInputElement).checked ? 'yes' : '';
+    void call({ op: 'settings', key: c.key, settings: c.settings }).then(() => measure(c));
+  });
+  return el('details', { class: 'drawing-options', 'data-role': 'drawing-options' },
+    el('summary', {}, 'drawing options (layers, joining, overlapping outlines)'),
+    el('div', { class: 'inputs' },
+      input('cut layers', 'cutLayers', c, { type: 'text', autocomplete: 'off', placeholder: 'comma-separated', 'data-role': 'cut-layers' }),
+      input('marking layers', 'markLayers', c, { type: 'text', autocomplete: 'off', placeholder: 'comma-separated', 'data-role': 'mark-layers' }),
+      input('layers to skip', 'skipLayers', c, { type: 'text', autocomplete: 'off', placeholder: 'comma-separated', 'data-role': 'skip-layers' }),
+      input('join tolerance', 'joinTolerance', c, { type: 'text', inputmode: 'decimal', autocomplete: 'off', placeholder: 'in drawing units', 'data-role': 'join-tolerance' }),
+      el('label', { for: id, class: 'check' }, unite, ' unite overlapping outlines')),
+    el('p', { class: 'state' }, 'The same as --cut-layers, --mark-layers, --skip-layers, --join-tolerance and --unite on the command line.'));
+}
+
 function addCard(file: File, bytes: ArrayBuffer): Card {
   const key = nextKey++;
-  const c: Card = { key, name: file.name, root: el('section', { class: 'file', 'data-file': file.name, 'aria-labelledby': `f${key}-title` }), settings: { thickness: '', material: '', density: '', quantity: 1, units: '', massUnits: '' }, busy: false, again: false };
+  const c: Card = { key, name: file.name, root: el('section', { class: 'file', 'data-file': file.name, 'aria-labelledby': `f${key}-title` }), settings: { thickness: '', material: '', density: '', quantity: 1, units: '', massUnits: '', cutLayers: '', markLayers: '', skipLayers: '', joinTolerance: '', unite: '' }, busy: false, again: false };
   const form = el('form', { class: 'inputs', 'aria-label': `settings for ${file.name}` });
   form.addEventListener('submit', (e) => e.preventDefault());
   form.append(
@@ -281,12 +300,14 @@ function addCard(file: File, bytes: ArrayBuffer): Card {
     unitChoice(c),
     massUnitChoice(c),
   );
+  const drawingBox = drawingOptions(c);
   const toAll = el('button', { type: 'button', class: 'quiet' }, 'Use these settings for every file');
   toAll.addEventListener('click', () => {
     for (const o of cards) {
       if (o === c) continue;
       o.settings = { ...c.settings };
-      for (const k of ['thickness', 'material', 'density', 'quantity'] as const) (o.root.querySelector(`input[name="${k}"]`) as HTMLInputElement).value = String(o.settings[k]);
+      for (const k of ['thickness', 'material', 'density', 'quantity', 'cutLayers', 'markLayers', 'skipLayers', 'joinTolerance'] as const) (o.root.querySelector(`input[name="${k}"]`) as HTMLInputElement).value = String(o.settings[k]);
+      (o.root.querySelector('input[name="unite"]') as HTMLInputElement).checked = o.settings.unite === 'yes';
       (o.root.querySelector('select[name="units"]') as HTMLSelectElement).value = o.settings.units;
       (o.root.querySelector('select[name="massUnits"]') as HTMLSelectElement).value = o.settings.massUnits;
       void call({ op: 'settings', key: o.key, settings: o.settings }).then(() => measure(o));
@@ -317,6 +338,7 @@ function addCard(file: File, bytes: ArrayBuffer): Card {
     el('p', { class: 'message', 'data-role': 'message', role: 'status' }),
     el('p', { class: 'state', 'data-role': 'state' }),
     form,
+    drawingBox,
     el('div', { class: 'toolbar' }, json, report, refLabel, ref, toAll, remove),
     el('div', { 'data-role': 'comparison' }),
     el('div', { 'data-role': 'result' }),

@@ -3,10 +3,15 @@
 /** The inputs beside each file, as typed (the worker parses them with the library's one settings grammar). */
 /** A file's settings; `units` is the drawing's length unit as `--units` gives it, '' for what the drawing says. */
 /**
- * A file card's settings: the command line's --thickness, --material, --density, the pieces, --units, and the
- * mass units ('' = kg with kg·m², else a key of MASS_CHOICES in web/worker.ts: --mass-unit with --inertia-unit).
+ * A file card's settings: the command line's --thickness, --material, --density, the pieces, --units, the mass
+ * units ('' = kg with kg·m², else a key of MASS_CHOICES in web/worker.ts: --mass-unit with --inertia-unit), and
+ * the drawing options --cut-layers, --mark-layers, --skip-layers (comma-separated), --join-tolerance and
+ * --unite ('yes' or '').
  */
-export interface FileSettings { thickness: string; material: string; density: string; quantity: number; units: string; massUnits: string }
+export interface FileSettings {
+  thickness: string; material: string; density: string; quantity: number; units: string; massUnits: string;
+  cutLayers: string; markLayers: string; skipLayers: string; joinTolerance: string; unite: string;
+}
 
 export type ToWorker = { id: number } & (
   // sent once by web/start.js (id 0) before anything else: the CSS packages' code, loaded on first use

@@ -29,6 +29,8 @@ import { interpretationText, unitSourceText, warningText } from '../src/output/w
 import { quantityInfo, unitText } from '../src/properties/quantities.js';
 import { readReference } from '../src/qa/reference.js';
 import { type ReadModel, readModels } from '../src/read/models.js';
+import { readOptions } from '../src/read/drawingOptions.js';
+import type { ReadOptions } from '../src/read/read.js';
 import type { LengthUnit } from '../src/base/units.js';
 import type { MassUnits } from '../src/output/massText.js';
 import type { FileSettings, FileView, MemberPartView, MemberView, PartView, QuantityGroupView, ToWorker } from './protocol.js';
@@ -104,8 +106,19 @@ function partView(r: PartReport, mu: MassUnits): PartView {
   };
 }
 
+/** The card's drawing settings as the command line's drawing options (the same checks and messages). */
+function readOptionsOf(s: FileSettings): ReadOptions {
+  const t = (v: string) => (v.trim() === '' ? undefined : v.trim());
+  return readOptions({
+    units: t(s.units), cutLayers: t(s.cutLayers), markLayers: t(s.markLayers), skipLayers: t(s.skipLayers),
+    joinTolerance: t(s.joinTolerance) === undefined ? undefined : Number(s.joinTolerance.trim()), unite: s.unite === 'yes' ? true : undefined,
+  });
+}
+/** Whether the card sets any drawing option (a refusal then falls back to the file as it says). */
+const setsReading = (s: FileSettings) => [s.units, s.cutLayers, s.markLayers, s.skipLayers, s.joinTolerance, s.unite].some((v) => v.trim() !== '');
+
 function modelsOf(h: Held): ReadModel[] {
-  return readModels(textOf(h), h.name, h.settings.units ? { units: h.settings.units as LengthUnit } : {});
+  return readModels(textOf(h), h.name, readOptionsOf(h.settings));
 }
 
 /**
@@ -130,8 +143,9 @@ function measure(key: number): FileView {
     try {
       models = modelsOf(h);
     } catch (e) {
-      // a unit the file contradicts, or a unit given to a part file: the figures as the file says, and the refusal
-      if (!h.settings.units) throw e;
+      // a unit the file contradicts, a unit given to a part file, a drawing option refused: the figures as the
+      // file says, and the refusal
+      if (!setsReading(h.settings)) throw e;
       models = readModels(textOf(h), h.name);
       unitsRefused = `platewise: ${e instanceof OptionError ? `${optionFlag(e.option)}: ${e.detail}` : failureText(e)}`;
     }
@@ -171,8 +185,11 @@ function batch(keys: number[]): { csv: string; rows: BatchRow[]; summary: Return
   const all: BatchRow[] = [];
   keys.forEach((key, i) => {
     const h = files.get(key)!;
-    const rows = jobRows(jobOf(key, i + 1), { defaults: {}, materials: userMaterials }, {
-      part: () => ({ text: textOf(h) }),
+    // the card's drawing options as batch's command-line drawing options (a refused one fails this row, as there)
+    let read: ReadOptions | undefined, refusal: unknown;
+    try { read = readOptionsOf(h.settings); } catch (e) { refusal = e; }
+    const rows = jobRows(jobOf(key, i + 1), { defaults: {}, materials: userMaterials, read }, {
+      part: () => { if (refusal) throw refusal; return { text: textOf(h) }; },
       reference: () => { throw new Error('no reference file in the page'); },
     });
     for (const r of rows) { const l = batchLine(r, undefined); csv += batchCsvRow(l); summary.add(l); all.push(r); }

@@ -10,7 +10,7 @@
  * Needs `npm run build` and Chromium.
  */
 import { spawnSync } from 'node:child_process';
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -62,6 +62,8 @@ beforeAll(async () => {
   mkdirSync(ARTIFACTS, { recursive: true });
   writeFileSync(join(folder, 'plate.svg'), SVG);
   writeFileSync(join(folder, 'plate.json'), PART);
+  // the project's invented demo drawing with a cut layer, an etch layer and a hidden notes layer
+  writeFileSync(join(folder, 'etched.svg'), readFileSync(join(ROOT, 'samples', 'etched-plate-ep7.svg')));
   // invented materials for the test: one of its own, and a file the reader refuses (no "source")
   writeFileSync(join(folder, 'shop.json'), JSON.stringify({ materials: { 'shop-alloy-7': { density: 2.81, unit: 'g/cm3', source: 'invented for a test', name: 'Shop alloy 7 (invented)' } } }));
   writeFileSync(join(folder, 'bad-materials.json'), JSON.stringify({ materials: { 'no-source': { density: 7850, unit: 'kg/m3' } } }));
@@ -69,7 +71,7 @@ beforeAll(async () => {
   page = await browser.ctx.newPage();
   await page.goto(pathToFileURL(PAGE).href);
   await page.waitForSelector('body[data-ready="true"]');
-  await page.setInputFiles('#pick', [join(folder, 'plate.svg'), join(folder, 'plate.json')]);
+  await page.setInputFiles('#pick', [join(folder, 'plate.svg'), join(folder, 'plate.json'), join(folder, 'etched.svg')]);
 }, 120_000);
 
 afterAll(async () => {
@@ -156,5 +158,31 @@ describe('a materials file in the page', () => {
     expect(await page.textContent('#materials-state')).toMatch(/shop\.json: 1 material/);
     const again = Number(await page.getAttribute(`${card('plate.json')} tr[data-group="mass"][data-key="mass"]`, 'data-value'));
     expect(again).toBe(shown);
+  });
+});
+
+describe('drawing options in the page', () => {
+  it('--skip-layers as typed: the reading and the figures of measure --skip-layers; a refused --cut-layers shows the command line\'s line', async () => {
+    const c = card('etched.svg');
+    await page.click(`${c} details[data-role="drawing-options"] summary`);
+    await page.fill(`${c} input[name="skipLayers"]`, 'etch');
+    await page.waitForFunction((sel) => { const e = document.querySelector(sel) as HTMLElement; return JSON.parse(e.dataset.settings ?? '{}').skipLayers === 'etch' && e.dataset.state === 'done'; }, c);
+    const cli = platewise(['measure', 'etched.svg', '--skip-layers', 'etch']);
+    const readLine = cli.stdout.split('\n').find((l) => l.startsWith('read as'))!;
+    expect(readLine).toMatch(/skipped-layer 2/);
+    expect(await page.textContent(c)).toContain(readLine);
+    const json = JSON.parse(platewise(['measure', 'etched.svg', '--skip-layers', 'etch', '--json']).stdout);
+    const got = await sectionShown('etched.svg');
+    for (const [k, q] of Object.entries(json.quantities) as [string, { value: number }][]) expect(close(got.get(k)!, q.value), k).toBe(true);
+    // the etch layer holds open lines: as cut layers they are refused; the page shows that line and the figures as the file says
+    await page.fill(`${c} input[name="skipLayers"]`, '');
+    await page.fill(`${c} input[name="cutLayers"]`, 'etch');
+    await page.waitForFunction((sel) => { const e = document.querySelector(sel) as HTMLElement; const s = JSON.parse(e.dataset.settings ?? '{}'); return s.cutLayers === 'etch' && s.skipLayers === '' && e.dataset.state === 'done'; }, c);
+    const refused = platewise(['measure', 'etched.svg', '--cut-layers', 'etch']);
+    expect(refused.status).toBe(2);
+    expect((await page.textContent(`${c} [data-role="message"]`))!.trim()).toBe(refused.stderr.trim());
+    const asFile = JSON.parse(platewise(['measure', 'etched.svg', '--json']).stdout);
+    expect(close((await sectionShown('etched.svg')).get('area')!, asFile.quantities.area.value)).toBe(true);
+    await page.locator(c).screenshot({ path: join(ARTIFACTS, 'drawing-options.png') });
   });
 });
