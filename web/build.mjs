@@ -36,11 +36,9 @@ const page = await build({ ...common, entryPoints: [join(ROOT, 'web', 'page.ts')
 // inside <script>, "</script" (any case) would end the element: write it as "<\/script" (the same in JS strings
 // and regular expressions, the only places a bundle can hold it); "<!--" followed by "<script" would make the
 // HTML parser look for a second end tag, so a page script holding both is refused
-const inScript = (code, what) => {
-  if (/<!--/.test(code) && /<script/i.test(code)) throw new Error(`web/build.mjs: the ${what} bundle holds "<!--" and "<script"; it cannot be inlined safely`);
-  return code.replace(/<\/(script)/gi, '<\\/$1');
-};
-const script = inScript(page.outputFiles[0].text, 'page');
+const pageCode = page.outputFiles[0].text;
+if (/<!--/.test(pageCode) && /<script/i.test(pageCode)) throw new Error('web/build.mjs: the page bundle holds "<!--" and "<script"; it cannot be inlined safely');
+const script = pageCode.replace(/<\/(script)/gi, '<\\/$1');
 // the worker's code travels gzip-compressed in base64 inside a text element (the bundle as plain text took the
 // HTML parser 60–200 ms more), read by a small script at the top of <body> (web/start.js) that starts the
 // worker at once, while the browser is still parsing the rest of the page; the CSS packages (web/csslib.ts)

@@ -3,6 +3,7 @@
  * textContent only (names and texts from drawings never become markup), downloads out. Every figure comes
  * from the worker (web/worker.ts), which runs the library; nothing is computed here.
  */
+import { NO_SETTINGS } from './protocol.js';
 import type { BatchView, CompareView, FileSettings, FileView, MaterialView, MemberView, PartView, ToWorker } from './protocol.js';
 
 declare const PLATEWISE_VERSION: string;
@@ -289,7 +290,7 @@ function drawingOptions(c: Card): HTMLElement {
 
 function addCard(file: File, bytes: ArrayBuffer): Card {
   const key = nextKey++;
-  const c: Card = { key, name: file.name, root: el('section', { class: 'file', 'data-file': file.name, 'aria-labelledby': `f${key}-title` }), settings: { thickness: '', material: '', density: '', quantity: 1, units: '', massUnits: '', cutLayers: '', markLayers: '', skipLayers: '', joinTolerance: '', unite: '' }, busy: false, again: false };
+  const c: Card = { key, name: file.name, root: el('section', { class: 'file', 'data-file': file.name, 'aria-labelledby': `f${key}-title` }), settings: { ...NO_SETTINGS }, busy: false, again: false };
   const form = el('form', { class: 'inputs', 'aria-label': `settings for ${file.name}` });
   form.addEventListener('submit', (e) => e.preventDefault());
   form.append(
@@ -306,10 +307,11 @@ function addCard(file: File, bytes: ArrayBuffer): Card {
     for (const o of cards) {
       if (o === c) continue;
       o.settings = { ...c.settings };
-      for (const k of ['thickness', 'material', 'density', 'quantity', 'cutLayers', 'markLayers', 'skipLayers', 'joinTolerance'] as const) (o.root.querySelector(`input[name="${k}"]`) as HTMLInputElement).value = String(o.settings[k]);
-      (o.root.querySelector('input[name="unite"]') as HTMLInputElement).checked = o.settings.unite === 'yes';
-      (o.root.querySelector('select[name="units"]') as HTMLSelectElement).value = o.settings.units;
-      (o.root.querySelector('select[name="massUnits"]') as HTMLSelectElement).value = o.settings.massUnits;
+      // every control named after its setting shows the copied value
+      for (const k of Object.keys(o.settings) as (keyof FileSettings)[]) {
+        const f = o.root.querySelector<HTMLInputElement | HTMLSelectElement>(`[name="${k}"]`)!;
+        if (f instanceof HTMLInputElement && f.type === 'checkbox') f.checked = o.settings[k] === 'yes'; else f.value = String(o.settings[k]);
+      }
       void call({ op: 'settings', key: o.key, settings: o.settings }).then(() => measure(o));
     }
   });

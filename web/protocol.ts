@@ -1,17 +1,24 @@
 /** Messages between the page (web/page.ts) and its worker (web/worker.ts): plain data only. */
 
-/** The inputs beside each file, as typed (the worker parses them with the library's one settings grammar). */
-/** A file's settings; `units` is the drawing's length unit as `--units` gives it, '' for what the drawing says. */
 /**
- * A file card's settings: the command line's --thickness, --material, --density, the pieces, --units, the mass
- * units ('' = kg with kg·m², else a key of MASS_CHOICES in web/worker.ts: --mass-unit with --inertia-unit), and
- * the drawing options --cut-layers, --mark-layers, --skip-layers (comma-separated), --join-tolerance and
- * --unite ('yes' or '').
+ * A file card's settings as typed (the worker parses them with the library's own grammar): the command line's
+ * --thickness, --material, --density, the pieces, --units ('' for what the drawing says), the mass units ('' =
+ * kg with kg·m², else a key of MASS_CHOICES in web/worker.ts: --mass-unit with --inertia-unit), and the drawing
+ * options --cut-layers, --mark-layers, --skip-layers (comma-separated), --join-tolerance and --unite ('yes' or '').
  */
 export interface FileSettings {
   thickness: string; material: string; density: string; quantity: number; units: string; massUnits: string;
   cutLayers: string; markLayers: string; skipLayers: string; joinTolerance: string; unite: string;
 }
+
+/** A new card's settings: nothing given, one piece. */
+export const NO_SETTINGS: Readonly<FileSettings> = {
+  thickness: '', material: '', density: '', quantity: 1, units: '', massUnits: '',
+  cutLayers: '', markLayers: '', skipLayers: '', joinTolerance: '', unite: '',
+};
+
+/** The settings that change how the drawing is read (a refusal of one falls back to the file as it says). */
+export const READING_SETTINGS = ['units', 'cutLayers', 'markLayers', 'skipLayers', 'joinTolerance', 'unite'] as const;
 
 export type ToWorker = { id: number } & (
   // sent once by web/start.js (id 0) before anything else: the CSS packages' code, loaded on first use
@@ -27,8 +34,7 @@ export type ToWorker = { id: number } & (
   | { op: 'materials' }
   // the command line's --materials-file: a user's materials file for every file of the page (null bytes: forget it)
   | { op: 'materials-file'; name: string; bytes: ArrayBuffer | null }
-  /** `platewise member` on the file: torsion unless told not (`--no-torsion`), the bolt group with `bolts` (`--bolts`) */
-  // the command line's member --no-torsion, --bolts, --net-line (one line of text each) and --print-unit ('' = the part's)
+  // `platewise member` on the file: --no-torsion, --bolts, --net-line (one line of text each), --print-unit ('' = the part's)
   | { op: 'member'; key: number; torsion: boolean; bolts: boolean; netLines: string[]; printUnit: string }
 );
 

@@ -19,9 +19,8 @@ import { comparePart, pickPart } from '../src/output/comparePart.js';
 import { comparisonCsv, comparisonJson, comparisonText, rowAdvice } from '../src/output/compareText.js';
 import { PALETTE, drawPart } from '../src/output/draw.js';
 import { formatError, formatNumber, formatValue } from '../src/output/numbers.js';
-import { NOT_A_BOUND, NUMERIC_FIBRES, type NetSectionDoc, boltGroupFigures, boltGroupText, memberFigureText, memberJson, netSectionWords, torsionMethodText } from '../src/output/memberText.js';
+import { NOT_A_BOUND, NUMERIC_FIBRES, type NetSectionDoc, boltGroupFigures, boltGroupText, memberFigureText, memberJson, netSectionWords, printUnit, torsionMethodText } from '../src/output/memberText.js';
 import { parseNetLine } from '../src/geometry/netSection.js';
-import { isLengthUnit } from '../src/base/units.js';
 import { analyzeMemberModels } from '../src/analysis/torsionMember.js';
 import { partReportJson, reportsJson } from '../src/output/partReport.js';
 import { reportHtml } from '../src/output/reportPart.js';
@@ -33,7 +32,8 @@ import { readOptions } from '../src/read/drawingOptions.js';
 import type { ReadOptions } from '../src/read/read.js';
 import type { LengthUnit } from '../src/base/units.js';
 import type { MassUnits } from '../src/output/massText.js';
-import type { FileSettings, FileView, MemberPartView, MemberView, PartView, QuantityGroupView, ToWorker } from './protocol.js';
+import { READING_SETTINGS } from './protocol.js';
+import type { FileSettings, FileView, MaterialView, MemberPartView, MemberView, PartView, QuantityGroupView, ToWorker } from './protocol.js';
 
 declare const PLATEWISE_VERSION: string;
 
@@ -50,12 +50,16 @@ interface Held { name: string; bytes: Uint8Array; settings: FileSettings; report
 const files = new Map<number, Held>();
 /** The user's materials file (the command line's --materials-file), for every file of the page. */
 let userMaterials: MaterialTable | undefined;
-const materialList = () => listMaterials(userMaterials).map((x) => ({ id: x.id, name: x.name, density: x.density, aliases: [...x.aliases], fromFile: x.origin !== 'built-in' }));
+/** Every material the page knows, and how many of them come from the user's file. */
+function materialList(): { materials: MaterialView[]; count: number } {
+  const materials = listMaterials(userMaterials).map((x) => ({ id: x.id, name: x.name, density: x.density, aliases: [...x.aliases], fromFile: x.origin !== 'built-in' }));
+  return { materials, count: materials.filter((x) => x.fromFile).length };
+}
 
 /** The file as the command line would read it: the same size limit and the same decoding with its messages. */
-function textOf(h: Held): string {
-  if (h.bytes.length > MAX_INPUT_BYTES) throw new InputError(h.name, `is ${h.bytes.length} bytes; the limit is ${MAX_INPUT_BYTES} bytes`);
-  return decodeUtf8(h.bytes, h.name);
+function textOf({ name, bytes }: { name: string; bytes: Uint8Array }): string {
+  if (bytes.length > MAX_INPUT_BYTES) throw new InputError(name, `is ${bytes.length} bytes; the limit is ${MAX_INPUT_BYTES} bytes`);
+  return decodeUtf8(bytes, name);
 }
 
 /** The page's inputs as settings given on the command line (--thickness, --material, --density). */
@@ -115,7 +119,7 @@ function readOptionsOf(s: FileSettings): ReadOptions {
   });
 }
 /** Whether the card sets any drawing option (a refusal then falls back to the file as it says). */
-const setsReading = (s: FileSettings) => [s.units, s.cutLayers, s.markLayers, s.skipLayers, s.joinTolerance, s.unite].some((v) => v.trim() !== '');
+const setsReading = (s: FileSettings) => READING_SETTINGS.some((k) => s[k].trim() !== '');
 
 function modelsOf(h: Held): ReadModel[] {
   return readModels(textOf(h), h.name, readOptionsOf(h.settings));
@@ -241,18 +245,19 @@ interface MemberPartJson {
 }
 
 /**
- * `platewise member --json` on the file (no --print-unit, no net lines): the same call and the same writer; the
- * tables are made from that very document, each figure rounded as the member table rounds it.
+ * `platewise member --json` on the file, with the page's --no-torsion, --bolts, --net-line and --print-unit: the
+ * same call and the same writer; the tables are made from that very document, each figure rounded as the member
+ * table rounds it.
  */
-function member(key: number, torsion: boolean, bolts: boolean, lineTexts: string[], printUnit: string): MemberView {
+function member(key: number, torsion: boolean, bolts: boolean, lineTexts: string[], printUnitText: string): MemberView {
   const h = files.get(key)!;
   const t0 = performance.now();
-  // as the command line checks --print-unit and --net-line; the net area takes the file card's thickness
-  if (printUnit !== '' && (!isLengthUnit(printUnit) || printUnit === 'ft')) throw new InputError('--print-unit', `expected mm, cm, m or in, got "${printUnit}"`);
+  // --print-unit and --net-line as the command line checks them; the net area takes the file card's thickness
+  const unit = printUnit(printUnitText);
   const netLines = lineTexts.length > 0 ? lineTexts.map((t) => parseNetLine(t, '--net-line')) : undefined;
   const thickness = netLines && h.settings.thickness.trim() !== '' ? h.settings.thickness.trim() : undefined;
   const results = analyzeMemberModels(modelsOf(h), { torsion: torsion ? {} : false, bolts: bolts ? [] : undefined, netLines }, thickness);
-  const json = memberJson(results, printUnit === '' ? undefined : printUnit as LengthUnit);
+  const json = memberJson(results, unit);
   const doc = JSON.parse(json) as { parts: MemberPartJson[]; cautions: string[] };
   const group = (title: string, name: string, q: Record<string, unknown>): QuantityGroupView => ({
     title, group: name,
@@ -294,12 +299,12 @@ scope.onmessage = async (ev) => {
       case 'report': reply = await report(m.key); break;
       case 'member': reply = member(m.key, m.torsion, m.bolts, m.netLines, m.printUnit); break;
       case 'compare': reply = compare(m.key, m.name, new Uint8Array(m.bytes)); break;
-      case 'materials': reply = { materials: materialList(), palette: { ...PALETTE } }; break;
+      case 'materials': reply = { ...materialList(), palette: { ...PALETTE } }; break;
       case 'materials-file':
         // read as the command line reads --materials-file: the same size limit, decoding and one-line refusals;
         // a refused file leaves the table as it was
-        userMaterials = m.bytes === null ? undefined : loadMaterialFile(textOf({ name: m.name, bytes: new Uint8Array(m.bytes), settings: {} as FileSettings }), m.name);
-        reply = { materials: materialList(), count: userMaterials ? listMaterials(userMaterials).filter((x) => x.origin !== 'built-in').length : 0 };
+        userMaterials = m.bytes === null ? undefined : loadMaterialFile(textOf({ name: m.name, bytes: new Uint8Array(m.bytes) }), m.name);
+        reply = materialList();
         break;
     }
     scope.postMessage({ id: m.id, ok: true, value: reply });

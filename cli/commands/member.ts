@@ -2,8 +2,7 @@
 import { analyzeMemberModels } from '../../src/analysis/torsionMember.js';
 import { InputError } from '../../src/base/errors.js';
 import { readInputText } from '../../src/base/files.js';
-import { isLengthUnit } from '../../src/base/units.js';
-import { memberJson, memberText } from '../../src/output/memberText.js';
+import { memberJson, memberText, printUnit } from '../../src/output/memberText.js';
 import { parseNetLine } from '../../src/geometry/netSection.js';
 import { loadModels } from '../../src/read/load.js';
 import { type DrawingFlags, readOptions } from './settings.js';
@@ -14,9 +13,7 @@ export interface MemberFlags extends DrawingFlags {
 }
 
 export async function member(file: string, flags: MemberFlags): Promise<string> {
-  if (flags.printUnit !== undefined && (!isLengthUnit(flags.printUnit) || flags.printUnit === 'ft')) {
-    throw new InputError('--print-unit', `expected mm, cm, m or in, got "${flags.printUnit}"`);
-  }
+  const unit = printUnit(flags.printUnit);
   let bolts: number[] | undefined;
   if (flags.bolts === true) bolts = [];
   else if (typeof flags.bolts === 'string') {
@@ -34,6 +31,5 @@ export async function member(file: string, flags: MemberFlags): Promise<string> 
     torsion: flags.torsion === false ? false : { order: flags.order, minTriangles: flags.triangles },
     bolts, netLines,
   }, flags.thickness);
-  const unit = flags.printUnit as Parameters<typeof memberText>[1];
   return flags.json ? memberJson(results, unit) : memberText(results, unit);
 }

@@ -51,6 +51,7 @@ import { SAFE_DEGREES, getRule } from '../quadrature/rules.js';
 import type { StopReason } from '../quadrature/stop.js';
 import { InputError } from '../base/errors.js';
 import { addCompensated } from '../numeric/sum.js';
+import { PROPAGATION_ROUNDOFF } from '../properties/mass.js';
 
 export type { PointFunction } from '../quadrature/integrate.js';
 
@@ -139,6 +140,12 @@ export const DEFAULT_MAX_TRIANGLES = 400_000;
 export const DEFAULT_MAX_MILLIS = 30_000;
 export const DEFAULT_FLOOR_FRACTION = 1e-3;
 const ROUNDOFF = 64 * Number.EPSILON;
+/**
+ * The largest bound of a piece's whole contribution that counts as negligible: ROUNDOFF·S/n, S the sum of the
+ * bounds of all n pieces (so all negligible pieces together stay within ROUNDOFF·S). Held base triangles here
+ * and the grid cells left unmeshed by src/analysis/localize.ts use the one rule.
+ */
+export const negligibleBound = (total: number, n: number): number => ROUNDOFF * total / n;
 /** Widening of the indicator of a leaf where smoothness is not proved (see the file comment). */
 export const UNVERIFIED_WIDEN = 4;
 /** Safety factor on the observed contraction in the asymptotic estimate (see the file comment). */
@@ -283,7 +290,7 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
     for (let t = 0; t < nBase; t++) {
       if (ok[t] === 0) continue;
       let small = true;
-      for (let k = 0; k < K && small; k++) small = boundOf[t * K + k] <= ROUNDOFF * total[k] / nBase;
+      for (let k = 0; k < K && small; k++) small = boundOf[t * K + k] <= negligibleBound(total[k], nBase);
       if (small) bounded[t] = 1;
     }
   }
@@ -343,9 +350,9 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
     };
     setTargets();
     for (;;) {
-      // met when the ± the caller will show (the estimate plus the round-off allowance 64ε·(|value| + Σ|terms|)
-      // of propagateErrors, src/properties/mass.ts) is within the tolerance, not the estimate alone
-      const met = drive.every((k) => estimate[k] + ROUNDOFF * (Math.abs(fine[k]) + scale[k]) <= target[k]);
+      // met when the ± the caller will show (the estimate plus the round-off allowance of propagateErrors,
+      // src/properties/mass.ts) is within the tolerance, not the estimate alone
+      const met = drive.every((k) => estimate[k] + PROPAGATION_ROUNDOFF * (Math.abs(fine[k]) + scale[k]) <= target[k]);
       if (met) { stopped = allBounded() ? 'tolerance' : 'unverified'; break; }
       if (Date.now() - start > maxMillis) { stopped = 'time-cap'; break; }
       const room = Math.floor((maxTriangles - 4 * leaves.length) / 12); // each split adds 3 leaves = 12 fine triangles
@@ -402,7 +409,6 @@ export function integrateAdaptive(mesh: Mesh, K: number, f: PointFunction, opts:
         for (let i = n; i < all; i++) {
           const t = held[i - n];
           if (marked[i] === 0) { still.push(t); continue; }
-          bounded[t] = 0;
           evalTriangle(t);
           expand(t);
           next.push(t);

@@ -5,13 +5,14 @@
  *
  * The part's box is covered by a grid of GRID cells along its longer side. On each cell interval arithmetic
  * (src/expr/smooth.ts `rangeOnBox`, outward rounded) bounds |f|; a cell's bound times its area bounds the
- * integral of |f| over the part's share of the cell. The cells whose bound exceeds ROUNDOFF·S/n (S the sum of
- * the n cells' bounds) are kept, with one cell more all round; the part is cut along the four sides of their
- * box (src/analysis/kinks.ts `cutAlongLines`: exact booleans, curves kept; regions and holes clear of the box
- * are left out first, since they do not change part ∩ box) and the pieces inside are integrated. What lies outside is at most the sum of the other cells' bounds, per component (with |x − ox|
- * and |y − oy| at their largest on each cell for the first moments about the mesh origin): that sum goes into
- * the estimate, and the caller falls back to the whole part when it would take more than a tenth of the
- * tolerance.
+ * integral of |f| over the part's share of the cell. The cells whose bound exceeds the negligible share
+ * (`negligibleBound` of src/analysis/adaptive.ts: ROUNDOFF·S/n, S the sum of the n cells' bounds) are kept,
+ * with one cell more all round; the part is cut along the four sides of their box (src/analysis/kinks.ts
+ * `cutAlongLines`: exact booleans, curves kept; regions and holes clear of the box are left out first, since
+ * they do not change part ∩ box) and the pieces inside are integrated. What lies outside is at most the sum
+ * of the other cells' bounds, per component (with |x − ox| and |y − oy| at their largest on each cell for the
+ * first moments about the mesh origin): that sum goes into the estimate, and the caller falls back to the
+ * whole part when it would take more than a tenth of the tolerance.
  *
  * Not used when a cell cannot be bounded (the integrand undefined or unbounded there: the whole part is then
  * meshed as before, so a pole is still found and named), when the box would cover more than a quarter of the
@@ -21,10 +22,10 @@ import type { ExprNode } from '../expr/index.js';
 import { rangeOnBox } from '../expr/smooth.js';
 import { type Part, type Region, loopBox, normalizePart, partBox } from '../geometry/part.js';
 import { cutAlongLines } from './kinks.js';
+import { negligibleBound } from './adaptive.js';
 
 /** Cells along the part box's longer side. */
 export const GRID = 64;
-const ROUNDOFF = 64 * Number.EPSILON;
 /** The box kept may cover at most this share of the part's box, or the whole part is meshed. */
 const MAX_SHARE = 0.25;
 
@@ -61,7 +62,7 @@ export function localPiece(part: Part, tree: ExprNode): LocalPiece | null {
     total += v;
   }
   if (total === 0) return null;
-  const tau = ROUNDOFF * total / (nx * ny);
+  const tau = negligibleBound(total, nx * ny);
   let i0 = nx, i1 = -1, j0 = ny, j1 = -1;
   for (let j = 0; j < ny; j++) for (let i = 0; i < nx; i++) {
     if (bound[j * nx + i] <= tau) continue;

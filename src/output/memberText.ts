@@ -3,7 +3,8 @@
  * programs, in a chosen length unit (I in cm⁴ or in⁴, S and Z in cm³ or in³; the input is not changed).
  * Every output carries the geometry caution and, with torsion, the prismatic-member note.
  */
-import { type LengthUnit, lengthFactor } from '../base/units.js';
+import { type LengthUnit, isLengthUnit, lengthFactor } from '../base/units.js';
+import { InputError } from '../base/errors.js';
 import type { MemberResult, NetSectionResult } from '../analysis/torsionMember.js';
 import type { TorsionFact, TorsionResult } from '../analysis/torsion.js';
 import { LENGTH_POWER, type Quantity, quantityInfo, unitText } from '../properties/quantities.js';
@@ -155,6 +156,13 @@ export function boltGroupFigures(g: { centroid: number[]; sumXX: number; sumYY: 
       f(`bolts.${i}.distance`, `bolt ${i + 1} from the centroid`, b.distance, u),
     ]),
   ];
+}
+
+/** `--print-unit` as given (mm, cm, m or in; undefined or '' for the part's own unit), refused in one line otherwise. */
+export function printUnit(text: string | undefined): LengthUnit | undefined {
+  if (text === undefined || text === '') return undefined;
+  if (!isLengthUnit(text) || text === 'ft') throw new InputError('--print-unit', `expected mm, cm, m or in, got "${text}"`);
+  return text;
 }
 
 export function memberText(results: readonly MemberResult[], to?: LengthUnit): string {

@@ -78,11 +78,14 @@ export function massFromSums(s: ArrayLike<number>, ref: readonly [number, number
  * sum's own estimate (so errors that cancel between the two levels are not lost), plus a round-off floor
  * (64 ε times the size of the terms that were added).
  */
+/** The round-off allowance `propagateErrors` adds: this times (|value| + Σ|terms|) of each sum. */
+export const PROPAGATION_ROUNDOFF = 64 * Number.EPSILON;
+
 export function propagateErrors<K extends string>(
   derive: (s: Float64Array) => Record<K, number>,
   fine: Float64Array, coarse: Float64Array, estimate: ArrayLike<number>, scale: ArrayLike<number>,
 ): { values: Record<K, number>; errors: Record<K, number> } {
-  const k = 64 * Number.EPSILON;
+  const k = PROPAGATION_ROUNDOFF;
   const values = derive(fine);
   const low = derive(coarse);
   const errors = {} as Record<K, number>;

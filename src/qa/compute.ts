@@ -5,15 +5,16 @@
 import type { PartReport } from '../analysis/analyze.js';
 import { quantityInfo } from '../properties/quantities.js';
 
-/** Which member figures stated values need (the plastic and torsion groups come from `member`'s analysis). */
+/** The member group of a quantity key (plastic or torsion: from `member`'s analysis), or undefined. */
+function memberGroup(key: string): 'plastic' | 'torsion' | undefined {
+  const g = quantityInfo(key)?.group;
+  return g === 'plastic' || g === 'torsion' ? g : undefined;
+}
+
+/** Which member figures stated values need. */
 export function memberNeeds(keys: Iterable<string>): { plastic: boolean; torsion: boolean } {
-  let plastic = false, torsion = false;
-  for (const k of keys) {
-    const g = quantityInfo(k)?.group;
-    if (g === 'plastic') plastic = true;
-    if (g === 'torsion') torsion = true;
-  }
-  return { plastic, torsion };
+  const groups = new Set([...keys].map(memberGroup));
+  return { plastic: groups.has('plastic'), torsion: groups.has('torsion') };
 }
 
 /** Bounding-box diagonal in the part's unit (for default length tolerances). */
@@ -44,12 +45,9 @@ export function missingReason(r: PartReport): MissingReason {
 export function explainMissing(rows: { quantity: string; note?: string; computed: number | null }[], r: PartReport): void {
   const why = missingReason(r);
   for (const row of rows) {
-    if (row.computed === null && r.memberNotComputed) {
-      const g = quantityInfo(row.quantity)?.group;
-      if (g === 'plastic' || g === 'torsion') {
-        row.note = `not computed: member figures need a plate of one shape; this one has ${r.memberNotComputed.layers} layers`;
-        continue;
-      }
+    if (row.computed === null && r.memberNotComputed && memberGroup(row.quantity)) {
+      row.note = `not computed: member figures need a plate of one shape; this one has ${r.memberNotComputed.layers} layers`;
+      continue;
     }
     if (row.computed === null && needsPlate(row.quantity)) {
       row.note = why.code === 'needs'
